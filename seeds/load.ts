@@ -1,0 +1,279 @@
+import { QueryTypes, type Sequelize } from 'sequelize';
+import { hashPassword } from '../src/lib/server/auth/password';
+import {
+	Asset,
+	AssetShare,
+	ImportBatch,
+	Member,
+	Membership,
+	Organisation,
+	Reading,
+	Survey,
+	User,
+	VerificationHole
+} from '../src/lib/server/db/models';
+import { generateHoles, generateReadings, specifiedCover } from './generate';
+import { SeededRandom } from './random';
+import {
+	DEMO_PASSWORD,
+	demoAssets,
+	demoOrganisations,
+	demoPeople,
+	type DemoSurveyPlan
+} from './scenario';
+
+export const DEMO_SEED = 20_240_312;
+
+/** Tables that hold data (not the migration record), children first. */
+const DATA_TABLES = [
+	'audit_events',
+	'research_exports',
+	'report_links',
+	'assessments',
+	'column_templates',
+	'attachments',
+	'verification_holes',
+	'readings',
+	'import_batches',
+	'members',
+	'surveys',
+	'asset_shares',
+	'assets',
+	'mail_outbox',
+	'sign_in_throttles',
+	'password_resets',
+	'invitations',
+	'api_tokens',
+	'sessions',
+	'memberships',
+	'users',
+	'organisations'
+];
+
+export async function isDatabaseEmpty(sequelize: Sequelize): Promise<boolean> {
+	const row = await sequelize.query<{ n: number }>('SELECT COUNT(*) AS n FROM organisations', {
+		type: QueryTypes.SELECT,
+		plain: true
+	});
+	return Number(row?.n ?? 0) === 0;
+}
+
+export async function clearAllData(sequelize: Sequelize): Promise<void> {
+	await sequelize.query('SET FOREIGN_KEY_CHECKS = 0', { type: QueryTypes.RAW });
+	try {
+		for (const table of DATA_TABLES)
+			await sequelize.query(`TRUNCATE TABLE \`${table}\``, { type: QueryTypes.RAW });
+	} finally {
+		await sequelize.query('SET FOREIGN_KEY_CHECKS = 1', { type: QueryTypes.RAW });
+	}
+}
+
+/** Writes the whole demo scenario in one transaction: all of it or nothing. */
+export async function loadDemoScenario(
+	sequelize: Sequelize
+): Promise<{ readings: number; members: number }> {
+	const rng = new SeededRandom(DEMO_SEED);
+	const passwordHash = await hashPassword(DEMO_PASSWORD);
+	let readingCount = 0;
+	let memberCount = 0;
+	await sequelize.transaction(async (transaction) => {
+		const orgIds = new Map<string, number>();
+		for (const org of demoOrganisations) {
+			const created = await Organisation.create(org, { transaction });
+			orgIds.set(org.name, created.id);
+		}
+		const userIds = new Map<string, number>();
+		for (const person of demoPeople) {
+			const organisationId = orgIds.get(person.organisation)!;
+			const user = await User.create(
+				{
+					email: person.email,
+					displayName: person.displayName,
+					passwordHash,
+					activeOrganisationId: organisationId
+				},
+				{ transaction }
+			);
+			await Membership.create(
+				{ userId: user.id, organisationId, role: person.role },
+				{ transaction }
+			);
+			userIds.set(person.email, user.id);
+		}
+		const consultancyId = orgIds.get(demoOrganisations[0].name)!;
+		for (const plan of demoAssets) {
+			const asset = await Asset.create(
+				{
+					organisationId: consultancyId,
+					name: plan.name,
+					locationText: plan.locationText,
+					description: plan.description,
+					yearOfConstruction: plan.yearOfConstruction,
+					designCode: 'EN 1992-1-1',
+					unitSystem: 'mm',
+					designServiceLifeYears: plan.designServiceLifeYears,
+					researchOptIn: plan.researchOptIn,
+					researchOptInChangedAt: plan.researchOptIn ? new Date('2025-01-15T09:00:00Z') : null
+				},
+				{ transaction }
+			);
+			for (const grantee of plan.sharedWith) {
+				await AssetShare.create(
+					{ assetId: asset.id, organisationId: orgIds.get(grantee)!, sharedByUserId: null },
+					{ transaction }
+				);
+			}
+			for (const surveyPlan of plan.surveys) {
+				const counts = await loadSurvey(asset.id, surveyPlan, userIds, rng, transaction);
+				readingCount += counts.readings;
+				memberCount += counts.members;
+			}
+		}
+	});
+	return { readings: readingCount, members: memberCount };
+}
+
+async function loadSurvey(
+	assetId: number,
+	plan: DemoSurveyPlan,
+	userIds: Map<string, number>,
+	rng: SeededRandom,
+	transaction: import('sequelize').Transaction
+) {
+	const surveyorUserId = userIds.get(plan.surveyorEmail) ?? null;
+	const reviewed = plan.status === 'approved' || plan.status === 'returned';
+	const survey = await Survey.create(
+		{
+			assetId,
+			title: plan.title,
+			surveyDate: plan.surveyDate,
+			surveyorUserId,
+			surveyorName: null,
+			meterMake: plan.meterMake,
+			meterSerial: plan.meterSerial,
+			meterCalibration: plan.meterCalibration,
+			status: plan.status,
+			notes: plan.notes,
+			submittedAt: plan.status === 'draft' ? null : new Date(`${plan.surveyDate}T17:00:00Z`),
+			reviewedAt: reviewed ? new Date(`${plan.surveyDate}T17:00:00Z`) : null,
+			reviewedByUserId: reviewed ? (userIds.get('engineer@kestrel-lane.example') ?? null) : null
+		},
+		{ transaction }
+	);
+	const batch = await ImportBatch.create(
+		{
+			surveyId: survey.id,
+			createdByUserId: surveyorUserId,
+			sourceFormat: 'csv',
+			fileName: `${plan.surveyDate}-meter-log.csv`,
+			fileSha256: null,
+			fileBytes: null,
+			state: 'completed',
+			finishedAt: new Date(`${plan.surveyDate}T18:00:00Z`)
+		},
+		{ transaction }
+	);
+	let readings = 0;
+	const memberReadings: { memberId: number; rows: ReturnType<typeof generateReadings> }[] = [];
+	for (const memberPlan of plan.members) {
+		const specified = specifiedCover(memberPlan);
+		const member = await Member.create(
+			{
+				surveyId: survey.id,
+				assetId,
+				label: memberPlan.label,
+				memberType: memberPlan.memberType,
+				face: memberPlan.face,
+				exposureClass: memberPlan.exposureClass,
+				requirementSource: 'EN 1992-1-1',
+				structuralClass: 'S4',
+				...specified,
+				deltaPlusMm: 15,
+				barDiameterMm: memberPlan.barDiameterMm,
+				barSpacingMm: memberPlan.barSpacingMm,
+				spacingToleranceMm: 25,
+				memberDepthMm: memberPlan.memberDepthMm,
+				gridWidthMm: memberPlan.gridWidthMm,
+				gridHeightMm: memberPlan.gridHeightMm
+			},
+			{ transaction }
+		);
+		const rows = generateReadings(memberPlan, rng);
+		memberReadings.push({ memberId: member.id, rows });
+		for (let start = 0; start < rows.length; start += 5000) {
+			const chunk = rows
+				.slice(start, start + 5000)
+				.map((r) => ({ ...r, memberId: member.id, importBatchId: batch.id, note: null }));
+			await Reading.bulkCreate(chunk, { transaction, validate: false, hooks: false });
+		}
+		readings += rows.length;
+	}
+	for (let i = 0; i < plan.verificationHoleCount; i++) {
+		const target = memberReadings[(i * 3) % memberReadings.length];
+		const [hole] = generateHoles(target.rows, 1, rng);
+		await VerificationHole.create(
+			{
+				...hole,
+				label: `H${i + 1}`,
+				memberId: target.memberId,
+				barDiameterMm: null,
+				method: 'drilled'
+			},
+			{ transaction }
+		);
+	}
+	await batch.update({ rowsTotal: readings, rowsImported: readings }, { transaction });
+	return { readings, members: plan.members.length };
+}
+
+export interface DemoSummary {
+	counts: Record<string, number>;
+	populations: {
+		memberType: string;
+		exposureClass: string;
+		n: number;
+		meanMm: number;
+		sdMm: number;
+		minMm: number;
+		maxMm: number;
+	}[];
+}
+
+/** Counts and per-population figures, for checking that two seed runs agree. */
+export async function summariseDemo(sequelize: Sequelize): Promise<DemoSummary> {
+	const counts: Record<string, number> = {};
+	for (const table of [
+		'organisations',
+		'users',
+		'memberships',
+		'assets',
+		'asset_shares',
+		'surveys',
+		'members',
+		'readings',
+		'verification_holes'
+	]) {
+		const row = await sequelize.query<{ n: number }>(`SELECT COUNT(*) AS n FROM \`${table}\``, {
+			type: QueryTypes.SELECT,
+			plain: true
+		});
+		counts[table] = Number(row?.n);
+	}
+	const populations = await sequelize.query<DemoSummary['populations'][number]>(
+		`SELECT m.member_type AS memberType, m.exposure_class AS exposureClass, COUNT(*) AS n,
+		        ROUND(AVG(r.cover_mm), 6) AS meanMm, ROUND(STDDEV_SAMP(r.cover_mm), 6) AS sdMm,
+		        MIN(r.cover_mm) AS minMm, MAX(r.cover_mm) AS maxMm
+		   FROM readings r JOIN members m ON m.id = r.member_id
+		  GROUP BY m.member_type, m.exposure_class ORDER BY m.member_type, m.exposure_class`,
+		{ type: QueryTypes.SELECT }
+	);
+	return {
+		counts,
+		populations: populations.map((p) => ({
+			...p,
+			n: Number(p.n),
+			meanMm: Number(p.meanMm),
+			sdMm: Number(p.sdMm)
+		}))
+	};
+}

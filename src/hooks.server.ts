@@ -1,0 +1,40 @@
+import type { Handle, HandleServerError } from '@sveltejs/kit';
+import { randomUUID } from 'node:crypto';
+import { closeDb } from '$lib/server/db';
+import { resolveAuth } from '$lib/server/auth/resolve';
+
+const SECURITY_HEADERS: Record<string, string> = {
+	'x-content-type-options': 'nosniff',
+	'referrer-policy': 'strict-origin-when-cross-origin',
+	'x-frame-options': 'DENY',
+	'permissions-policy': 'camera=(), microphone=(), geolocation=()',
+	'cross-origin-opener-policy': 'same-origin'
+};
+
+export const handle: Handle = async ({ event, resolve }) => {
+	event.locals.requestId = randomUUID();
+	event.locals.user = null;
+	event.locals.session = null;
+	event.locals.membership = null;
+	event.locals.authMethod = null;
+	await resolveAuth(event);
+	const response = await resolve(event);
+	for (const [name, value] of Object.entries(SECURITY_HEADERS)) {
+		if (!response.headers.has(name)) response.headers.set(name, value);
+	}
+	return response;
+};
+
+/** Unexpected errors: logged with an id, shown without internals (no SQL or stack). */
+export const handleError: HandleServerError = ({ error, event, status, message }) => {
+	const errorId = event.locals.requestId ?? randomUUID();
+	if (status >= 500) {
+		console.error(`[${errorId}] ${event.request.method} ${event.url.pathname}:`, error);
+	}
+	return { message: status >= 500 ? 'Something went wrong on our side.' : message, errorId };
+};
+
+// adapter-node emits this on SIGTERM/SIGINT; closing the pool lets the process end promptly.
+process.on('sveltekit:shutdown', () => {
+	void closeDb();
+});

@@ -1,0 +1,46 @@
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { createMigrator } from '../../src/lib/server/db/migrator';
+import { initModels } from '../../src/lib/server/db/models';
+import { clearAllData, loadDemoScenario, summariseDemo } from '../../seeds/load';
+import { demoPeople } from '../../seeds/scenario';
+import { scratchDatabase } from '../helpers/database';
+
+describe('demo scenario seeding', () => {
+	let scratch: Awaited<ReturnType<typeof scratchDatabase>>;
+	beforeAll(async () => {
+		scratch = await scratchDatabase('seed');
+		initModels(scratch.sequelize);
+		await createMigrator(scratch.sequelize).up();
+	});
+	afterAll(async () => {
+		// The app's own models are bound to this instance now; the suite's other files make their own.
+		await scratch.drop();
+	});
+
+	it('is deterministic: two runs give the same counts and summary figures', async () => {
+		await loadDemoScenario(scratch.sequelize);
+		const first = await summariseDemo(scratch.sequelize);
+		await clearAllData(scratch.sequelize);
+		await loadDemoScenario(scratch.sequelize);
+		const second = await summariseDemo(scratch.sequelize);
+		expect(second).toEqual(first);
+	});
+
+	it('is as large and varied as the scenario promises', async () => {
+		const summary = await summariseDemo(scratch.sequelize);
+		expect(summary.counts.readings).toBeGreaterThanOrEqual(20_000);
+		expect(summary.counts.members).toBeGreaterThanOrEqual(30);
+		expect(summary.counts.assets).toBeGreaterThanOrEqual(2);
+		expect(summary.counts.verification_holes).toBeGreaterThan(0);
+		expect(new Set(demoPeople.map((p) => p.role))).toEqual(
+			new Set(['admin', 'engineer', 'surveyor', 'owner', 'researcher'])
+		);
+		// Realistic spread: every population's SD within the 3–12 mm band we generate for.
+		for (const p of summary.populations) {
+			if (p.n >= 20) expect(p.sdMm).toBeGreaterThan(3);
+			if (p.n >= 20) expect(p.sdMm).toBeLessThan(14);
+		}
+		// One small population, for the "not enough data" verdict.
+		expect(summary.populations.some((p) => p.n < 20)).toBe(true);
+	});
+});

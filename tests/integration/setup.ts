@@ -1,0 +1,3 @@
+import { loadTestEnv } from '../helpers/env';
+
+loadTestEnv();
