@@ -8,9 +8,12 @@ set -euo pipefail
 action="${1:-start}"
 instance="${2:-dev}"
 if [ "$instance" = test ]; then
-	ENV_FILE="$ROOT/.env.test"; SMTP_DEFAULT=2526; S3_DEFAULT=4570; APP_DEFAULT=3100; SUFFIX=-test
+	# Overridable so two checkouts on one machine can each run their own suite.
+	ENV_FILE="$ROOT/.env.test"; SMTP_DEFAULT="${TEST_SMTP_PORT:-2526}"; S3_DEFAULT="${TEST_S3_PORT:-4570}"
+	APP_DEFAULT="${TEST_APP_PORT:-3100}"; SUFFIX=-test
 else
-	ENV_FILE="$ROOT/.env"; SMTP_DEFAULT=2525; S3_DEFAULT=4569; APP_DEFAULT=3000; SUFFIX=
+	ENV_FILE="$ROOT/.env"; SMTP_DEFAULT="${SMTP_PORT:-2525}"; S3_DEFAULT="${S3_FAKE_PORT:-4569}"
+	APP_DEFAULT="${PORT:-3000}"; SUFFIX=
 fi
 RUN_DIR="$LOCAL_DIR/run$SUFFIX"
 mkdir -p "$RUN_DIR"
