@@ -1,6 +1,6 @@
 import type { Handle, HandleServerError } from '@sveltejs/kit';
 import { randomUUID } from 'node:crypto';
-import { closeDb } from '$lib/server/db';
+import { closeDb, db } from '$lib/server/db';
 import { resolveAuth } from '$lib/server/auth/resolve';
 import { toApiErrorResponse } from '$lib/server/http';
 import { startMailRetryLoop, stopMailRetryLoop } from '$lib/server/mail/retry';
@@ -13,6 +13,9 @@ const SECURITY_HEADERS: Record<string, string> = {
 	'cross-origin-opener-policy': 'same-origin'
 };
 
+// Bind the models to the one Sequelize instance before the first request, whatever route it
+// asks for (connecting waits for the first query).
+db();
 startMailRetryLoop();
 
 export const handle: Handle = async ({ event, resolve }) => {
