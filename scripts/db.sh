@@ -21,12 +21,17 @@ PORT_KEY=DB_PORT
 case "$instance" in
 	dev) ENV_FILE="$ROOT/.env"; DATA_DIR="$LOCAL_DIR/mariadb"; DEFAULT_PORT="${DB_PORT:-3307}"; DEFAULT_NAME=fractile ;;
 	test) ENV_FILE="$ROOT/.env.test"; DATA_DIR="$LOCAL_DIR/mariadb-test"; DEFAULT_PORT="${TEST_DB_PORT:-3308}"; DEFAULT_NAME=fractile_test ;;
+	fault)
+		# A throwaway instance that the fault tests stop and start under a running app.
+		ENV_FILE="$ROOT/.env.fault"; DATA_DIR="$LOCAL_DIR/mariadb-fault"; DEFAULT_PORT="${FAULT_DB_PORT:-3313}"
+		DEFAULT_NAME=fractile_fault
+		;;
 	primary | replica)
 		ENV_FILE="$ROOT/.env.replication"; DATA_DIR="$LOCAL_DIR/mariadb-$instance"
 		DEFAULT_PORT="${PRIMARY_DB_PORT:-3311}"; DEFAULT_NAME=fractile_replicated
 		[ "$instance" = replica ] && PORT_KEY=REPLICA_DB_PORT
 		;;
-	*) die "unknown instance '$instance' (dev, test, primary or replica)" ;;
+	*) die "unknown instance '$instance' (dev, test, fault, primary or replica)" ;;
 esac
 
 SOCKET="$DATA_DIR/mysqld.sock"
