@@ -1,8 +1,9 @@
-import type { Handle, HandleServerError } from '@sveltejs/kit';
+import { json, type Handle, type HandleServerError } from '@sveltejs/kit';
 import { randomUUID } from 'node:crypto';
 import { closeDb } from '$lib/server/db';
 import { resolveAuth } from '$lib/server/auth/resolve';
 import { toApiErrorResponse } from '$lib/server/http';
+import { lockedMessage } from '$lib/server/auth/throttle-rules';
 import { startMailRetryLoop, stopMailRetryLoop } from '$lib/server/mail/retry';
 
 const SECURITY_HEADERS: Record<string, string> = {
@@ -21,8 +22,8 @@ export const handle: Handle = async ({ event, resolve }) => {
 	event.locals.session = null;
 	event.locals.membership = null;
 	event.locals.authMethod = null;
-	await resolveAuth(event);
-	let response = await resolve(event);
+	const { throttledUntil } = await resolveAuth(event);
+	let response = throttledUntil ? tooManyTokenGuesses(throttledUntil) : await resolve(event);
 	// Every failed /api answer leaves in one shape, { error: { code, message, field? } } (http.ts).
 	if (event.url.pathname.startsWith('/api/')) response = await toApiErrorResponse(response);
 	for (const [name, value] of Object.entries(SECURITY_HEADERS)) {
@@ -34,6 +35,19 @@ export const handle: Handle = async ({ event, resolve }) => {
 	}
 	return response;
 };
+
+function tooManyTokenGuesses(until: Date): Response {
+	const retryAfterSeconds = Math.max(1, Math.ceil((until.getTime() - Date.now()) / 1000));
+	return json(
+		{
+			error: {
+				code: 'too_many_requests',
+				message: lockedMessage(until).replace('sign-ins', 'token attempts')
+			}
+		},
+		{ status: 429, headers: { 'retry-after': String(retryAfterSeconds) } }
+	);
+}
 
 /** Unexpected errors: logged with an id, shown without internals (no SQL or stack). */
 export const handleError: HandleServerError = ({ error, event, status, message }) => {

@@ -74,4 +74,16 @@ describe('sign-in throttling', () => {
 		const viaMainApp = await anonymousClient().postForm('/sign-in', { email, password: 'x-y-z' });
 		expect(await viaMainApp.text()).toContain('Too many failed sign-ins');
 	});
+
+	it('answers 429 to an address that has guessed 30 wrong API tokens', async () => {
+		const guesser = (n: number) =>
+			fetch(new URL('/api/v1/me', app.origin), {
+				headers: { authorization: `Bearer frt_guess${n}`, 'x-forwarded-for': '10.5.0.1' }
+			});
+		for (let i = 1; i <= 30; i++) expect((await guesser(i)).status).toBe(401);
+		const locked = await guesser(31);
+		expect(locked.status).toBe(429);
+		expect(locked.headers.get('retry-after')).toMatch(/^\d+$/);
+		expect((await locked.json()).error.code).toBe('too_many_requests');
+	});
 });
