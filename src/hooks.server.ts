@@ -1,6 +1,6 @@
-import { json, type Handle, type HandleServerError } from '@sveltejs/kit';
+import { json, type Handle, type HandleServerError, type ServerInit } from '@sveltejs/kit';
 import { randomUUID } from 'node:crypto';
-import { closeDb } from '$lib/server/db';
+import { closeDb, db } from '$lib/server/db';
 import { resolveAuth } from '$lib/server/auth/resolve';
 import { toApiErrorResponse } from '$lib/server/http';
 import { lockedMessage } from '$lib/server/auth/throttle-rules';
@@ -14,7 +14,14 @@ const SECURITY_HEADERS: Record<string, string> = {
 	'cross-origin-opener-policy': 'same-origin'
 };
 
-startMailRetryLoop();
+/**
+ * Once per process, before the first request: bind the models to the one Sequelize instance
+ * (model calls made before `db()` would fail) and start the mail retry loop.
+ */
+export const init: ServerInit = () => {
+	db();
+	startMailRetryLoop();
+};
 
 export const handle: Handle = async ({ event, resolve }) => {
 	event.locals.requestId = randomUUID();
