@@ -5,10 +5,12 @@ import { freePort, startBuiltApp } from '../helpers/server';
 import { httpClient } from '../helpers/session';
 import { signUpNewOrganisation, uniqueEmail } from '../helpers/accounts';
 import { testSequelize } from '../helpers/database';
+import { mailsTo } from '../helpers/mail';
 
 /**
  * A copy of the app whose SMTP relay is down: mail is kept and retried, the admin sees it
- * failing, and once a relay answers on that port the retry loop delivers it.
+ * failing, and once a relay answers the retry loop delivers it — once, though two app
+ * processes (this copy and the shared one) run retry loops over the same outbox.
  */
 let app: Awaited<ReturnType<typeof startBuiltApp>>;
 let relayPort: number;
@@ -87,6 +89,11 @@ describe('mail when the relay is down', () => {
 			return row?.state === 'sent' && row;
 		});
 		expect(sent.state).toBe('sent');
-		expect(received.filter((m) => m.includes(email))).toHaveLength(1);
+		// Either process may deliver it — the shared app's loop reaches the same row through the
+		// same database and sends through the usual fake — but exactly one of them does.
+		await new Promise((r) => setTimeout(r, 500));
+		const viaThisRelay = received.filter((m) => m.includes(email)).length;
+		const viaSharedFake = (await mailsTo(email)).length;
+		expect(viaThisRelay + viaSharedFake).toBe(1);
 	});
 });
