@@ -39,6 +39,8 @@ export async function attemptSignIn(
 		await recordAudit({
 			action: 'auth.sign_in_failed',
 			userId: user?.id,
+			// So the account's organisation sees attempts on it in its audit log.
+			organisationId: user?.activeOrganisationId,
 			ipAddress: address,
 			detail: { email }
 		});
