@@ -4,6 +4,7 @@ import { closeDb, db } from '$lib/server/db';
 import { resolveAuth } from '$lib/server/auth/resolve';
 import { toApiErrorResponse } from '$lib/server/http';
 import { lockedMessage } from '$lib/server/auth/throttle-rules';
+import { startAuthHousekeeping, stopAuthHousekeeping } from '$lib/server/auth/housekeeping';
 import { startMailRetryLoop, stopMailRetryLoop } from '$lib/server/mail/retry';
 
 const SECURITY_HEADERS: Record<string, string> = {
@@ -16,11 +17,13 @@ const SECURITY_HEADERS: Record<string, string> = {
 
 /**
  * Once per process, before the first request: bind the models to the one Sequelize instance
- * (model calls made before `db()` would fail) and start the mail retry loop.
+ * (model calls made before `db()` would fail), start the mail retry loop and the hourly sweep
+ * of expired sessions and stale throttle counters.
  */
 export const init: ServerInit = () => {
 	db();
 	startMailRetryLoop();
+	startAuthHousekeeping();
 };
 
 export const handle: Handle = async ({ event, resolve }) => {
@@ -68,5 +71,6 @@ export const handleError: HandleServerError = ({ error, event, status, message }
 // adapter-node emits this on SIGTERM/SIGINT; closing the pool lets the process end promptly.
 process.on('sveltekit:shutdown', () => {
 	stopMailRetryLoop();
+	stopAuthHousekeeping();
 	void closeDb();
 });
