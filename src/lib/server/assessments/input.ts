@@ -1,5 +1,5 @@
 /** What a client sends to save an assessment, checked with zod. */
-import { error } from '@sveltejs/kit';
+import { readJson } from '$lib/server/http';
 import { z } from 'zod';
 import { methodSchema, SPLITS } from '$lib/server/populations';
 
@@ -33,19 +33,7 @@ export const saveSchema = z.object({
 
 export type SaveBody = z.infer<typeof saveSchema>;
 
-/** Parse a JSON body; not JSON or not the schema is a 400 naming the field. */
-export async function readSaveBody(request: Request): Promise<SaveBody> {
-	let body: unknown;
-	try {
-		body = await request.json();
-	} catch {
-		error(400, 'The request body is not valid JSON.');
-	}
-	const parsed = saveSchema.safeParse(body);
-	if (!parsed.success) {
-		const issue = parsed.error.issues[0];
-		const field = issue.path.join('.');
-		error(400, field ? `${field}: ${issue.message}` : issue.message);
-	}
-	return parsed.data;
+/** Parse a JSON body; not JSON or not the schema is a 400 naming the field (http.ts). */
+export function readSaveBody(request: Request): Promise<SaveBody> {
+	return readJson(request, saveSchema);
 }

@@ -3,6 +3,7 @@
  * One zod schema for the API's query string and the page URL, so a view can be bookmarked.
  */
 import { error } from '@sveltejs/kit';
+import { apiError } from '$lib/server/http';
 import { z } from 'zod';
 import { RULE_SETS, type AssessOptions, type RuleSetName } from '$lib/analysis';
 import { MEMBER_FACES, MEMBER_TYPES } from '$lib/server/db/migrations/002-surveys';
@@ -77,10 +78,7 @@ export function paramsOf(url: URL): Record<string, string> {
 	return Object.fromEntries(url.searchParams.entries());
 }
 
-/**
- * Validate query or path parameters; a bad one is a 400 naming the parameter. When sign-in's
- * src/lib/server/http.ts lands, its error shape `{ error: { code, message, field } }` wraps this.
- */
+/** Validate query parameters; a bad one is a 400 `invalid_input` naming the parameter (field). */
 export function parseParams<S extends z.ZodType>(
 	schema: S,
 	params: Record<string, string>
@@ -89,7 +87,7 @@ export function parseParams<S extends z.ZodType>(
 	if (!parsed.success) {
 		const issue = parsed.error.issues[0];
 		const field = issue.path.join('.');
-		error(400, { message: field ? `${field}: ${issue.message}` : issue.message });
+		apiError(400, 'invalid_input', issue.message, field || undefined);
 	}
 	return parsed.data as z.infer<S>;
 }
