@@ -61,7 +61,7 @@ export function lineAnnotations(lines: LimitLine[]) {
 					display: true,
 					content: `${line.name} ${line.valueMm.toFixed(1)} mm`,
 					position: 'start' as const,
-					yAdjust: i * 22,
+					yAdjust: -i * 22,
 					backgroundColor: 'rgba(255,255,255,0.9)',
 					color: '#24292b',
 					font: { size: 11 }
