@@ -1,4 +1,4 @@
-import type { Sequelize } from 'sequelize';
+import { QueryTypes, type Sequelize } from 'sequelize';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { assessPopulation } from '../../src/lib/analysis';
 import type { PopulationOverview } from '../../src/lib/server/populations';
@@ -84,7 +84,7 @@ describe('the population API over HTTP', () => {
 	it('serves a member’s cover map with its readings and the meter’s check', async () => {
 		const [member] = await sequelize.query<{ id: number }>(
 			"SELECT id FROM members WHERE label = 'L2-BAY-04'",
-			{ type: sequelize.QueryTypes.SELECT }
+			{ type: QueryTypes.SELECT }
 		);
 		const response = await engineer.get(`/api/v1/members/${member.id}/cover-map`, JSON_ACCEPT);
 		expect(response.status).toBe(200);
