@@ -187,3 +187,36 @@ export async function approveDirectly(assessment: Assessment): Promise<void> {
 		approvedAt: new Date('2026-01-16T10:00:00Z')
 	});
 }
+
+/** An approved car-park assessment with the default durability parameters, entered over HTTP. */
+export async function approvedCarParkAssessment(
+	sequelize: Sequelize,
+	engineer: { putJson(path: string, body: unknown): Promise<Response> }
+): Promise<Assessment> {
+	const draft = await insertDraft(sequelize);
+	const response = await engineer.putJson(`/api/v1/assessments/${draft.id}/durability`, {
+		parameters: {}
+	});
+	if (response.status !== 200) throw new Error(`durability refused: ${await response.text()}`);
+	await approveDirectly(draft);
+	return draft;
+}
+
+/** An owner in an organisation of its own that nothing is shared with. */
+export async function strangerOwner(tag: string): Promise<{ email: string; password: string }> {
+	const { hashPassword } = await import('../../src/lib/server/auth/password');
+	const { Membership, Organisation } = await import('../../src/lib/server/db/models');
+	const password = 'stranger-owner-pass-2026';
+	const organisation = await Organisation.create({
+		name: `Elsewhere Holdings ${tag}`,
+		slug: `elsewhere-${tag}`
+	});
+	const user = await User.create({
+		email: `owner-${tag}@elsewhere.example`,
+		displayName: 'Stranger Owner',
+		passwordHash: await hashPassword(password),
+		activeOrganisationId: organisation.id
+	});
+	await Membership.create({ userId: user.id, organisationId: organisation.id, role: 'owner' });
+	return { email: user.email, password };
+}
