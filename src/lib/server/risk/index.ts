@@ -9,3 +9,4 @@ export * from './source';
 export * from './store';
 export * from './portfolio';
 export { visibleAsset, visibleAssets } from './access';
+export * from './view';

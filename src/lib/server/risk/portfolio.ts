@@ -95,9 +95,9 @@ export async function portfolio(actor: Actor) {
 
 /** One visible asset with its latest approved assessment (404 for anyone else). */
 export async function assetView(actor: Actor, assetId: number) {
-	const { asset } = await visibleAsset(actor, assetId);
+	const { asset, own } = await visibleAsset(actor, assetId);
 	const row = await latestApproved(asset.id);
-	return { asset: assetFields(asset), latest: row ? await assessedSource(row) : null };
+	return { asset: assetFields(asset), own, latest: row ? await assessedSource(row) : null };
 }
 
 /** An approved or superseded assessment the actor may read (drafts and others' answer 404). */
