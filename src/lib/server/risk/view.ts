@@ -1,6 +1,7 @@
 /** What the pages get: plain figures of an assessed source, without the snapshot's bulk. */
 import { RISK_WORDS, type RiskLevel } from './levels';
 import type { AssessedSource } from './portfolio';
+import { worstFirst } from './summary';
 
 export interface PopulationRiskView {
 	id: string;
@@ -57,7 +58,8 @@ export function toRiskView(source: AssessedSource): AssessmentRiskView {
 		reason: risk.reason,
 		shareBelowCMin: risk.shareBelowCMin,
 		shareDepassivatedAtDesignLife: risk.shareDepassivatedAtDesignLife,
-		populations: annex.populations.map((p) => ({
+		// Worst first, then the largest area: the order an owner should read them in.
+		populations: [...annex.populations].sort(worstFirst).map((p) => ({
 			id: p.populationId,
 			label: p.label,
 			level: p.level,
