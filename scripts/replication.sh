@@ -21,8 +21,8 @@ replica_state() {
 }
 
 start() {
-	# Triggers (the frozen snapshot of an approved assessment) need this once binary logging is on:
-	# the app user may create them without SUPER.
+	# Triggers (migrations 005/006 freeze signed assessments) need log_bin_trust_function_creators
+	# on a server with a binary log when the app's user has no SUPER privilege; so does production.
 	DB_EXTRA_ARGS="--server-id=1 --log-bin=primary-bin --log-basename=primary --binlog-format=ROW --log-bin-trust-function-creators=1" \
 		bash scripts/db.sh start primary
 	load_env "$ENV_FILE"
