@@ -3,6 +3,7 @@
  * one with a stated reason, read the history. Each change is one transaction with its audit
  * event. An approved or superseded snapshot is never rewritten.
  */
+import { annexFor, fromSnapshot, writeAnnex } from '$lib/server/risk';
 import { error } from '@sveltejs/kit';
 import { db, Assessment } from '$lib/server/db';
 import { recordAudit } from '$lib/server/audit';
@@ -41,6 +42,8 @@ export async function saveDraft(actor: Actor, input: SaveInput): Promise<Assessm
 		input.methods
 	);
 	const { text, sha256 } = serialiseSnapshot(snapshot);
+	// Durability projections with the stated defaults, kept with the draft (risk/store.ts).
+	const annex = await annexFor(fromSnapshot(text), {});
 	return db().transaction(async (transaction) => {
 		const created = await Assessment.create(
 			{
@@ -57,6 +60,7 @@ export async function saveDraft(actor: Actor, input: SaveInput): Promise<Assessm
 			},
 			{ transaction }
 		);
+		await writeAnnex(created.id, annex, actor.userId, transaction);
 		await recordAudit(
 			{
 				action: 'assessment.saved',

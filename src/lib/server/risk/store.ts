@@ -4,6 +4,7 @@
  */
 import { createHash } from 'node:crypto';
 import { error } from '@sveltejs/kit';
+import type { Transaction } from 'sequelize';
 import { db, Assessment, AssessmentRisk, Member, Reading } from '$lib/server/db';
 import { recordAudit } from '$lib/server/audit';
 import type { Actor } from '$lib/server/policy';
@@ -62,20 +63,9 @@ export async function saveRisk(
 		if (e instanceof ReadingsChangedError) error(409, e.message);
 		throw e;
 	}
-	const text = JSON.stringify(annex);
 	await db().transaction(async (transaction) => {
 		await AssessmentRisk.destroy({ where: { assessmentId }, transaction });
-		await AssessmentRisk.create(
-			{
-				assessmentId,
-				parameters: JSON.stringify(annex.parameters),
-				annex: text,
-				annexSha256: sha256(text),
-				engineVersion: annex.engineVersion,
-				createdByUserId: actor.userId
-			},
-			{ transaction }
-		);
+		await writeAnnex(assessmentId, annex, actor.userId, transaction);
 		await recordAudit(
 			{
 				action: 'assessment.risk_saved',
@@ -83,12 +73,37 @@ export async function saveRisk(
 				userId: actor.userId,
 				subjectType: 'assessment',
 				subjectId: assessmentId,
-				detail: { sha256: sha256(text), parameters: annex.parameters }
+				detail: { sha256: sha256(JSON.stringify(annex)), parameters: annex.parameters }
 			},
 			transaction
 		);
 	});
 	return annex;
+}
+
+/**
+ * Keeps an annex with its assessment, inside the caller's transaction. A new draft gets one
+ * computed with the stated defaults (saveDraft), so an assessment approved without the engineer
+ * entering parameters still carries its projections; saveRisk replaces it with entered ones.
+ */
+export async function writeAnnex(
+	assessmentId: number,
+	annex: RiskAnnex,
+	userId: number | null,
+	transaction: Transaction
+): Promise<void> {
+	const text = JSON.stringify(annex);
+	await AssessmentRisk.create(
+		{
+			assessmentId,
+			parameters: JSON.stringify(annex.parameters),
+			annex: text,
+			annexSha256: sha256(text),
+			engineVersion: annex.engineVersion,
+			createdByUserId: userId
+		},
+		{ transaction }
+	);
 }
 
 /** The stored annex of an assessment, or null when none was entered. */
