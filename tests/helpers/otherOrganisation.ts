@@ -1,0 +1,109 @@
+/**
+ * A second organisation with records of its own, for the cross-organisation attacks: signed up
+ * through the real form (its creator is admin), then given a copy of one demo member's asset,
+ * survey, member and readings by SQL (intake's pages may not exist yet), and an assessment and
+ * an API token made through the API as that admin would.
+ */
+import { QueryTypes, type Sequelize } from 'sequelize';
+import { randomBytes } from 'node:crypto';
+import { signUpNewOrganisation } from './accounts';
+import type { HttpClient } from './session';
+
+export interface OrganisationIds {
+	assetId: number;
+	surveyId: number;
+	memberId: number;
+	assessmentId: number;
+	membershipId: number;
+	tokenId: number;
+	/** A word that appears in the organisation's own asset name and nowhere else. */
+	marker: string;
+}
+
+export interface OtherOrganisation {
+	admin: HttpClient;
+	ids: OrganisationIds;
+}
+
+const one = async <T>(sequelize: Sequelize, sql: string, replacements: unknown[]) =>
+	(await sequelize.query<T>(sql, { replacements, type: QueryTypes.SELECT, plain: true })) as T;
+
+const insert = async (sequelize: Sequelize, sql: string, replacements: unknown[]) => {
+	const [id] = await sequelize.query(sql, { replacements, type: QueryTypes.INSERT });
+	return Number(id);
+};
+
+/** Copies asset → survey → first member → its readings into `organisationId`. */
+async function copyRecords(sequelize: Sequelize, organisationId: number, marker: string) {
+	const assetId = await insert(
+		sequelize,
+		`INSERT INTO assets (organisation_id, name, location_text, description, year_of_construction,
+		   design_code, unit_system, design_service_life_years, research_opt_in, created_at, updated_at)
+		 SELECT ?, ?, location_text, description, year_of_construction, design_code, unit_system,
+		   design_service_life_years, 0, NOW(), NOW() FROM assets WHERE id = 1`,
+		[organisationId, `Hostile test asset ${marker}`]
+	);
+	const surveyId = await insert(
+		sequelize,
+		`INSERT INTO surveys (asset_id, title, survey_date, surveyor_name, meter_make, meter_serial,
+		   status, created_at, updated_at)
+		 SELECT ?, ?, survey_date, surveyor_name, meter_make, meter_serial, 'draft', NOW(), NOW()
+		   FROM surveys WHERE id = 1`,
+		[assetId, `Hostile survey ${marker}`]
+	);
+	const source = await one<{ id: number }>(
+		sequelize,
+		'SELECT id FROM members WHERE survey_id = 1 ORDER BY id LIMIT 1',
+		[]
+	);
+	const memberId = await insert(
+		sequelize,
+		`INSERT INTO members (survey_id, asset_id, label, member_type, face, exposure_class,
+		   requirement_source, structural_class, c_min_mm, c_nom_mm, delta_c_dev_mm, delta_plus_mm,
+		   bar_diameter_mm, bar_spacing_mm, spacing_tolerance_mm, member_depth_mm, grid_width_mm,
+		   grid_height_mm, notes, created_at, updated_at)
+		 SELECT ?, ?, ?, member_type, face, exposure_class, requirement_source, structural_class,
+		   c_min_mm, c_nom_mm, delta_c_dev_mm, delta_plus_mm, bar_diameter_mm, bar_spacing_mm,
+		   spacing_tolerance_mm, member_depth_mm, grid_width_mm, grid_height_mm, notes, NOW(), NOW()
+		   FROM members WHERE id = ?`,
+		[surveyId, assetId, `HOSTILE-${marker}`, source.id]
+	);
+	await sequelize.query(
+		`INSERT INTO readings (member_id, x_mm, y_mm, cover_mm, bar_diameter_mm, bar_spacing_mm,
+		   bar_direction, flags, note)
+		 SELECT ?, x_mm, y_mm, cover_mm, bar_diameter_mm, bar_spacing_mm, bar_direction, flags, note
+		   FROM readings WHERE member_id = ?`,
+		{ replacements: [memberId, source.id], type: QueryTypes.INSERT }
+	);
+	return { assetId, surveyId, memberId };
+}
+
+/** A draft assessment of `assetId` and an API token, both made over HTTP by `client`. */
+export async function draftAndToken(client: HttpClient, assetId: number) {
+	const saved = await client.postJson(`/api/v1/assets/${assetId}/assessments`, {
+		title: 'Hostile input fixture'
+	});
+	if (saved.status !== 201) throw new Error(`draft failed: ${saved.status} ${await saved.text()}`);
+	const assessmentId = ((await saved.json()) as { assessment: { id: number } }).assessment.id;
+	const made = await client.postJson('/api/v1/tokens', {
+		name: 'hostile fixture',
+		expiresInDays: 1
+	});
+	if (made.status !== 201) throw new Error(`token failed: ${made.status} ${await made.text()}`);
+	const tokenId = ((await made.json()) as { token: { id: number } }).token.id;
+	return { assessmentId, tokenId };
+}
+
+export async function createOtherOrganisation(sequelize: Sequelize): Promise<OtherOrganisation> {
+	const marker = randomBytes(4).toString('hex');
+	const { email, client } = await signUpNewOrganisation(`hostile-${marker}`);
+	const membership = await one<{ id: number; organisationId: number }>(
+		sequelize,
+		`SELECT m.id, m.organisation_id AS organisationId FROM memberships m
+		   JOIN users u ON u.id = m.user_id WHERE u.email = ?`,
+		[email]
+	);
+	const records = await copyRecords(sequelize, membership.organisationId, marker);
+	const made = await draftAndToken(client, records.assetId);
+	return { admin: client, ids: { ...records, ...made, membershipId: membership.id, marker } };
+}

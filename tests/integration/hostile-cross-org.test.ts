@@ -1,0 +1,254 @@
+/**
+ * Hostile input: another organisation's ids on every route with an id answer 404 and show none
+ * of its data (docs/roles.md: "never 403, so ids reveal nothing"). The route list is read from
+ * src/routes, so a new route with a parameter and no case here fails the first test.
+ */
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { QueryTypes, type Sequelize } from 'sequelize';
+import { testSequelize } from '../helpers/database';
+import { signInAs, type HttpClient } from '../helpers/session';
+import { routeIdsWithParams } from '../helpers/routes';
+import {
+	createOtherOrganisation,
+	draftAndToken,
+	type OrganisationIds,
+	type OtherOrganisation
+} from '../helpers/otherOrganisation';
+
+type Probe = {
+	method: 'GET' | 'POST' | 'PUT' | 'PATCH' | 'DELETE' | 'FORM';
+	path: string;
+	body?: unknown;
+};
+
+/** For each route with an organisation's id: the requests an attacker would try with a victim's ids. */
+const ORG_ROUTES: Record<string, (v: OrganisationIds, own: OrganisationIds) => Probe[]> = {
+	'/assessments/[id]': (v) => [
+		{ method: 'GET', path: `/assessments/${v.assessmentId}` },
+		{ method: 'FORM', path: `/assessments/${v.assessmentId}?/approve` }
+	],
+	'/assets/[assetId]/assessments': (v) => [
+		{ method: 'GET', path: `/assets/${v.assetId}/assessments` },
+		{ method: 'FORM', path: `/assets/${v.assetId}/assessments?/save`, body: { title: 'Stolen' } }
+	],
+	'/assets/[assetId]/populations': (v) => [
+		{ method: 'GET', path: `/assets/${v.assetId}/populations` },
+		{ method: 'GET', path: `/assets/${v.assetId}/populations?survey=${v.surveyId}` }
+	],
+	'/assets/[assetId]/populations/detail': (v) => [
+		{ method: 'GET', path: `/assets/${v.assetId}/populations/detail?type=deck&exposure=XD3` }
+	],
+	'/members/[memberId]': (v) => [{ method: 'GET', path: `/members/${v.memberId}` }],
+	'/organisation/members/[id]': (v) => [
+		{ method: 'GET', path: `/organisation/members/${v.membershipId}` }
+	],
+	'/portfolio/[assetId]': (v, own) => [
+		{ method: 'GET', path: `/portfolio/${v.assetId}` },
+		{
+			method: 'FORM',
+			path: `/portfolio/${v.assetId}?/share`,
+			body: { assessment: String(v.assessmentId), email: 'thief@tests.example' }
+		},
+		// The asset in the path is the attacker's own; only the assessment in the body is foreign.
+		{
+			method: 'FORM',
+			path: `/portfolio/${own.assetId}?/share`,
+			body: { assessment: String(v.assessmentId), email: 'thief@tests.example' }
+		},
+		{
+			method: 'FORM',
+			path: `/portfolio/${own.assetId}?/revoke`,
+			body: { assessment: String(v.assessmentId), link: '1' }
+		}
+	],
+	'/api/v1/assessments/[id]': (v) => [
+		{ method: 'GET', path: `/api/v1/assessments/${v.assessmentId}` }
+	],
+	'/api/v1/assessments/[id]/approve': (v) => [
+		{ method: 'POST', path: `/api/v1/assessments/${v.assessmentId}/approve`, body: {} }
+	],
+	'/api/v1/assessments/[id]/durability': (v) => [
+		{ method: 'GET', path: `/api/v1/assessments/${v.assessmentId}/durability` },
+		{
+			method: 'PUT',
+			path: `/api/v1/assessments/${v.assessmentId}/durability`,
+			body: { parameters: {} }
+		}
+	],
+	'/api/v1/assessments/[id]/report': (v) => [
+		{ method: 'GET', path: `/api/v1/assessments/${v.assessmentId}/report` }
+	],
+	'/api/v1/assets/[assetId]/assessments': (v) => [
+		{ method: 'GET', path: `/api/v1/assets/${v.assetId}/assessments` },
+		{ method: 'POST', path: `/api/v1/assets/${v.assetId}/assessments`, body: { title: 'Stolen' } }
+	],
+	'/api/v1/assets/[assetId]/populations': (v) => [
+		{ method: 'GET', path: `/api/v1/assets/${v.assetId}/populations` }
+	],
+	'/api/v1/assets/[assetId]/populations/detail': (v) => [
+		{ method: 'GET', path: `/api/v1/assets/${v.assetId}/populations/detail?type=deck&exposure=XD3` }
+	],
+	'/api/v1/members/[memberId]/cover-map': (v) => [
+		{ method: 'GET', path: `/api/v1/members/${v.memberId}/cover-map` }
+	],
+	'/api/v1/organisation/members/[id]': (v) => [
+		{
+			method: 'PATCH',
+			path: `/api/v1/organisation/members/${v.membershipId}`,
+			body: { role: 'surveyor' }
+		},
+		{ method: 'DELETE', path: `/api/v1/organisation/members/${v.membershipId}` }
+	],
+	'/api/v1/tokens/[id]': (v) => [{ method: 'DELETE', path: `/api/v1/tokens/${v.tokenId}` }]
+};
+
+/** Routes whose parameter is a secret token rather than a record id: a guess opens nothing. */
+const TOKEN_ROUTES: Record<string, { path: string; gone: RegExp }> = {
+	'/invitations/[token]': {
+		path: '/invitations/guessed-token',
+		gone: /has expired, was withdrawn/
+	},
+	'/reset-password/[token]': {
+		path: '/reset-password/guessed-token',
+		gone: /expired or was already used/
+	},
+	'/r/[token]': { path: '/r/guessed-token', gone: /404|not valid/ },
+	'/r/[token]/report.pdf': { path: '/r/guessed-token/report.pdf', gone: /not valid/ }
+};
+
+function send(client: HttpClient, probe: Probe): Promise<Response> {
+	switch (probe.method) {
+		case 'GET':
+			return client.get(probe.path);
+		case 'FORM':
+			return client.postForm(probe.path, (probe.body ?? {}) as Record<string, string>);
+		case 'POST':
+			return client.postJson(probe.path, probe.body);
+		case 'PUT':
+			return client.putJson(probe.path, probe.body);
+		case 'PATCH':
+			return client.patchJson(probe.path, probe.body);
+		case 'DELETE':
+			return client.delete(probe.path);
+	}
+}
+
+let sequelize: Sequelize;
+let other: OtherOrganisation;
+let demoAdmin: HttpClient;
+let demo: OrganisationIds;
+
+beforeAll(async () => {
+	sequelize = testSequelize();
+	other = await createOtherOrganisation(sequelize);
+	demoAdmin = await signInAs('admin');
+	const engineer = await signInAs('engineer');
+	const made = await draftAndToken(engineer, 1);
+	const membership = await sequelize.query<{ id: number }>(
+		`SELECT m.id FROM memberships m JOIN users u ON u.id = m.user_id WHERE u.email = ?`,
+		{ replacements: ['engineer@kestrel-lane.example'], type: QueryTypes.SELECT, plain: true }
+	);
+	demo = {
+		assetId: 1,
+		surveyId: 1,
+		memberId: 1,
+		membershipId: membership!.id,
+		...made,
+		marker: 'Brackenfield'
+	};
+});
+
+afterAll(async () => {
+	// The demo draft and token were made for this test only; leave the demo data as it was.
+	await sequelize.query('DELETE FROM assessment_risks WHERE assessment_id = ?', {
+		replacements: [demo.assessmentId]
+	});
+	await sequelize.query('DELETE FROM assessments WHERE id = ?', {
+		replacements: [demo.assessmentId]
+	});
+	await sequelize.query('DELETE FROM api_tokens WHERE id = ?', { replacements: [demo.tokenId] });
+	await sequelize.close();
+});
+
+describe('every route with a parameter has a hostile case', () => {
+	it('the cases cover exactly the routes in src/routes', () => {
+		const covered = [...Object.keys(ORG_ROUTES), ...Object.keys(TOKEN_ROUTES)].sort();
+		expect(covered).toEqual(routeIdsWithParams());
+	});
+});
+
+describe('the fixture is real', () => {
+	it('each side reads its own asset, member and assessment (so the 404s below are scoping)', async () => {
+		for (const [client, ids] of [
+			[other.admin, other.ids],
+			[demoAdmin, demo]
+		] as const) {
+			for (const path of [
+				`/api/v1/assets/${ids.assetId}/populations`,
+				`/api/v1/members/${ids.memberId}/cover-map`,
+				`/api/v1/assessments/${ids.assessmentId}`
+			]) {
+				expect((await client.get(path)).status, path).toBe(200);
+			}
+		}
+	});
+});
+
+describe.each([
+	{
+		direction: "the new organisation's admin with the demo's ids",
+		attacker: () => other.admin,
+		victim: () => demo,
+		own: () => other.ids
+	},
+	{
+		direction: "the demo admin with the new organisation's ids",
+		attacker: () => demoAdmin,
+		victim: () => other.ids,
+		own: () => demo
+	}
+])('$direction', ({ attacker, victim, own }) => {
+	it.each(Object.keys(ORG_ROUTES))('%s answers 404 and shows nothing', async (route) => {
+		for (const probe of ORG_ROUTES[route](victim(), own())) {
+			const response = await send(attacker(), probe);
+			const text = await response.text();
+			expect(response.status, `${probe.method} ${probe.path}`).toBe(404);
+			expect(text, `${probe.method} ${probe.path}`).not.toContain(victim().marker);
+		}
+	});
+});
+
+describe('after the attacks', () => {
+	it("the victims' assessments are still drafts, their memberships and tokens still there", async () => {
+		const rows = await sequelize.query<{ state: string }>(
+			'SELECT state FROM assessments WHERE id IN (?, ?)',
+			{ replacements: [demo.assessmentId, other.ids.assessmentId], type: QueryTypes.SELECT }
+		);
+		expect(rows.map((r) => r.state)).toEqual(['draft', 'draft']);
+		const tokens = await sequelize.query(
+			'SELECT id FROM api_tokens WHERE id IN (?, ?) AND revoked_at IS NULL',
+			{
+				replacements: [demo.tokenId, other.ids.tokenId],
+				type: QueryTypes.SELECT
+			}
+		);
+		expect(tokens).toHaveLength(2);
+		const roles = await sequelize.query<{ role: string }>(
+			'SELECT role FROM memberships WHERE id IN (?, ?) ORDER BY id',
+			{
+				replacements: [demo.membershipId, other.ids.membershipId],
+				type: QueryTypes.SELECT
+			}
+		);
+		expect(roles.map((r) => r.role)).toEqual(['engineer', 'admin']);
+	});
+});
+
+describe('secret-token routes', () => {
+	it.each(Object.keys(TOKEN_ROUTES))('%s with a guessed token opens nothing', async (route) => {
+		const { path, gone } = TOKEN_ROUTES[route];
+		const response = await demoAdmin.get(path);
+		expect(response.status).toBeLessThan(500);
+		expect(await response.text()).toMatch(gone);
+	});
+});
