@@ -4,6 +4,7 @@
  */
 import type { RuleOutcome } from '$lib/analysis';
 import type { PopulationResult } from '$lib/server/populations/service';
+import { csvLine } from '$lib/csv';
 
 export interface OverviewRow {
 	id: string;
@@ -65,13 +66,6 @@ export function sortRows(rows: OverviewRow[], key: SortKey, ascending: boolean):
 	});
 }
 
-const csvCell = (value: unknown) => {
-	const text = value === null || value === undefined ? '' : String(value);
-	// Guard against formula injection when the file is opened in a spreadsheet.
-	const safe = /^[=+\-@\t\r]/.test(text) && Number.isNaN(Number(text)) ? `'${text}` : text;
-	return /[",\n]/.test(safe) ? `"${safe.replace(/"/g, '""')}"` : safe;
-};
-
 export function toCsv(rows: OverviewRow[]): string {
 	const header = [
 		'population',
@@ -90,7 +84,7 @@ export function toCsv(rows: OverviewRow[]): string {
 		'reasons'
 	];
 	const lines = rows.map((r) =>
-		[
+		csvLine([
 			r.label,
 			r.members,
 			r.n,
@@ -105,9 +99,7 @@ export function toCsv(rows: OverviewRow[]): string {
 			r.belowUpper,
 			r.verdict ?? 'not judged',
 			r.rules.map((x) => `${x.title}: ${x.outcome}. ${x.reason}`).join(' | ')
-		]
-			.map(csvCell)
-			.join(',')
+		])
 	);
-	return [header.join(','), ...lines].join('\r\n') + '\r\n';
+	return csvLine(header) + lines.join('');
 }
