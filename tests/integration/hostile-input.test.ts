@@ -158,13 +158,6 @@ const FIELDS: Field[] = [
 	{
 		role: 'admin',
 		kind: 'json',
-		path: '/api/v1/organisation/members',
-		field: 'email',
-		rest: { role: 'surveyor' }
-	},
-	{
-		role: 'admin',
-		kind: 'json',
 		path: '/api/v1/organisation/members/2',
 		field: 'role',
 		method: 'PATCH'

@@ -44,9 +44,10 @@ export function apiError(status: number, code: string, message: string, field?: 
 
 /** Validates a JSON body; a body that is not JSON or breaks the schema is a 400 naming the field. */
 export async function readJson<S extends z.ZodType>(request: Request, schema: S) {
+	const text = await bodyText(request);
 	let body: unknown;
 	try {
-		body = await request.json();
+		body = JSON.parse(text);
 	} catch {
 		apiError(400, 'invalid_json', 'The request body is not valid JSON.');
 	}
@@ -57,6 +58,21 @@ export async function readJson<S extends z.ZodType>(request: Request, schema: S)
 		apiError(400, 'invalid_input', issue.message, field);
 	}
 	return parsed.data as z.infer<S>;
+}
+
+/**
+ * The body as text. A body over BODY_SIZE_LIMIT fails while it is read (adapter-node errors
+ * the stream with status 413): say so, rather than calling it invalid JSON.
+ */
+async function bodyText(request: Request): Promise<string> {
+	try {
+		return await request.text();
+	} catch (err) {
+		if ((err as { status?: number }).status === 413) {
+			apiError(413, 'too_large', 'The request body is larger than this server accepts.');
+		}
+		throw err;
+	}
 }
 
 /** Rewrites a failed /api response into the ApiErrorBody shape; leaves ours as they are. */
