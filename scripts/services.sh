@@ -37,6 +37,10 @@ write_app_env() {
 	env_default "$ENV_FILE" S3_ACCESS_KEY_ID S3RVER
 	env_default "$ENV_FILE" S3_SECRET_ACCESS_KEY S3RVER
 	env_default "$ENV_FILE" BODY_SIZE_LIMIT 64M
+	# adapter-node's HTTP timeouts, in seconds (docs/scaling.md, "Timeouts").
+	env_default "$ENV_FILE" KEEP_ALIVE_TIMEOUT 65
+	env_default "$ENV_FILE" HEADERS_TIMEOUT 66
+	env_default "$ENV_FILE" SHUTDOWN_TIMEOUT 30
 }
 
 start_fake() {

@@ -145,6 +145,24 @@ describe('path traversal in download routes', () => {
 	});
 });
 
+describe('sign-in redirects', () => {
+	it.each([
+		'//attacker.example/x',
+		'https://attacker.example',
+		'/\\attacker.example',
+		'%2F%2Fattacker.example'
+	])('?next=%s lands on a path of our own', async (next) => {
+		const response = await anonymousClient().postForm(`/sign-in?next=${encodeURIComponent(next)}`, {
+			email: DEMO_USERS.researcher,
+			password: DEMO_PASSWORD
+		});
+		expect(response.status).toBe(303);
+		const location = response.headers.get('location') ?? '';
+		expect(location).toMatch(/^\/(?![/\\])/);
+		expect(new URL(location, appUrl()).origin).toBe(new URL(appUrl()).origin);
+	});
+});
+
 describe('session fixation', () => {
 	it('a cookie value set before sign-in is not adopted: sign-in issues a new one', async () => {
 		const planted = 'fractile_session=planted0000000000000000000000000000';
