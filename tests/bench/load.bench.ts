@@ -1,0 +1,138 @@
+/**
+ * `npm run bench:load` (scripts/bench-load.sh starts the built app): mixed load on loopback with
+ * autocannon — the population overview (API and page), a population detail and sign-in, each
+ * its share of the simulated users, all at once, at 20 and then 50 concurrent users for
+ * BENCH_SECONDS (20 s) each. Prints throughput, p50/p95/p99 and errors per part as a Markdown
+ * table for docs/performance.md. It measures; it asserts nothing about time.
+ */
+import autocannon from 'autocannon';
+import { loadTestEnv } from '../helpers/env';
+import { DEMO_PASSWORD, DEMO_USERS, signInAs } from '../helpers/session';
+import { importScenario, type ImportRun } from './loadImport';
+
+loadTestEnv();
+const APP = process.env.APP_URL ?? process.env.ORIGIN!;
+const SECONDS = Number(process.env.BENCH_SECONDS ?? 20);
+
+interface Part {
+	name: string;
+	share: number;
+	request: (cookie: string) => autocannon.Request;
+	/** The answer that counts as success (a sign-in redirects). */
+	ok: number;
+}
+
+const PARTS: Part[] = [
+	{ name: 'overview (API)', share: 0.3, ok: 200, request: get('/api/v1/assets/1/populations') },
+	{ name: 'overview (page)', share: 0.15, ok: 200, request: get('/assets/1/populations') },
+	{
+		name: 'detail (API)',
+		share: 0.35,
+		ok: 200,
+		request: get('/api/v1/assets/1/populations/detail?type=deck&exposure=XD3')
+	},
+	{ name: 'sign-in', share: 0.2, ok: 303, request: () => signInRequest() }
+];
+
+function get(path: string) {
+	return (cookie: string): autocannon.Request => ({
+		method: 'GET',
+		path,
+		headers: { cookie, accept: path.startsWith('/api/') ? 'application/json' : 'text/html' }
+	});
+}
+
+function signInRequest(): autocannon.Request {
+	const body = new URLSearchParams({ email: DEMO_USERS.researcher, password: DEMO_PASSWORD });
+	return {
+		method: 'POST',
+		path: '/sign-in',
+		body: body.toString(),
+		headers: {
+			'content-type': 'application/x-www-form-urlencoded',
+			accept: 'text/html',
+			origin: new URL(APP).origin
+		}
+	};
+}
+
+interface Figures {
+	name: string;
+	users: number;
+	requests: number;
+	perSecond: number;
+	p50: number;
+	p95: number;
+	p99: number;
+	errors: number;
+}
+
+const quantile = (sorted: number[], p: number) =>
+	sorted.length ? sorted[Math.min(sorted.length - 1, Math.floor(p * sorted.length))] : NaN;
+
+/** One part at `connections` users; every response time is kept, for exact percentiles. */
+async function runPart(part: Part, connections: number, cookie: string): Promise<Figures> {
+	const times: number[] = [];
+	let wrong = 0;
+	const instance = autocannon({
+		url: APP,
+		connections,
+		duration: SECONDS,
+		timeout: 30,
+		requests: [part.request(cookie)]
+	});
+	instance.on('response', (_client, status, _bytes, ms) => {
+		times.push(ms);
+		if (status !== part.ok) wrong++;
+	});
+	const result = await instance;
+	times.sort((a, b) => a - b);
+	return {
+		name: part.name,
+		users: connections,
+		requests: times.length,
+		perSecond: times.length / SECONDS,
+		p50: quantile(times, 0.5),
+		p95: quantile(times, 0.95),
+		p99: quantile(times, 0.99),
+		errors: wrong + result.errors + result.timeouts
+	};
+}
+
+async function mixed(users: number, cookie: string, withImport: boolean) {
+	const counts = PARTS.map((p) => Math.max(1, Math.round(users * p.share)));
+	const load = Promise.all(PARTS.map((p, i) => runPart(p, counts[i], cookie)));
+	const imported: ImportRun | null = withImport ? await importScenario(APP, cookie) : null;
+	return { figures: await load, imported };
+}
+
+function table(rows: Figures[]): string {
+	const f = (n: number) => (Number.isFinite(n) ? n.toFixed(0) : '—');
+	const lines = rows.map(
+		(r) =>
+			`| ${r.name} | ${r.users} | ${r.requests} | ${r.perSecond.toFixed(1)} | ${f(r.p50)} | ${f(r.p95)} | ${f(r.p99)} | ${r.errors} |`
+	);
+	return [
+		'| part | users | requests | req/s | p50 ms | p95 ms | p99 ms | errors |',
+		'|---|---|---|---|---|---|---|---|',
+		...lines
+	].join('\n');
+}
+
+async function main() {
+	const engineer = await signInAs('engineer', APP);
+	for (const users of [20, 50]) {
+		const { figures, imported } = await mixed(users, engineer.cookie, users === 20);
+		const total = figures.reduce((s, r) => s + r.perSecond, 0);
+		console.log(
+			`\n### ${users} concurrent users, ${SECONDS} s (total ${total.toFixed(1)} req/s)\n`
+		);
+		console.log(table(figures));
+		if (imported) console.log(`\n${imported.summary}`);
+	}
+}
+
+main().catch((err) => {
+	console.error(err);
+	process.exit(1);
+});
