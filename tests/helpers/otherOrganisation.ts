@@ -25,7 +25,7 @@ export interface OtherOrganisation {
 	ids: OrganisationIds;
 }
 
-const one = async <T>(sequelize: Sequelize, sql: string, replacements: unknown[]) =>
+const one = async <T extends object>(sequelize: Sequelize, sql: string, replacements: unknown[]) =>
 	(await sequelize.query<T>(sql, { replacements, type: QueryTypes.SELECT, plain: true })) as T;
 
 const insert = async (sequelize: Sequelize, sql: string, replacements: unknown[]) => {
