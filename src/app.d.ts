@@ -7,6 +7,9 @@ declare global {
 			message: string;
 			/** Quoted to the user so support can find the log line; no internals are shown. */
 			errorId?: string;
+			/** For /api answers: a stable machine-readable code and the offending field. */
+			code?: string;
+			field?: string;
 		}
 		interface Locals {
 			user: { id: number; email: string; displayName: string } | null;

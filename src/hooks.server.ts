@@ -2,6 +2,8 @@ import type { Handle, HandleServerError } from '@sveltejs/kit';
 import { randomUUID } from 'node:crypto';
 import { closeDb } from '$lib/server/db';
 import { resolveAuth } from '$lib/server/auth/resolve';
+import { toApiErrorResponse } from '$lib/server/http';
+import { startMailRetryLoop, stopMailRetryLoop } from '$lib/server/mail/retry';
 
 const SECURITY_HEADERS: Record<string, string> = {
 	'x-content-type-options': 'nosniff',
@@ -11,6 +13,8 @@ const SECURITY_HEADERS: Record<string, string> = {
 	'cross-origin-opener-policy': 'same-origin'
 };
 
+startMailRetryLoop();
+
 export const handle: Handle = async ({ event, resolve }) => {
 	event.locals.requestId = randomUUID();
 	event.locals.user = null;
@@ -18,9 +22,15 @@ export const handle: Handle = async ({ event, resolve }) => {
 	event.locals.membership = null;
 	event.locals.authMethod = null;
 	await resolveAuth(event);
-	const response = await resolve(event);
+	let response = await resolve(event);
+	// Every failed /api answer leaves in one shape, { error: { code, message, field? } } (http.ts).
+	if (event.url.pathname.startsWith('/api/')) response = await toApiErrorResponse(response);
 	for (const [name, value] of Object.entries(SECURITY_HEADERS)) {
 		if (!response.headers.has(name)) response.headers.set(name, value);
+	}
+	// Signed-in pages differ per person: no shared cache may keep them.
+	if (event.locals.user && !response.headers.has('cache-control')) {
+		response.headers.set('cache-control', 'private, no-store');
 	}
 	return response;
 };
@@ -36,5 +46,6 @@ export const handleError: HandleServerError = ({ error, event, status, message }
 
 // adapter-node emits this on SIGTERM/SIGINT; closing the pool lets the process end promptly.
 process.on('sveltekit:shutdown', () => {
+	stopMailRetryLoop();
 	void closeDb();
 });
