@@ -1,8 +1,9 @@
 import type { Handle, HandleServerError } from '@sveltejs/kit';
 import { randomUUID } from 'node:crypto';
-import { closeDb } from '$lib/server/db';
+import { closeDb, db } from '$lib/server/db';
 import { resolveAuth } from '$lib/server/auth/resolve';
 import { toApiErrorResponse } from '$lib/server/http';
+import { limitApiRate } from '$lib/server/api/rateLimit';
 import { startMailRetryLoop, stopMailRetryLoop } from '$lib/server/mail/retry';
 
 const SECURITY_HEADERS: Record<string, string> = {
@@ -13,6 +14,10 @@ const SECURITY_HEADERS: Record<string, string> = {
 	'cross-origin-opener-policy': 'same-origin'
 };
 
+// Bind the models at start-up (no connection is made yet): code that uses a model before
+// anything has called db() — the first request after a restart being a sign-in — would
+// otherwise find it unbound. It also checks the database settings once, with a clear message.
+db();
 startMailRetryLoop();
 
 export const handle: Handle = async ({ event, resolve }) => {
@@ -22,7 +27,8 @@ export const handle: Handle = async ({ event, resolve }) => {
 	event.locals.membership = null;
 	event.locals.authMethod = null;
 	await resolveAuth(event);
-	let response = await resolve(event);
+	// Counted after sign-in is resolved, so a token holder's requests share one count.
+	let response = (await limitApiRate(event)) ?? (await resolve(event));
 	// Every failed /api answer leaves in one shape, { error: { code, message, field? } } (http.ts).
 	if (event.url.pathname.startsWith('/api/')) response = await toApiErrorResponse(response);
 	for (const [name, value] of Object.entries(SECURITY_HEADERS)) {
