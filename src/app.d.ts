@@ -19,6 +19,8 @@ declare global {
 			/** How the request proved who it is. */
 			authMethod: 'session' | 'token' | null;
 			requestId: string;
+			/** Set when a load or action found the database unreachable: the answer becomes a 503. */
+			databaseUnavailable?: boolean;
 		}
 		// interface PageData {}
 		// interface PageState {}

@@ -1,6 +1,7 @@
 import type { Handle, HandleServerError } from '@sveltejs/kit';
 import { randomUUID } from 'node:crypto';
 import { closeDb, db } from '$lib/server/db';
+import { databaseUnavailableResponse, isDatabaseUnavailable } from '$lib/server/db/unavailable';
 import { resolveAuth } from '$lib/server/auth/resolve';
 import { toApiErrorResponse } from '$lib/server/http';
 import { limitApiRate } from '$lib/server/api/rateLimit';
@@ -14,9 +15,8 @@ const SECURITY_HEADERS: Record<string, string> = {
 	'cross-origin-opener-policy': 'same-origin'
 };
 
-// Bind the models at start-up (no connection is made yet): code that uses a model before
-// anything has called db() — the first request after a restart being a sign-in — would
-// otherwise find it unbound. It also checks the database settings once, with a clear message.
+// Bind the models to the one Sequelize instance before the first request, whatever route it
+// asks for (connecting waits for the first query).
 db();
 startMailRetryLoop();
 
@@ -26,9 +26,18 @@ export const handle: Handle = async ({ event, resolve }) => {
 	event.locals.session = null;
 	event.locals.membership = null;
 	event.locals.authMethod = null;
-	await resolveAuth(event);
-	// Counted after sign-in is resolved, so a token holder's requests share one count.
-	let response = (await limitApiRate(event)) ?? (await resolve(event));
+	let limited: Response | null;
+	try {
+		await resolveAuth(event);
+		// Counted after sign-in is resolved, so a token holder's requests share one count.
+		limited = await limitApiRate(event);
+	} catch (err) {
+		if (isDatabaseUnavailable(err)) return databaseUnavailableResponse(event.url.pathname);
+		throw err;
+	}
+	let response = limited ?? (await resolve(event));
+	// A load or action met a database that is down (handleError marked it): say so plainly.
+	if (event.locals.databaseUnavailable) return databaseUnavailableResponse(event.url.pathname);
 	// Every failed /api answer leaves in one shape, { error: { code, message, field? } } (http.ts).
 	if (event.url.pathname.startsWith('/api/')) response = await toApiErrorResponse(response);
 	for (const [name, value] of Object.entries(SECURITY_HEADERS)) {
@@ -44,6 +53,13 @@ export const handle: Handle = async ({ event, resolve }) => {
 /** Unexpected errors: logged with an id, shown without internals (no SQL or stack). */
 export const handleError: HandleServerError = ({ error, event, status, message }) => {
 	const errorId = event.locals.requestId ?? randomUUID();
+	if (isDatabaseUnavailable(error)) {
+		event.locals.databaseUnavailable = true;
+		console.warn(
+			`[${errorId}] ${event.request.method} ${event.url.pathname}: database unavailable`
+		);
+		return { message: 'Fractile cannot reach its database right now.', errorId };
+	}
 	if (status >= 500) {
 		console.error(`[${errorId}] ${event.request.method} ${event.url.pathname}:`, error);
 	}

@@ -46,7 +46,7 @@ export function httpClient(
 		send(method, path, JSON.stringify(body), { 'content-type': 'application/json', origin });
 	return {
 		cookie,
-		get: (path, headers) => send('GET', path, undefined, { accept: 'text/html', ...headers }),
+		get: (path, headers) => send('GET', path, undefined, { accept: acceptFor(path), ...headers }),
 		// `accept: text/html` as a browser sends it; with fetch's `*/*` SvelteKit would answer a
 		// form post as use:enhance's JSON instead of a 303.
 		postForm: (path, fields = {}) =>
@@ -60,6 +60,11 @@ export function httpClient(
 		patchJson: sendJson('PATCH'),
 		delete: (path) => send('DELETE', path, undefined, { origin })
 	};
+}
+
+/** What a browser page asks for, or what a script calling /api asks for. */
+function acceptFor(path: string): string {
+	return path.startsWith('/api/') ? 'application/json' : 'text/html';
 }
 
 /** An anonymous client (nobody signed in). */

@@ -7,7 +7,10 @@ import { safeNext } from '$lib/server/guard';
 
 export const load: PageServerLoad = async ({ locals, url }) => {
 	if (locals.user) redirect(303, safeNext(url.searchParams.get('next')));
-	return { next: safeNext(url.searchParams.get('next')) };
+	return {
+		next: safeNext(url.searchParams.get('next')),
+		passwordReset: url.searchParams.get('reset') === 'done'
+	};
 };
 
 export const actions = {

@@ -19,6 +19,6 @@ async function signOut(event: Parameters<Actions[string]>[0], everywhere: boolea
 }
 
 export const actions = {
-	default: (event) => signOut(event, false),
+	device: (event) => signOut(event, false),
 	everywhere: (event) => signOut(event, true)
 } satisfies Actions;

@@ -10,7 +10,9 @@ export class SequelizeSessionAdapter implements Adapter {
 	async getSessionAndUser(
 		sessionId: string
 	): Promise<[session: DatabaseSession | null, user: DatabaseUser | null]> {
-		const row = await Session.findByPk(sessionId, { include: [User] });
+		// From the primary: a session written a moment ago by another app process must be seen at
+		// once, before a replica has caught up (read-your-own-writes; docs/scaling.md).
+		const row = await Session.findByPk(sessionId, { include: [User], useMaster: true });
 		if (!row) return [null, null];
 		const user = (row as Session & { User?: User }).User ?? null;
 		return [toDatabaseSession(row), user ? toDatabaseUser(user) : null];
