@@ -29,6 +29,7 @@ export const load: LayoutServerLoad = async ({ locals, url }) => {
 			dashboard: !!role && can(role, 'dashboard:read'),
 			assets: !!role && can(role, 'asset:read'),
 			research: !!role && can(role, 'research:read'),
+			researchConsent: !!role && can(role, 'research:consent'),
 			members: !!role && can(role, 'organisation:manage'),
 			audit: !!role && can(role, 'audit:read'),
 			tokens: !!role && can(role, 'token:manage'),
