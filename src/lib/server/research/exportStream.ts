@@ -40,7 +40,7 @@ export async function startReadingsExport(
 ): Promise<StartedExport> {
 	const record = await openExportRecord(actor, filter, format);
 	const members = await selectedMembers(sequelize, filter, pseudonymMaker(idSecret));
-	const batches = readingBatches(sequelize, filter, members);
+	const batches = readingBatches(sequelize, members);
 	let rowCount = 0;
 	let headerSent = format !== 'readings-csv';
 	const stream = new ReadableStream<Uint8Array>(

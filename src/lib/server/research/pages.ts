@@ -24,11 +24,11 @@ export async function researchReadingPage(
 	limit: number
 ): Promise<{ readings: ResearchReading[]; nextCursor: string | null }> {
 	const members = await selectedMembers(sequelize, filter, pseudonymMaker(idSecret));
-	const first = await readingBatch(sequelize, filter, members, afterId, limit);
+	const first = await readingBatch(sequelize, members, afterId, limit);
 	if (first.lastId === null || first.rows.length < limit) {
 		return { readings: first.rows, nextCursor: null };
 	}
-	const more = await readingBatch(sequelize, filter, members, first.lastId, 1);
+	const more = await readingBatch(sequelize, members, first.lastId, 1);
 	return {
 		readings: first.rows,
 		nextCursor: more.lastId === null ? null : encodeCursor(first.lastId)
