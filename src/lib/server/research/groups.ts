@@ -1,8 +1,7 @@
 import { QueryTypes, type Sequelize } from 'sequelize';
-import type { GroupKey, ResearchFilter } from './filter';
+import type { GroupKey } from './filter';
 import type { SelectedMember } from './members';
 import type { ResearchMember } from './schemas';
-import { SELECTION_JOINS, selectionWhere } from './selection';
 
 /** The values of one population of the selection, gathered for the engine. */
 export interface GroupValues {
@@ -44,36 +43,63 @@ function add(group: GroupValues, member: ResearchMember, coverMm: number): void 
 	group.assetRefs.add(member.assetRef);
 }
 
+/** Covers per query: bounds the objects the connector makes at once, however big a member is. */
+const COVERS_PER_QUERY = 20_000;
+
 /**
- * Covers of the whole selection and of each group within it (by the `groupBy` fields), read
- * with one query over the readings' (member, cover) covering index. Groups come back sorted by
- * their key so pages and CSV files list them in a stable order.
+ * One member's covers, a page at a time in index order (keyset on cover, id over the readings'
+ * (member, cover) covering index), so no page sorts and memory holds one page of rows.
+ */
+async function* memberCovers(sequelize: Sequelize, memberId: number): AsyncGenerator<number[]> {
+	let after = { coverMm: -Infinity, id: 0 };
+	for (;;) {
+		const rows = await sequelize.query<{ id: number; coverMm: number }>(
+			`SELECT id, cover_mm AS coverMm FROM readings
+			  WHERE member_id = :memberId AND (cover_mm > :cover OR (cover_mm = :cover AND id > :id))
+			  ORDER BY cover_mm, id LIMIT :limit`,
+			{
+				type: QueryTypes.SELECT,
+				replacements: {
+					memberId,
+					cover: Number.isFinite(after.coverMm) ? after.coverMm : -1e308,
+					id: after.id,
+					limit: COVERS_PER_QUERY
+				}
+			}
+		);
+		if (rows.length === 0) return;
+		yield rows.map((r) => r.coverMm);
+		after = rows[rows.length - 1];
+		if (rows.length < COVERS_PER_QUERY) return;
+	}
+}
+
+/**
+ * Covers of the whole selection and of each group within it (by the `groupBy` fields), member
+ * by member. Groups come back sorted by their key, for a stable order.
  */
 export async function gatherGroups(
 	sequelize: Sequelize,
-	filter: ResearchFilter,
 	members: ReadonlyMap<number, SelectedMember>,
 	groupBy: readonly GroupKey[]
 ): Promise<{ all: GroupValues; groups: GroupValues[] }> {
-	const where = selectionWhere(filter);
-	const rows = await sequelize.query<{ memberId: number; coverMm: number }>(
-		`SELECT r.member_id AS memberId, r.cover_mm AS coverMm
-		   FROM readings r JOIN members m ON m.id = r.member_id ${SELECTION_JOINS}
-		  WHERE ${where.sql}`,
-		{ type: QueryTypes.SELECT, replacements: where.replacements }
-	);
 	const all = emptyGroup({});
 	const byKey = new Map<string, GroupValues>();
-	for (const row of rows) {
-		const member = members.get(row.memberId)?.public;
-		if (!member) continue;
-		add(all, member, row.coverMm);
+	for (const { id, public: member } of members.values()) {
 		const key = Object.fromEntries(groupBy.map((k) => [k, KEY_OF[k](member)]));
-		const id = JSON.stringify(key);
-		let group = byKey.get(id);
-		if (!group) byKey.set(id, (group = emptyGroup(key)));
-		add(group, member, row.coverMm);
+		const name = JSON.stringify(key);
+		let group = byKey.get(name);
+		if (!group) byKey.set(name, (group = emptyGroup(key)));
+		for await (const covers of memberCovers(sequelize, id)) {
+			for (const coverMm of covers) {
+				add(all, member, coverMm);
+				add(group, member, coverMm);
+			}
+		}
 	}
-	const groups = [...byKey.entries()].sort(([a], [b]) => a.localeCompare(b)).map(([, g]) => g);
+	const groups = [...byKey.entries()]
+		.filter(([, g]) => g.coversMm.length > 0)
+		.sort(([a], [b]) => a.localeCompare(b))
+		.map(([, g]) => g);
 	return { all, groups };
 }
