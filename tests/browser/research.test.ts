@@ -35,9 +35,10 @@ describe('research explorer in chromium', () => {
 		const page = await context.newPage();
 		await page.goto(`${appUrl()}/research`, { waitUntil: 'networkidle' });
 		await page.waitForSelector('canvas');
-		expect(await page.locator('canvas').count()).toBe(2);
+		expect(await page.locator('canvas').count()).toBe(3);
 		expect(await drawnPixels(page, 0)).toBeGreaterThan(1000);
 		expect(await drawnPixels(page, 1)).toBeGreaterThan(1000);
+		expect(await drawnPixels(page, 2)).toBeGreaterThan(1000);
 		const allReadings = await readingCount(page);
 		await page.screenshot({ path: `${SCREENSHOT_DIR}/research-explorer.png`, fullPage: true });
 

@@ -54,55 +54,50 @@ function parameters(endpoint: Endpoint, components: Record<string, JsonSchema>) 
 	return out;
 }
 
-function operation(endpoint: Endpoint, components: Record<string, JsonSchema>) {
+const ERROR_RESPONSES = Object.fromEntries(
+	Object.entries(ERROR_STATUSES).map(([status, text]) => [
+		status,
+		{
+			description: text,
+			content: { 'application/json': { schema: { $ref: '#/components/schemas/Error' } } }
+		}
+	])
+);
+
+function requestBody(endpoint: Endpoint, components: Record<string, JsonSchema>) {
+	if (!endpoint.body) return {};
+	const schema = toOpenApiSchema(endpoint.body, 'input', components);
+	return { requestBody: { required: true, content: { 'application/json': { schema } } } };
+}
+
+function successResponse(endpoint: Endpoint, components: Record<string, JsonSchema>) {
 	const { mediaType, schema, description } = endpoint.response;
-	const errors = Object.fromEntries(
-		Object.entries(ERROR_STATUSES).map(([status, text]) => [
-			status,
-			{
-				description: text,
-				content: { 'application/json': { schema: { $ref: '#/components/schemas/Error' } } }
+	const headers = Object.entries(endpoint.headers ?? {}).map(([name, text]) => [
+		name,
+		{ description: text, schema: { type: 'string' } }
+	]);
+	return {
+		description,
+		...(headers.length ? { headers: Object.fromEntries(headers) } : {}),
+		content: {
+			[mediaType]: {
+				schema: schema ? toOpenApiSchema(schema, 'output', components) : { type: 'string' }
 			}
-		])
-	);
+		}
+	};
+}
+
+function operation(endpoint: Endpoint, components: Record<string, JsonSchema>) {
 	return {
 		operationId: endpoint.operationId,
 		tags: [endpoint.tag],
 		summary: endpoint.summary,
 		...(endpoint.description ? { description: endpoint.description } : {}),
+		// A public operation says so by an empty security list, which overrides the document's.
 		...(endpoint.action ? {} : { security: [] }),
 		parameters: parameters(endpoint, components),
-		...(endpoint.body
-			? {
-					requestBody: {
-						required: true,
-						content: {
-							'application/json': { schema: toOpenApiSchema(endpoint.body, 'input', components) }
-						}
-					}
-				}
-			: {}),
-		responses: {
-			'200': {
-				description,
-				...(endpoint.headers
-					? {
-							headers: Object.fromEntries(
-								Object.entries(endpoint.headers).map(([h, d]) => [
-									h,
-									{ description: d, schema: { type: 'string' } }
-								])
-							)
-						}
-					: {}),
-				content: {
-					[mediaType]: {
-						schema: schema ? toOpenApiSchema(schema, 'output', components) : { type: 'string' }
-					}
-				}
-			},
-			...errors
-		}
+		...requestBody(endpoint, components),
+		responses: { '200': successResponse(endpoint, components), ...ERROR_RESPONSES }
 	};
 }
 
