@@ -3,6 +3,7 @@ import { errorBodySchema } from '../schemas';
 import { assetEndpoints } from './assetEndpoints';
 import type { Endpoint } from './endpoint';
 import { toOpenApiSchema, type JsonSchema } from './jsonSchema';
+import { populationEndpoints } from './populationEndpoints';
 import { researchEndpoints } from './researchEndpoints';
 
 /**
@@ -11,6 +12,7 @@ import { researchEndpoints } from './researchEndpoints';
  */
 export const ENDPOINTS: Endpoint[] = [
 	...assetEndpoints,
+	...populationEndpoints,
 	...researchEndpoints,
 	{
 		method: 'get',
@@ -121,6 +123,7 @@ export function openApiDocument(serverUrl: string) {
 		security: [{ bearerToken: [] }],
 		tags: [
 			{ name: 'Assets', description: "Your organisation's records." },
+			{ name: 'Populations', description: "Engine judgements of an asset's populations." },
 			{ name: 'Research', description: 'Anonymised data of opted-in assets.' },
 			{ name: 'Documentation', description: 'This document.' }
 		],

@@ -1,0 +1,13 @@
+import type { PageServerLoad } from './$types';
+import { pageActor } from '$lib/server/guard';
+import { pathId, visibleMember } from '$lib/server/populations';
+
+/** The frame of a member's view; readings and holes are fetched from the API by the browser. */
+export const load: PageServerLoad = async (event) => {
+	const actor = pageActor(event, 'population:read');
+	const { member, asset } = await visibleMember(actor, pathId(event.params.memberId));
+	return {
+		member: { id: member.id, label: member.label },
+		asset: { id: asset.id, name: asset.name }
+	};
+};
