@@ -21,9 +21,8 @@ replica_state() {
 }
 
 start() {
-	# With binary logging on, MariaDB refuses CREATE TRIGGER (migration 005's assessment freeze)
-	# from a user without SUPER unless log_bin_trust_function_creators is set; with row-based
-	# logging the trigger's effects are logged as rows, so trusting it is safe here.
+	# Triggers (migrations 005/006 freeze signed assessments) need log_bin_trust_function_creators
+	# on a server with a binary log when the app's user has no SUPER privilege; so does production.
 	DB_EXTRA_ARGS="--server-id=1 --log-bin=primary-bin --log-basename=primary --binlog-format=ROW --log-bin-trust-function-creators=1" \
 		bash scripts/db.sh start primary
 	load_env "$ENV_FILE"

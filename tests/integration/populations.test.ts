@@ -2,6 +2,7 @@ import { QueryTypes, type Sequelize } from 'sequelize';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { assessPopulation, enRequirement } from '../../src/lib/analysis';
 import { db, closeDb } from '../../src/lib/server/db';
+import { COVERS_BY_MEMBER_SQL } from '../../src/lib/server/populations/gather';
 import {
 	methodSchema,
 	populationDetail,
@@ -86,12 +87,13 @@ describe('the population service on the demo data', () => {
 			type: QueryTypes.SELECT
 		});
 		const plan = await sequelize.query<{ key: string; Extra: string }>(
-			'EXPLAIN SELECT member_id, cover_mm FROM readings WHERE member_id IN (?) ORDER BY member_id, cover_mm',
+			`EXPLAIN ${COVERS_BY_MEMBER_SQL}`,
 			{ replacements: [ids.map((r) => r.id)], type: QueryTypes.SELECT }
 		);
 		expect(plan[0].key).toBe('readings_member_cover');
 		expect(plan[0].Extra).toContain('Using index');
 		expect(plan[0].Extra).not.toContain('filesort');
+		expect(plan[0].Extra).not.toContain('temporary');
 	});
 
 	it('answers 404 for an asset that is neither owned nor shared, and read-only when shared', async () => {

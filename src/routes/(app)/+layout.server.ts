@@ -28,6 +28,7 @@ export const load: LayoutServerLoad = async ({ locals, url }) => {
 		links: {
 			dashboard: !!role && can(role, 'dashboard:read'),
 			assets: !!role && can(role, 'asset:read'),
+			portfolio: !!role && can(role, 'report:read'),
 			research: !!role && can(role, 'research:read'),
 			researchConsent: !!role && can(role, 'research:consent'),
 			members: !!role && can(role, 'organisation:manage'),

@@ -1,8 +1,8 @@
 /**
  * Members grouped into populations, and each population's covers gathered into one
- * Float64Array, in member order then ascending cover (the order of the one readings query).
+ * Float64Array, in member order (the engine sorts them).
  */
-import { forEachCover, membersInScope, type MemberFilter, type MemberSpec } from './gather';
+import { coversByMember, membersInScope, type MemberFilter, type MemberSpec } from './gather';
 import type { Split } from './query';
 
 export interface PopulationKey {
@@ -52,29 +52,32 @@ function groupMembers(members: MemberSpec[], split: Split) {
 	return [...groups.entries()].sort(([a], [b]) => a.localeCompare(b));
 }
 
+/** One array of the members' covers, in member order. */
+function joinCovers(parts: (Float64Array | undefined)[]): Float64Array {
+	const joined = new Float64Array(parts.reduce((n, p) => n + (p?.length ?? 0), 0));
+	let offset = 0;
+	for (const part of parts) {
+		if (!part) continue;
+		joined.set(part, offset);
+		offset += part.length;
+	}
+	return joined;
+}
+
 /**
- * Gather the populations of a scope: the members, then every cover in one ordered query.
- * Cost: one index range scan of the readings in scope and O(n) copying.
+ * Gather the populations of a scope: the members, then every cover in one query.
+ * Cost: one index range scan of the readings in scope, O(n) parsing and copying.
  */
 export async function gatherGroups(filter: MemberFilter, split: Split): Promise<GatheredGroup[]> {
 	const members = await membersInScope(filter);
 	const grouped = groupMembers(members, split);
-	const groupOfMember = new Map<number, number>();
-	grouped.forEach(([, g], index) => g.members.forEach((m) => groupOfMember.set(m.id, index)));
-	const covers: number[][] = grouped.map(() => []);
-	const counts = new Map<number, number>(members.map((m) => [m.id, 0]));
-	await forEachCover(
-		members.map((m) => m.id),
-		(memberId, coverMm) => {
-			covers[groupOfMember.get(memberId)!].push(coverMm);
-			counts.set(memberId, counts.get(memberId)! + 1);
-		}
-	);
+	const byMember = await coversByMember(members.map((m) => m.id));
+	const covers = grouped.map(([, g]) => joinCovers(g.members.map((m) => byMember.get(m.id))));
 	return grouped.map(([id, g], index) => ({
 		id,
 		key: g.key,
 		members: g.members,
-		coversMm: Float64Array.from(covers[index]),
-		countsByMember: new Map(g.members.map((m) => [m.id, counts.get(m.id) ?? 0]))
+		coversMm: covers[index],
+		countsByMember: new Map(g.members.map((m) => [m.id, byMember.get(m.id)?.length ?? 0]))
 	}));
 }

@@ -1,6 +1,7 @@
 import type { Sequelize } from 'sequelize';
 import { ApiToken } from './ApiToken';
 import { Assessment } from './Assessment';
+import { AssessmentRisk } from './AssessmentRisk';
 import { Asset } from './Asset';
 import { AssetShare } from './AssetShare';
 import { Attachment } from './Attachment';
@@ -25,6 +26,7 @@ import { VerificationHole } from './VerificationHole';
 export {
 	ApiToken,
 	Assessment,
+	AssessmentRisk,
 	Asset,
 	AssetShare,
 	Attachment,
@@ -50,6 +52,7 @@ export {
 const allModels = [
 	ApiToken,
 	Assessment,
+	AssessmentRisk,
 	Asset,
 	AssetShare,
 	Attachment,
@@ -115,5 +118,6 @@ function associate(): void {
 	Assessment.belongsTo(Asset, { foreignKey: 'assetId' });
 	Assessment.belongsTo(Survey, { foreignKey: 'surveyId' });
 	Assessment.hasMany(ReportLink, { foreignKey: 'assessmentId' });
+	Assessment.hasOne(AssessmentRisk, { foreignKey: 'assessmentId' });
 	ReportLink.belongsTo(Assessment, { foreignKey: 'assessmentId' });
 }

@@ -7,7 +7,7 @@ import type { Migration } from './types';
  * process memory so several app processes behind a load balancer share one count.
  */
 export const apiRateLimits: Migration = {
-	name: '006-api-rate-limits',
+	name: '007-api-rate-limits',
 	async up({ context: qi }) {
 		await qi.createTable(
 			'api_rate_counters',

@@ -1,0 +1,52 @@
+/** The risk section: levels, projections at the owner's ages, β against the target, the curve. */
+import { RISK_WORDS, type AssessedSource } from '$lib/server/risk';
+import { riskCurvePng } from '../charts';
+import type { ReportWriter } from '../layout';
+import { num, pct } from '../text';
+
+export function riskSection(w: ReportWriter, source: AssessedSource): void {
+	const { annex } = source;
+	w.doc.addPage();
+	w.heading('Risk of corrosion over time');
+	if (!source.projected) {
+		w.paragraph(
+			'No durability parameters were entered with this assessment: levels rest on the cover rules alone and nothing is projected.'
+		);
+	}
+	for (const p of annex.populations) {
+		w.heading(`${p.label}: ${RISK_WORDS[p.level]}`, 2);
+		w.paragraph(p.reason);
+		if (p.atAges.length === 0) continue;
+		const rows = [
+			...p.atAges,
+			...(p.atDesignLife
+				? [{ ...p.atDesignLife, label: `design life (${annex.designLifeYears} years)` }]
+				: [])
+		];
+		w.table(
+			[
+				{ title: 'Age', width: 0.28 },
+				{ title: 'Readings reached', width: 0.18, align: 'right' },
+				{ title: 'Model share', width: 0.16, align: 'right' },
+				{ title: 'beta', width: 0.12, align: 'right' },
+				{ title: `Meets beta ${p.targetBeta}`, width: 0.14 },
+				{ title: 'Method', width: 0.12 }
+			],
+			rows.map((r) => [
+				r.label,
+				pct(r.empiricalShare),
+				pct(r.modelProbability),
+				num(r.reliabilityIndex),
+				r.meetsTarget ? 'yes' : 'no',
+				r.method === 'monte-carlo' ? 'simulated' : 'closed form'
+			])
+		);
+	}
+	const withCurves = annex.populations.filter((p) => p.curve.length > 0);
+	if (withCurves.length > 0) {
+		w.image(
+			riskCurvePng(withCurves, annex.designLifeYears),
+			`Projected share depassivated (%) against the age of the structure (years) for each population; the dashed vertical line marks the design life of ${annex.designLifeYears} years. The tables above give the same figures.`
+		);
+	}
+}

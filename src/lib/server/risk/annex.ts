@@ -1,0 +1,178 @@
+/**
+ * The risk annex: what the engine says about each population's future, computed once from the
+ * readings while the assessment is a draft and then kept with it (the snapshot has no readings).
+ */
+import { ENGINE_VERSION, toPlainJson, toSortedCovers } from '$lib/analysis';
+import { populationRisk, type PopulationRisk } from './compute';
+import { modelKindFor } from './model';
+import { SIMULATION, withDefaults, type DurabilityParameters } from './parameters';
+import { ageAtSurveyYears, type SnapshotLike } from './source';
+
+export const ANNEX_SCHEMA_VERSION = 1;
+
+export interface MemberSummary {
+	id: number;
+	label: string;
+	populationId: string;
+	face: string;
+	n: number;
+	meanMm: number | null;
+	minMm: number | null;
+	maxMm: number | null;
+	belowCMin: number;
+	gridWidthMm: number | null;
+	gridHeightMm: number | null;
+}
+
+export interface RiskAnnex {
+	schemaVersion: typeof ANNEX_SCHEMA_VERSION;
+	engineVersion: string;
+	designLifeYears: number;
+	ageAtSurveyYears: number | null;
+	parameters: DurabilityParameters;
+	simulation: typeof SIMULATION;
+	populations: PopulationRisk[];
+	members: MemberSummary[];
+}
+
+/** What the database gives for each member in the snapshot's populations. */
+export interface MemberData {
+	coversMm: number[];
+	gridWidthMm: number | null;
+	gridHeightMm: number | null;
+}
+
+export class ReadingsChangedError extends Error {}
+
+function summarise(
+	id: number,
+	label: string,
+	face: string,
+	populationId: string,
+	cMinMm: number | null,
+	data: MemberData
+): MemberSummary {
+	const c = data.coversMm;
+	const n = c.length;
+	return {
+		id,
+		label,
+		populationId,
+		face,
+		n,
+		meanMm: n ? c.reduce((s, x) => s + x, 0) / n : null,
+		minMm: n ? Math.min(...c) : null,
+		maxMm: n ? Math.max(...c) : null,
+		belowCMin: cMinMm === null ? 0 : c.filter((x) => x < cMinMm).length,
+		gridWidthMm: data.gridWidthMm,
+		gridHeightMm: data.gridHeightMm
+	};
+}
+
+/** Scanned area (m²) as the sum of the members' grid extents; null if any member lacks one. */
+export function areaOfMembersM2(
+	members: readonly Pick<MemberSummary, 'gridWidthMm' | 'gridHeightMm'>[]
+): number | null {
+	let mm2 = 0;
+	for (const m of members) {
+		if (m.gridWidthMm === null || m.gridHeightMm === null) return null;
+		mm2 += m.gridWidthMm * m.gridHeightMm;
+	}
+	return mm2 / 1e6;
+}
+
+/**
+ * Build the annex from a snapshot, the members' readings and the parameters entered (defaults
+ * filled in). Throws ReadingsChangedError when a population's readings no longer number what the
+ * snapshot counted: the draft must be saved again first.
+ */
+export function buildAnnex(
+	snapshot: SnapshotLike,
+	data: Map<number, MemberData>,
+	entered: DurabilityParameters
+): RiskAnnex {
+	const classes = snapshot.populations
+		.map((p) => p.key.exposureClass)
+		.filter((x) => modelKindFor(x) !== null);
+	const parameters = withDefaults(classes, entered);
+	const ageAtSurvey = ageAtSurveyYears(snapshot);
+	const designLife = snapshot.asset.designServiceLifeYears;
+	const members: MemberSummary[] = [];
+	const populations = snapshot.populations.map((p) => {
+		const cMinMm = p.assessment?.requirement.cMinMm ?? null;
+		const own = p.members.map((m) =>
+			summarise(
+				m.id,
+				m.label,
+				m.face,
+				p.id,
+				cMinMm,
+				data.get(m.id) ?? { coversMm: [], gridWidthMm: null, gridHeightMm: null }
+			)
+		);
+		members.push(...own);
+		const covers = toSortedCovers(p.members.flatMap((m) => data.get(m.id)?.coversMm ?? []));
+		const expected = p.assessment?.description.n ?? covers.length;
+		if (covers.length !== expected) {
+			throw new ReadingsChangedError(
+				`The readings of ${p.label} have changed since the draft was computed (${expected} then, ${covers.length} now): save the draft again.`
+			);
+		}
+		return populationRisk({
+			populationId: p.id,
+			label: p.label,
+			memberType: p.key.memberType,
+			exposureClass: p.key.exposureClass,
+			memberCount: p.members.length,
+			areaM2: areaOfMembersM2(own),
+			assessment: p.assessment,
+			sortedCoversMm: covers,
+			parameters: parameters[p.key.exposureClass] ?? null,
+			designLifeYears: designLife,
+			ageAtSurveyYears: ageAtSurvey
+		});
+	});
+	return toPlainJson({
+		schemaVersion: ANNEX_SCHEMA_VERSION,
+		engineVersion: ENGINE_VERSION,
+		designLifeYears: designLife,
+		ageAtSurveyYears: ageAtSurvey,
+		parameters,
+		simulation: SIMULATION,
+		populations,
+		members
+	});
+}
+
+/**
+ * The annex of an approved assessment for which no durability parameters were entered: cover
+ * figures only, no projections (nothing is computed that the signed assessment did not hold).
+ */
+export function coverOnlyAnnex(snapshot: SnapshotLike): RiskAnnex {
+	const designLife = snapshot.asset.designServiceLifeYears;
+	const ageAtSurvey = ageAtSurveyYears(snapshot);
+	return toPlainJson({
+		schemaVersion: ANNEX_SCHEMA_VERSION,
+		engineVersion: snapshot.engineVersion,
+		designLifeYears: designLife,
+		ageAtSurveyYears: ageAtSurvey,
+		parameters: {},
+		simulation: SIMULATION,
+		populations: snapshot.populations.map((p) =>
+			populationRisk({
+				populationId: p.id,
+				label: p.label,
+				memberType: p.key.memberType,
+				exposureClass: p.key.exposureClass,
+				memberCount: p.members.length,
+				areaM2: null,
+				assessment: p.assessment,
+				sortedCoversMm: new Float64Array(0),
+				parameters: null,
+				designLifeYears: designLife,
+				ageAtSurveyYears: ageAtSurvey
+			})
+		),
+		members: []
+	});
+}

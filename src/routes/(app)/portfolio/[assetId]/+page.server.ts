@@ -1,0 +1,55 @@
+import { error, fail, redirect } from '@sveltejs/kit';
+import { z } from 'zod';
+import type { Actions, PageServerLoad } from './$types';
+import { parseForm } from '$lib/server/forms';
+import { pageActor } from '$lib/server/guard';
+import { authorize, can } from '$lib/server/policy';
+import { linksOf, revokeLink, shareReport, shareSchema } from '$lib/server/reports';
+import { assetView, toRiskView } from '$lib/server/risk';
+
+const idSchema = z.coerce.number().int().positive().max(4_294_967_295);
+
+function assetIdOf(raw: string): number {
+	const parsed = idSchema.safeParse(raw);
+	if (!parsed.success) error(404, 'No such asset.');
+	return parsed.data;
+}
+
+export const load: PageServerLoad = async (event) => {
+	const actor = pageActor(event, 'report:read');
+	const { asset, own, latest } = await assetView(actor, assetIdOf(event.params.assetId));
+	// Only the owning organisation's engineers send links; a shared viewer cannot.
+	const mayShare = own && can(actor.role, 'report:share') && latest !== null;
+	const links = mayShare && latest ? await linksOf(actor, latest.header.id) : [];
+	return {
+		asset,
+		view: latest ? toRiskView(latest) : null,
+		mayShare,
+		links: links.map((l) => ({
+			id: l.id,
+			recipientEmail: l.recipientEmail,
+			expiresAt: l.expiresAt.toISOString(),
+			revokedAt: l.revokedAt ? new Date(l.revokedAt).toISOString() : null,
+			lastOpenedAt: l.lastOpenedAt ? new Date(l.lastOpenedAt).toISOString() : null
+		}))
+	};
+};
+
+const assessmentField = z.object({ assessment: idSchema });
+
+export const actions = {
+	share: async ({ locals, params, request }) => {
+		const actor = authorize(locals, 'report:share');
+		const parsed = await parseForm(request, shareSchema.extend(assessmentField.shape));
+		if (!parsed.ok) return parsed.failure;
+		await shareReport(actor, parsed.data.assessment, parsed.data);
+		redirect(303, `/portfolio/${assetIdOf(params.assetId)}?shared=1`);
+	},
+	revoke: async ({ locals, params, request }) => {
+		const actor = authorize(locals, 'report:share');
+		const parsed = await parseForm(request, assessmentField.extend({ link: idSchema }));
+		if (!parsed.ok) return fail(400, { errors: { link: 'No such link.' }, values: {} });
+		await revokeLink(actor, parsed.data.assessment, parsed.data.link);
+		redirect(303, `/portfolio/${assetIdOf(params.assetId)}?revoked=1`);
+	}
+} satisfies Actions;

@@ -1,0 +1,11 @@
+import type { PageServerLoad } from './$types';
+import { openLink } from '$lib/server/reports';
+import { assessedSource, toRiskView } from '$lib/server/risk';
+
+/** A shared report: no account needed, this report only; every open is an audit event. */
+export const load: PageServerLoad = async ({ params, getClientAddress, setHeaders }) => {
+	const assessment = await openLink(params.token, getClientAddress());
+	const source = await assessedSource(assessment);
+	setHeaders({ 'cache-control': 'private, no-store', 'referrer-policy': 'no-referrer' });
+	return { assetName: source.snapshot.asset.name, view: toRiskView(source) };
+};

@@ -1,0 +1,9 @@
+import type { RequestHandler } from './$types';
+import { openLink, pdfResponse } from '$lib/server/reports';
+import { assessedSource } from '$lib/server/risk';
+
+/** The shared report's PDF: no account, this report only; the open is audited. */
+export const GET: RequestHandler = async ({ params, getClientAddress }) => {
+	const assessment = await openLink(params.token, getClientAddress());
+	return pdfResponse(await assessedSource(assessment));
+};

@@ -1,0 +1,52 @@
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import type { Sequelize } from 'sequelize';
+import type { Assessment } from '../../src/lib/server/db/models';
+import { testSequelize } from '../helpers/database';
+import { approvedCarParkAssessment, strangerOwner } from '../helpers/assessments';
+import { signIn, signInAs } from '../helpers/session';
+
+describe('the owner’s portfolio', () => {
+	let sequelize: Sequelize;
+	let assessment: Assessment;
+
+	beforeAll(async () => {
+		sequelize = testSequelize();
+		assessment = await approvedCarParkAssessment(sequelize, await signInAs('engineer'));
+	});
+	afterAll(async () => {
+		await sequelize.close();
+	});
+
+	it('shows the demo owner the shared assets and ranks the car-park deck first', async () => {
+		const owner = await signInAs('owner');
+		const response = await owner.get('/portfolio');
+		expect(response.status).toBe(200);
+		const html = await response.text();
+		expect(html).toContain('Look at first');
+		expect(html).toContain('Orchard Row Office Building');
+		expect(html).not.toContain('Millrace Footbridge');
+		const ranked = html.slice(html.indexOf('Look at first'));
+		expect(ranked.indexOf('deck · XD3')).toBeGreaterThan(-1);
+		expect(ranked.indexOf('deck · XD3')).toBeLessThan(ranked.indexOf('column · XD3'));
+		expect(html).toContain('Decision support, not a decision.');
+	});
+
+	it('opens the asset page with its parts, chart table and recommendations', async () => {
+		const owner = await signInAs('owner');
+		const response = await owner.get(`/portfolio/${assessment.assetId}`);
+		expect(response.status).toBe(200);
+		const html = await response.text();
+		expect(html).toContain('Risk over time');
+		expect(html).toContain('The same figures as a table');
+		expect(html).toContain('Break out and test chloride profiles');
+		expect(html).not.toContain('Send by e-mail');
+	});
+
+	it('shows an owner of another organisation nothing (404)', async () => {
+		const stranger = await strangerOwner(`portfolio${Date.now()}`);
+		const client = await signIn(stranger.email, stranger.password);
+		expect((await client.get(`/portfolio/${assessment.assetId}`)).status).toBe(404);
+		const list = await (await client.get('/portfolio')).text();
+		expect(list).not.toContain('Brackenfield');
+	});
+});

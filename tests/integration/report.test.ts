@@ -1,0 +1,106 @@
+import { execFileSync } from 'node:child_process';
+import { mkdirSync, statSync, writeFileSync } from 'node:fs';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import type { Sequelize } from 'sequelize';
+import type { Assessment } from '../../src/lib/server/db/models';
+import { testSequelize } from '../helpers/database';
+import { approvedCarParkAssessment, strangerOwner } from '../helpers/assessments';
+import { signIn, signInAs } from '../helpers/session';
+
+const OUT = 'test-results';
+
+async function download(path: string, client: { get(p: string): Promise<Response> }, name: string) {
+	const response = await client.get(path);
+	expect(response.status).toBe(200);
+	expect(response.headers.get('content-type')).toBe('application/pdf');
+	const file = `${OUT}/${name}`;
+	writeFileSync(file, Buffer.from(await response.arrayBuffer()));
+	return file;
+}
+
+const text = (file: string) =>
+	execFileSync('pdftotext', ['-layout', file, '-'], { encoding: 'utf8' });
+const withoutTimestamp = (t: string) =>
+	t
+		.split('\n')
+		.filter((line) => !/^\s*Generated \d{4}-/.test(line))
+		.join('\n');
+
+describe('the report PDF of the demo car-park assessment', () => {
+	let sequelize: Sequelize;
+	let assessment: Assessment;
+	let first: string;
+
+	beforeAll(async () => {
+		mkdirSync(`${OUT}/screenshots`, { recursive: true });
+		sequelize = testSequelize();
+		assessment = await approvedCarParkAssessment(sequelize, await signInAs('engineer'));
+		first = await download(
+			`/api/v1/assessments/${assessment.id}/report`,
+			await signInAs('owner'),
+			'report-1.pdf'
+		);
+	});
+	afterAll(async () => {
+		await sequelize.close();
+	});
+
+	it('holds the populations, their verdicts, the risk levels, the caution and page numbers', () => {
+		const t = text(first);
+		for (const words of [
+			'Brackenfield Multi-storey Car Park',
+			'deck · XD3',
+			'slab · XC3',
+			'column · XD3'
+		]) {
+			expect(t).toContain(words);
+		}
+		expect(t).toMatch(/Verdict: (Fail|Pass|Not enough data)/);
+		expect(t).toContain('Act now');
+		expect(t).toContain('Decision support, not a decision.');
+		expect(t).toContain('licensed engineer decide');
+		expect(t).toContain('Method statement');
+		expect(t).toContain('Appendix B: verification holes');
+		expect(t).toMatch(/Page 1 of \d+/);
+		expect(t).toContain('Break out and test chloride profiles');
+	});
+
+	it('gives the same text every time apart from the generation timestamp', async () => {
+		const second = await download(
+			`/api/v1/assessments/${assessment.id}/report`,
+			await signInAs('engineer'),
+			'report-2.pdf'
+		);
+		const [a, b] = [text(first), text(second)];
+		expect(a).toMatch(/Generated \d{4}-/);
+		expect(withoutTimestamp(a)).toBe(withoutTimestamp(b));
+		const info = execFileSync('pdfinfo', [first], {
+			encoding: 'utf8',
+			env: { ...process.env, TZ: 'UTC' }
+		});
+		expect(info).toMatch(/CreationDate:\s+Fri Jan 16 10:00:00 2026/);
+	});
+
+	it('renders page 1 to a PNG kept with the test results', () => {
+		const prefix = `${OUT}/screenshots/report-page-1`;
+		execFileSync('pdftoppm', [
+			'-png',
+			'-r',
+			'80',
+			'-f',
+			'1',
+			'-l',
+			'1',
+			'-singlefile',
+			first,
+			prefix
+		]);
+		expect(statSync(`${prefix}.png`).size).toBeGreaterThan(10_000);
+	});
+
+	it('shows another organisation’s owner nothing', async () => {
+		const stranger = await strangerOwner(`report${Date.now()}`);
+		const client = await signIn(stranger.email, stranger.password);
+		expect((await client.get(`/api/v1/assessments/${assessment.id}/report`)).status).toBe(404);
+	});
+});
