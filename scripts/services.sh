@@ -37,6 +37,8 @@ write_app_env() {
 	env_default "$ENV_FILE" S3_ACCESS_KEY_ID S3RVER
 	env_default "$ENV_FILE" S3_SECRET_ACCESS_KEY S3RVER
 	env_default "$ENV_FILE" BODY_SIZE_LIMIT 64M
+	# The suite makes many API calls as a few demo users; its own rate-limit test sets a low limit.
+	env_default "$ENV_FILE" API_RATE_LIMIT "$([ "$instance" = test ] && echo 100000 || echo 300)"
 }
 
 start_fake() {
