@@ -41,6 +41,8 @@ write_app_env() {
 	env_default "$ENV_FILE" KEEP_ALIVE_TIMEOUT 65
 	env_default "$ENV_FILE" HEADERS_TIMEOUT 66
 	env_default "$ENV_FILE" SHUTDOWN_TIMEOUT 30
+	# The suite makes many API calls as a few demo users; its own rate-limit test sets a low limit.
+	env_default "$ENV_FILE" API_RATE_LIMIT "$([ "$instance" = test ] && echo 100000 || echo 300)"
 }
 
 start_fake() {

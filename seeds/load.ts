@@ -26,6 +26,7 @@ export const DEMO_SEED = 20_240_312;
 
 /** Tables that hold data (not the migration record), children first. */
 const DATA_TABLES = [
+	'api_rate_counters',
 	'audit_events',
 	'research_exports',
 	'report_links',

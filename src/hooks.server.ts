@@ -4,6 +4,7 @@ import { closeDb, db } from '$lib/server/db';
 import { databaseUnavailableResponse, isDatabaseUnavailable } from '$lib/server/db/unavailable';
 import { resolveAuth } from '$lib/server/auth/resolve';
 import { toApiErrorResponse } from '$lib/server/http';
+import { limitApiRate } from '$lib/server/api/rateLimit';
 import { lockedMessage } from '$lib/server/auth/throttle-rules';
 import { startAuthHousekeeping, stopAuthHousekeeping } from '$lib/server/auth/housekeeping';
 import { startMailRetryLoop, stopMailRetryLoop } from '$lib/server/mail/retry';
@@ -34,13 +35,18 @@ export const handle: Handle = async ({ event, resolve }) => {
 	event.locals.membership = null;
 	event.locals.authMethod = null;
 	let throttledUntil: Date | null = null;
+	let limited: Response | null = null;
 	try {
 		({ throttledUntil } = await resolveAuth(event));
+		// Counted after sign-in is resolved, so a token holder's requests share one count.
+		if (!throttledUntil) limited = await limitApiRate(event);
 	} catch (err) {
 		if (isDatabaseUnavailable(err)) return databaseUnavailableResponse(event.url.pathname);
 		throw err;
 	}
-	let response = throttledUntil ? tooManyTokenGuesses(throttledUntil) : await resolve(event);
+	let response = throttledUntil
+		? tooManyTokenGuesses(throttledUntil)
+		: (limited ?? (await resolve(event)));
 	// A load or action met a database that is down (handleError marked it): say so plainly.
 	if (event.locals.databaseUnavailable) return databaseUnavailableResponse(event.url.pathname);
 	// Every failed /api answer leaves in one shape, { error: { code, message, field? } } (http.ts).

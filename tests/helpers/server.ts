@@ -39,6 +39,8 @@ export async function startBuiltApp(overrides: Record<string, string>) {
 	}
 	return {
 		origin,
+		/** The app's process id, to read its memory from /proc. */
+		pid: child.pid!,
 		output: () => output,
 		async stop() {
 			if (child.exitCode === null) {

@@ -30,6 +30,7 @@ export const load: LayoutServerLoad = async ({ locals, url }) => {
 			assets: !!role && can(role, 'asset:read'),
 			portfolio: !!role && can(role, 'report:read'),
 			research: !!role && can(role, 'research:read'),
+			researchConsent: !!role && can(role, 'research:consent'),
 			members: !!role && can(role, 'organisation:manage'),
 			audit: !!role && can(role, 'audit:read'),
 			tokens: !!role && can(role, 'token:manage'),

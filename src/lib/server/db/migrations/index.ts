@@ -4,6 +4,7 @@ import { readings } from './003-readings';
 import { assessments } from './004-assessments';
 import { assessmentFreeze } from './005-assessment-freeze';
 import { assessmentRisk } from './006-assessment-risk';
+import { apiRateLimits } from './007-api-rate-limits';
 import type { Migration } from './types';
 
 /**
@@ -16,5 +17,6 @@ export const migrations: Migration[] = [
 	readings,
 	assessments,
 	assessmentFreeze,
-	assessmentRisk
+	assessmentRisk,
+	apiRateLimits
 ];

@@ -1,0 +1,79 @@
+import { z } from 'zod';
+import { groupSchema, methodSchema, scopeSchema } from '../../populations/query';
+import { idParam } from '../schemas';
+import type { Endpoint } from './endpoint';
+
+/**
+ * The population pages' endpoints (issue 6), documented here from their own query schemas.
+ * Their answers are the analysis engine's results, documented as objects rather than field by
+ * field (docs/analysis.md describes them).
+ */
+const engineResult = (what: string) => z.record(z.string(), z.unknown()).describe(what);
+const assetParams = z.object({ assetId: idParam('asset') });
+
+export const populationEndpoints: Endpoint[] = [
+	{
+		method: 'get',
+		path: '/api/v1/assets/{assetId}/populations',
+		operationId: 'populationOverview',
+		tag: 'Populations',
+		summary: 'Every population of an asset (or one survey), judged by the engine',
+		action: 'population:read',
+		params: assetParams,
+		query: scopeSchema.extend(methodSchema.shape),
+		exampleQuery: 'split=face',
+		response: {
+			mediaType: 'application/json',
+			schema: engineResult('The overview: one entry a population with its figures and rules.'),
+			description: 'Population overview.'
+		}
+	},
+	{
+		method: 'get',
+		path: '/api/v1/assets/{assetId}/populations/detail',
+		operationId: 'populationDetail',
+		tag: 'Populations',
+		summary: 'One population with chart data, per-member boxes and the meter check',
+		action: 'population:read',
+		params: assetParams,
+		query: scopeSchema.extend(groupSchema.shape).extend(methodSchema.shape),
+		exampleQuery: 'type=deck&exposure=XD3',
+		response: {
+			mediaType: 'application/json',
+			schema: z.object({
+				population: engineResult('The engine assessment with charts.'),
+				boxes: z.array(z.unknown()).describe('Box-plot figures per member.'),
+				meter: engineResult('Meter verification from the check holes.').nullable()
+			}),
+			description: 'Population detail.'
+		}
+	},
+	{
+		method: 'get',
+		path: '/api/v1/members/{memberId}/cover-map',
+		operationId: 'memberCoverMap',
+		tag: 'Populations',
+		summary: "A member's readings on its grid, its check holes and the meter's bias",
+		action: 'population:read',
+		params: z.object({ memberId: idParam('member') }),
+		response: {
+			mediaType: 'application/json',
+			schema: engineResult('The member view.'),
+			description: 'Cover map data.'
+		}
+	},
+	{
+		method: 'get',
+		path: '/api/v1/assets/{assetId}/assessments',
+		operationId: 'listAssessments',
+		tag: 'Populations',
+		summary: "The asset's assessments, newest first",
+		action: 'assessment:read',
+		params: assetParams,
+		response: {
+			mediaType: 'application/json',
+			schema: z.object({ assessments: z.array(z.unknown()) }),
+			description: 'Assessment summaries.'
+		}
+	}
+];

@@ -1,0 +1,95 @@
+import { json, type RequestEvent } from '@sveltejs/kit';
+import { QueryTypes } from 'sequelize';
+import { z } from 'zod';
+import { env } from '$env/dynamic/private';
+import { db } from '../db';
+
+/**
+ * Rate limits of /api/v1: a fixed window per caller (the token's or session's user, else the
+ * client address), counted in MariaDB (table api_rate_counters) so every app process shares
+ * the count. Over the limit: 429 with Retry-After (seconds to the next window).
+ */
+const settingsSchema = z.object({
+	API_RATE_LIMIT: z.coerce.number().int().min(1).max(1_000_000).default(300),
+	API_RATE_WINDOW_SECONDS: z.coerce.number().int().min(1).max(86_400).default(60)
+});
+
+export function rateLimitSettings() {
+	const parsed = settingsSchema.safeParse(env);
+	if (!parsed.success) {
+		const issue = parsed.error.issues[0];
+		throw new Error(`API rate-limit settings: ${issue.path.join('.')}: ${issue.message}`);
+	}
+	return parsed.data;
+}
+
+export interface RateDecision {
+	limit: number;
+	remaining: number;
+	retryAfterSeconds: number;
+	allowed: boolean;
+}
+
+/** Counts one request of `caller` and says whether it is within the limit. */
+export async function countRequest(caller: string): Promise<RateDecision> {
+	const { API_RATE_LIMIT: limit, API_RATE_WINDOW_SECONDS: windowSeconds } = rateLimitSettings();
+	const nowSeconds = Math.floor(Date.now() / 1000);
+	const windowStart = nowSeconds - (nowSeconds % windowSeconds);
+	// The window length is part of the bucket, so processes set up differently never share a row.
+	const bucket = `${caller}/w${windowSeconds}`;
+	const sequelize = db();
+	await sequelize.query(
+		`INSERT INTO api_rate_counters (bucket, window_start, hits) VALUES (:bucket, FROM_UNIXTIME(:windowStart), 1)
+		 ON DUPLICATE KEY UPDATE hits = hits + 1`,
+		{ type: QueryTypes.INSERT, replacements: { bucket, windowStart } }
+	);
+	const row = await sequelize.query<{ hits: number }>(
+		'SELECT hits FROM api_rate_counters WHERE bucket = :bucket AND window_start = FROM_UNIXTIME(:windowStart)',
+		{ type: QueryTypes.SELECT, plain: true, replacements: { bucket, windowStart } }
+	);
+	const hits = Number(row?.hits ?? 1);
+	if (hits === 1) {
+		// First request of a new window: this caller's older windows are of no further use.
+		await sequelize.query(
+			'DELETE FROM api_rate_counters WHERE bucket = :bucket AND window_start < FROM_UNIXTIME(:windowStart)',
+			{ type: QueryTypes.DELETE, replacements: { bucket, windowStart } }
+		);
+	}
+	return {
+		limit,
+		remaining: Math.max(0, limit - hits),
+		retryAfterSeconds: windowStart + windowSeconds - nowSeconds,
+		allowed: hits <= limit
+	};
+}
+
+function callerOf(event: RequestEvent): string {
+	if (event.locals.user) return `user:${event.locals.user.id}`;
+	let address = 'unknown';
+	try {
+		address = event.getClientAddress();
+	} catch {
+		// No address from the adapter (tests through `vite dev`): one shared anonymous bucket.
+	}
+	return `ip:${address}`;
+}
+
+/** For hooks.server.ts: null when the request may go on, else the 429 answer. */
+export async function limitApiRate(event: RequestEvent): Promise<Response | null> {
+	if (!event.url.pathname.startsWith('/api/v1/')) return null;
+	const decision = await countRequest(callerOf(event));
+	event.setHeaders({
+		'ratelimit-limit': String(decision.limit),
+		'ratelimit-remaining': String(decision.remaining)
+	});
+	if (decision.allowed) return null;
+	return json(
+		{
+			error: {
+				code: 'too_many_requests',
+				message: `Too many requests: at most ${decision.limit} in ${rateLimitSettings().API_RATE_WINDOW_SECONDS} s. Try again in ${decision.retryAfterSeconds} s.`
+			}
+		},
+		{ status: 429, headers: { 'retry-after': String(decision.retryAfterSeconds) } }
+	);
+}

@@ -1,0 +1,66 @@
+import type { Sequelize } from 'sequelize';
+import { ENGINE_VERSION, type FractionBelow } from '$lib/analysis';
+import type { GroupKey, ResearchFilter } from './filter';
+import { gatherGroups, type GroupValues } from './groups';
+import { selectedMembers } from './members';
+import { populationFigures, shareBelow, type PopulationFigures } from './population';
+import { pseudonymMaker } from './pseudonym';
+
+/** Statistics of one population of the selection: cover, deviation from nominal, below c_min. */
+export interface GroupStatistics {
+	key: GroupValues['key'];
+	readingCount: number;
+	memberCount: number;
+	assetCount: number;
+	cover: PopulationFigures | null;
+	deviationFromNominal: PopulationFigures | null;
+	/** Readings with measured cover below their member's c_min (margin below 0 mm). */
+	belowCMin: FractionBelow | null;
+}
+
+export interface ResearchStatistics {
+	engineVersion: string;
+	filter: ResearchFilter;
+	groupBy: GroupKey[];
+	selection: GroupStatistics;
+	groups: GroupStatistics[];
+}
+
+export interface StatisticsOptions {
+	groupBy: GroupKey[];
+	fractileP?: number;
+	confidence?: number;
+	/** Chart data for the whole selection (cover and deviation); groups never carry charts. */
+	charts?: boolean;
+}
+
+function groupStatistics(group: GroupValues, options: StatisticsOptions, charts: boolean) {
+	const figureOptions = { fractileP: options.fractileP, confidence: options.confidence, charts };
+	return {
+		key: group.key,
+		readingCount: group.coversMm.length,
+		memberCount: group.memberRefs.size,
+		assetCount: group.assetRefs.size,
+		cover: populationFigures(group.coversMm, figureOptions),
+		deviationFromNominal: populationFigures(group.deviationsMm, figureOptions),
+		belowCMin: shareBelow(group.marginsMm, 0, options.confidence)
+	};
+}
+
+/** The engine's statistics for the research selection and for each group within it. */
+export async function researchStatistics(
+	sequelize: Sequelize,
+	idSecret: string,
+	filter: ResearchFilter,
+	options: StatisticsOptions
+): Promise<ResearchStatistics> {
+	const members = await selectedMembers(sequelize, filter, pseudonymMaker(idSecret));
+	const { all, groups } = await gatherGroups(sequelize, members, options.groupBy);
+	return {
+		engineVersion: ENGINE_VERSION,
+		filter,
+		groupBy: options.groupBy,
+		selection: groupStatistics(all, options, options.charts ?? false),
+		groups: groups.map((g) => groupStatistics(g, options, false))
+	};
+}

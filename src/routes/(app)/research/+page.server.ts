@@ -1,0 +1,14 @@
+import type { PageServerLoad } from './$types';
+import { db } from '$lib/server/db';
+import { pageActor } from '$lib/server/guard';
+import { can } from '$lib/server/policy';
+import { filterOptions } from '$lib/server/research/options';
+
+/** The explorer's frame: who may see it and which filter values exist. Figures come from the API. */
+export const load: PageServerLoad = async (event) => {
+	const actor = pageActor(event, 'research:read');
+	return {
+		options: await filterOptions(db()),
+		mayExport: can(actor.role, 'research:export')
+	};
+};

@@ -1,0 +1,17 @@
+import { json } from '@sveltejs/kit';
+import { z } from 'zod';
+import type { RequestHandler } from './$types';
+import { authorize } from '$lib/server/policy';
+import { pageQuerySchema } from '$lib/server/api/cursor';
+import { parseInput, queryObject } from '$lib/server/api/request';
+import { idParam } from '$lib/server/api/schemas';
+import { visibleMember } from '$lib/server/api/visible';
+import { readingPage } from '$lib/server/api/ownRecords';
+
+export const GET: RequestHandler = async ({ locals, params, url }) => {
+	const actor = authorize(locals, 'asset:read');
+	const { memberId } = parseInput(z.object({ memberId: idParam('member') }), params);
+	const { cursor, limit } = parseInput(pageQuerySchema, queryObject(url));
+	const member = await visibleMember(actor, memberId);
+	return json(await readingPage(member.id, cursor ?? 0, limit));
+};

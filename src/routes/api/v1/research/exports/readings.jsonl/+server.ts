@@ -1,0 +1,10 @@
+import type { RequestHandler } from './$types';
+import { authorize } from '$lib/server/policy';
+import { readingsExportResponse } from '$lib/server/research/exportResponse';
+import { filterOf } from '$lib/server/research/requests';
+
+/** The selected readings, streamed as JSON Lines; recorded in research_exports. */
+export const GET: RequestHandler = async ({ locals, url }) => {
+	const actor = authorize(locals, 'research:export');
+	return readingsExportResponse(actor, filterOf(url), 'readings-jsonl');
+};

@@ -1,0 +1,13 @@
+import { json } from '@sveltejs/kit';
+import type { RequestHandler } from './$types';
+import { authorize } from '$lib/server/policy';
+import { researchContext } from '$lib/server/research/context';
+import { statisticsQueryOf } from '$lib/server/research/requests';
+import { researchStatistics } from '$lib/server/research/statistics';
+
+export const GET: RequestHandler = async ({ locals, url }) => {
+	authorize(locals, 'research:read');
+	const { groupBy, charts, ...filter } = statisticsQueryOf(url);
+	const { sequelize, idSecret } = researchContext();
+	return json(await researchStatistics(sequelize, idSecret, filter, { groupBy, charts }));
+};
