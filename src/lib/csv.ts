@@ -2,12 +2,14 @@
  * CSV for every download of the app (RFC 4180 quoting), with cells guarded against formula
  * injection: a spreadsheet runs a cell that starts with =, +, -, @, a tab or a carriage return
  * as a formula (OWASP "CSV Injection"), so such text gets a leading apostrophe and is shown as
- * text. A plain number such as -3.5 or +2e3 cannot run anything and is left as it is, so data
- * stays data. Shared by the browser (the population table's download) and the server.
+ * text — even text that looks like a number ("-2+3" is a formula; telling the harmless ones
+ * apart is how guards get holes). Values typed as numbers are written as numbers: a negative
+ * deviation such as -3.5 is data. Shared by the browser (the population table's download) and
+ * the server (research exports, rejected import rows).
  */
 
 /** Text a spreadsheet would take as a formula; for papaparse's `escapeFormulae` too. */
-export const FORMULA_START = /^(?![+-]?\d+(?:\.\d+)?(?:[eE][+-]?\d+)?$)[=+\-@\t\r]/;
+export const FORMULA_START = /^[=+\-@\t\r]/;
 
 export type CsvValue = string | number | boolean | null | undefined;
 

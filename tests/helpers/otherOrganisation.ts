@@ -16,6 +16,7 @@ export interface OrganisationIds {
 	assessmentId: number;
 	membershipId: number;
 	tokenId: number;
+	exportId: number;
 	/** A word that appears in the organisation's own asset name and nowhere else. */
 	marker: string;
 }
@@ -94,6 +95,17 @@ export async function draftAndToken(client: HttpClient, assetId: number) {
 	return { assessmentId, tokenId };
 }
 
+/** A research export of the client's organisation (recorded when its CSV is downloaded). */
+export async function researchExportOf(client: HttpClient): Promise<number> {
+	const csv = await client.get('/api/v1/research/exports/groups.csv');
+	if (csv.status !== 200) throw new Error(`export failed: ${csv.status} ${await csv.text()}`);
+	await csv.arrayBuffer();
+	const listed = (await (await client.get('/api/v1/research/exports')).json()) as {
+		exports: { id: number }[];
+	};
+	return listed.exports[0].id;
+}
+
 export async function createOtherOrganisation(sequelize: Sequelize): Promise<OtherOrganisation> {
 	const marker = randomBytes(4).toString('hex');
 	const { email, client } = await signUpNewOrganisation(`hostile-${marker}`);
@@ -105,5 +117,9 @@ export async function createOtherOrganisation(sequelize: Sequelize): Promise<Oth
 	);
 	const records = await copyRecords(sequelize, membership.organisationId, marker);
 	const made = await draftAndToken(client, records.assetId);
-	return { admin: client, ids: { ...records, ...made, membershipId: membership.id, marker } };
+	const exportId = await researchExportOf(client);
+	return {
+		admin: client,
+		ids: { ...records, ...made, exportId, membershipId: membership.id, marker }
+	};
 }

@@ -11,6 +11,7 @@ import { routeIdsWithParams } from '../helpers/routes';
 import {
 	createOtherOrganisation,
 	draftAndToken,
+	researchExportOf,
 	type OrganisationIds,
 	type OtherOrganisation
 } from '../helpers/otherOrganisation';
@@ -99,6 +100,26 @@ const ORG_ROUTES: Record<string, (v: OrganisationIds, own: OrganisationIds) => P
 		},
 		{ method: 'DELETE', path: `/api/v1/organisation/members/${v.membershipId}` }
 	],
+	'/api/v1/assets/[assetId]/research-consent': (v) => [
+		{ method: 'GET', path: `/api/v1/assets/${v.assetId}/research-consent` },
+		{
+			method: 'PUT',
+			path: `/api/v1/assets/${v.assetId}/research-consent`,
+			body: { researchOptIn: true }
+		}
+	],
+	'/api/v1/assets/[assetId]/surveys': (v) => [
+		{ method: 'GET', path: `/api/v1/assets/${v.assetId}/surveys` }
+	],
+	'/api/v1/members/[memberId]/readings': (v) => [
+		{ method: 'GET', path: `/api/v1/members/${v.memberId}/readings` }
+	],
+	'/api/v1/research/exports/[exportId]': (v) => [
+		{ method: 'GET', path: `/api/v1/research/exports/${v.exportId}` }
+	],
+	'/api/v1/surveys/[surveyId]/members': (v) => [
+		{ method: 'GET', path: `/api/v1/surveys/${v.surveyId}/members` }
+	],
 	'/api/v1/tokens/[id]': (v) => [{ method: 'DELETE', path: `/api/v1/tokens/${v.tokenId}` }]
 };
 
@@ -137,6 +158,7 @@ let sequelize: Sequelize;
 let other: OtherOrganisation;
 let demoAdmin: HttpClient;
 let demo: OrganisationIds;
+let demoOptIn: number;
 
 beforeAll(async () => {
 	sequelize = testSequelize();
@@ -144,16 +166,19 @@ beforeAll(async () => {
 	demoAdmin = await signInAs('admin');
 	const engineer = await signInAs('engineer');
 	const made = await draftAndToken(engineer, 1);
+	const exportId = await researchExportOf(demoAdmin);
 	const membership = await sequelize.query<{ id: number }>(
 		`SELECT m.id FROM memberships m JOIN users u ON u.id = m.user_id WHERE u.email = ?`,
 		{ replacements: ['engineer@kestrel-lane.example'], type: QueryTypes.SELECT, plain: true }
 	);
+	demoOptIn = await optInOf(1);
 	demo = {
 		assetId: 1,
 		surveyId: 1,
 		memberId: 1,
 		membershipId: membership!.id,
 		...made,
+		exportId,
 		marker: 'Brackenfield'
 	};
 });
@@ -167,6 +192,9 @@ afterAll(async () => {
 		replacements: [demo.assessmentId]
 	});
 	await sequelize.query('DELETE FROM api_tokens WHERE id = ?', { replacements: [demo.tokenId] });
+	await sequelize.query('DELETE FROM research_exports WHERE id = ?', {
+		replacements: [demo.exportId]
+	});
 	await sequelize.close();
 });
 
@@ -186,7 +214,10 @@ describe('the fixture is real', () => {
 			for (const path of [
 				`/api/v1/assets/${ids.assetId}/populations`,
 				`/api/v1/members/${ids.memberId}/cover-map`,
-				`/api/v1/assessments/${ids.assessmentId}`
+				`/api/v1/assessments/${ids.assessmentId}`,
+				`/api/v1/surveys/${ids.surveyId}/members`,
+				`/api/v1/members/${ids.memberId}/readings`,
+				`/api/v1/research/exports/${ids.exportId}`
 			]) {
 				expect((await client.get(path)).status, path).toBe(200);
 			}
@@ -218,7 +249,20 @@ describe.each([
 	});
 });
 
+async function optInOf(assetId: number): Promise<number> {
+	const row = await sequelize.query<{ optIn: number }>(
+		'SELECT research_opt_in AS optIn FROM assets WHERE id = ?',
+		{ replacements: [assetId], type: QueryTypes.SELECT, plain: true }
+	);
+	return Number(row!.optIn);
+}
+
 describe('after the attacks', () => {
+	it("the victims' research consent is as it was", async () => {
+		expect(await optInOf(1)).toBe(demoOptIn);
+		expect(await optInOf(other.ids.assetId)).toBe(0);
+	});
+
 	it("the victims' assessments are still drafts, their memberships and tokens still there", async () => {
 		const rows = await sequelize.query<{ state: string }>(
 			'SELECT state FROM assessments WHERE id IN (?, ?)',

@@ -11,7 +11,7 @@ import { httpClient, signInAs, type HttpClient } from '../helpers/session';
 import { FRESH_PASSWORD, uniqueEmail } from '../helpers/accounts';
 import { MARK, SQL_META, hostileValues } from '../helpers/hostile';
 
-type Role = 'anonymous' | 'engineer' | 'admin';
+type Role = 'anonymous' | 'engineer' | 'admin' | 'researcher';
 interface Field {
 	role: Role;
 	kind: 'form' | 'json' | 'query';
@@ -174,7 +174,34 @@ const FIELDS: Field[] = [
 	})),
 	{ role: 'engineer', kind: 'query', path: '/assets/1/populations', field: 'split' },
 	{ role: 'engineer', kind: 'query', path: '/assets/1/populations/detail', field: 'type' },
-	{ role: 'anonymous', kind: 'query', path: '/sign-in', field: 'next' }
+	{ role: 'anonymous', kind: 'query', path: '/sign-in', field: 'next' },
+	// Research filters (issue 8): the same list fields on statistics, readings and the exports.
+	...[
+		'/api/v1/research/statistics',
+		'/api/v1/research/readings',
+		'/api/v1/research/members',
+		'/api/v1/research/exports/groups.csv',
+		'/research'
+	].flatMap((path) =>
+		[
+			'memberType',
+			'exposureClass',
+			'face',
+			'designCode',
+			'decade',
+			'cNomMm',
+			'groupBy',
+			'cursor',
+			'limit'
+		].map((field): Field => ({ role: 'researcher', kind: 'query', path, field }))
+	),
+	{
+		role: 'admin',
+		kind: 'json',
+		path: '/api/v1/assets/1/research-consent',
+		field: 'researchOptIn',
+		method: 'PUT'
+	}
 ];
 
 let sequelize: Sequelize;
@@ -193,6 +220,7 @@ beforeAll(async () => {
 	);
 	clients.engineer = await signInAs('engineer');
 	clients.admin = await signInAs('admin');
+	clients.researcher = await signInAs('researcher');
 });
 
 afterAll(async () => {
