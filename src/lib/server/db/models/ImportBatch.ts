@@ -28,7 +28,7 @@ export class ImportBatch extends Model<
 	declare rowsRejected: CreationOptional<number>;
 	declare mapping: CreationOptional<unknown>;
 	declare options: CreationOptional<unknown>;
-	declare warnings: CreationOptional<unknown>;
+	declare warnings: CreationOptional<string[] | null>;
 	declare rejectedRowsCsv: CreationOptional<string | null>;
 	declare errorMessage: CreationOptional<string | null>;
 	declare cancelRequested: CreationOptional<boolean>;
