@@ -45,7 +45,10 @@ start_fake() {
 	if pid_alive "$(cat "$pid_file" 2>/dev/null || true)"; then
 		return 0
 	fi
-	(cd "$ROOT" && nohup node --import tsx "$script" >"$RUN_DIR/$name.log" 2>&1 & echo $! >"$pid_file")
+	# `cd` apart from the backgrounded command, so that $! is node's own pid and not a subshell's.
+	cd "$ROOT"
+	nohup node --import tsx "$script" >"$RUN_DIR/$name.log" 2>&1 &
+	echo $! >"$pid_file"
 	wait_for_port "$port" "the $name fake"
 	say "$name fake on 127.0.0.1:$port"
 }

@@ -1,3 +1,4 @@
+import { enRequirement, type ExposureClass } from '../src/lib/analysis';
 import { SeededRandom } from './random';
 import type { CoverPlan, DemoMemberPlan } from './scenario';
 
@@ -18,11 +19,18 @@ export interface GeneratedHole {
 	measuredCoverMm: number;
 }
 
-/** EN 1992-1-1 (4.2): c_min = max(c_min,b; c_min,dur + Δc_dur,γ − Δc_dur,st − Δc_dur,add; 10 mm),
- * with the Δ terms zero (their recommended values); c_nom = c_min + Δc_dev (4.1). */
-export function specifiedCover(member: DemoMemberPlan, deltaCDevMm = 10) {
-	const cMinMm = Math.max(member.barDiameterMm, member.cMinDurMm, 10);
-	return { cMinMm, cNomMm: cMinMm + deltaCDevMm, deltaCDevMm };
+/** The member's specified cover by EN 1992-1-1 §4.4.1 (structural class S4, Δc_dev 10 mm). */
+export function specifiedCover(member: DemoMemberPlan) {
+	const requirement = enRequirement({
+		exposureClass: member.exposureClass as ExposureClass,
+		structuralClass: 'S4',
+		barDiameterMm: member.barDiameterMm
+	});
+	return {
+		cMinMm: requirement.cMinMm,
+		cNomMm: requirement.cNomMm,
+		deltaCDevMm: requirement.deltaCDevMm
+	};
 }
 
 const round1 = (value: number) => Math.round(value * 10) / 10;

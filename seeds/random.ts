@@ -1,23 +1,16 @@
+import { mulberry32, normalSampler } from '../src/lib/analysis/durability/prng';
+
 /**
- * A seeded pseudo-random generator for the demo scenario, so every seed run writes the same
- * readings. Our own: neither jstat nor simple-statistics offers a seedable generator.
- * mulberry32 (T. Ettinger, public domain) for uniforms; Box–Muller for normals.
+ * The demo scenario's seeded generator, so every seed run writes the same readings: the engine's
+ * own seeded uniform (mulberry32) and Box–Muller normals, with the shapes the scenario needs.
  */
 export class SeededRandom {
-	private state: number;
-	private spareNormal: number | null = null;
+	readonly next: () => number;
+	private readonly standardNormal: () => number;
 
 	constructor(seed: number) {
-		this.state = seed >>> 0;
-	}
-
-	/** Uniform on [0, 1). */
-	next(): number {
-		this.state = (this.state + 0x6d2b79f5) >>> 0;
-		let t = this.state;
-		t = Math.imul(t ^ (t >>> 15), t | 1);
-		t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
-		return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
+		this.next = mulberry32(seed);
+		this.standardNormal = normalSampler(this.next);
 	}
 
 	between(low: number, high: number): number {
@@ -28,19 +21,8 @@ export class SeededRandom {
 		return Math.floor(this.between(low, high + 1));
 	}
 
-	/** Normal with the given mean and standard deviation (Box–Muller, both values used). */
 	normal(mean: number, sd: number): number {
-		if (this.spareNormal !== null) {
-			const z = this.spareNormal;
-			this.spareNormal = null;
-			return mean + sd * z;
-		}
-		let u = 0;
-		while (u === 0) u = this.next();
-		const v = this.next();
-		const r = Math.sqrt(-2 * Math.log(u));
-		this.spareNormal = r * Math.sin(2 * Math.PI * v);
-		return mean + sd * r * Math.cos(2 * Math.PI * v);
+		return mean + sd * this.standardNormal();
 	}
 
 	/** Lognormal whose own mean and standard deviation (not the log's) are given. */

@@ -1,8 +1,8 @@
 /**
  * The demo scenario: invented organisations, people and structures. Nothing here is real; the
  * e-mail addresses use the reserved .example domain (RFC 2606). Specified covers follow
- * EN 1992-1-1 Table 4.4N for structural class S4 with Δc_dev = 10 mm (the recommended value,
- * §4.4.1.3) and c_min,b = bar diameter (Table 4.2).
+ * EN 1992-1-1 §4.4.1 for structural class S4 with Δc_dev = 10 mm, worked out by the engine's
+ * requirement tables (seeds/generate.ts).
  */
 import type { Role } from '../src/lib/server/db/models/Membership';
 import type { MemberFace, MemberType } from '../src/lib/server/db/models/Member';
@@ -30,7 +30,6 @@ export interface DemoMemberPlan {
 	memberType: MemberType;
 	face: MemberFace;
 	exposureClass: string;
-	cMinDurMm: number;
 	barDiameterMm: number;
 	barSpacingMm: number;
 	memberDepthMm: number;
@@ -124,7 +123,6 @@ function deckBays(
 		memberType: 'deck' as const,
 		face: 'top' as const,
 		exposureClass: 'XD3',
-		cMinDurMm: 45,
 		barDiameterMm: 16,
 		barSpacingMm: 150,
 		memberDepthMm: 250,
@@ -172,7 +170,6 @@ export const demoAssets: DemoAssetPlan[] = [
 						memberType: 'slab',
 						face: 'bottom',
 						exposureClass: 'XC3',
-						cMinDurMm: 25,
 						barDiameterMm: 12,
 						barSpacingMm: 200,
 						memberDepthMm: 250,
@@ -186,7 +183,6 @@ export const demoAssets: DemoAssetPlan[] = [
 						memberType: 'column',
 						face: 'side',
 						exposureClass: 'XD3',
-						cMinDurMm: 45,
 						barDiameterMm: 25,
 						barSpacingMm: 125,
 						memberDepthMm: 450,
@@ -235,7 +231,6 @@ export const demoAssets: DemoAssetPlan[] = [
 						memberType: 'beam',
 						face: n % 2 ? 'bottom' : 'side',
 						exposureClass: 'XC3',
-						cMinDurMm: 25,
 						barDiameterMm: 25,
 						barSpacingMm: 150,
 						memberDepthMm: 600,
@@ -249,7 +244,6 @@ export const demoAssets: DemoAssetPlan[] = [
 						memberType: 'column',
 						face: 'side',
 						exposureClass: 'XC4',
-						cMinDurMm: 30,
 						barDiameterMm: 20,
 						barSpacingMm: 100,
 						memberDepthMm: 400,
@@ -263,7 +257,6 @@ export const demoAssets: DemoAssetPlan[] = [
 						memberType: 'slab',
 						face: 'bottom',
 						exposureClass: 'XC1',
-						cMinDurMm: 15,
 						barDiameterMm: 12,
 						barSpacingMm: 200,
 						memberDepthMm: 225,
@@ -278,7 +271,6 @@ export const demoAssets: DemoAssetPlan[] = [
 						memberType: 'wall',
 						face: 'side',
 						exposureClass: 'XC4',
-						cMinDurMm: 30,
 						barDiameterMm: 12,
 						barSpacingMm: 200,
 						memberDepthMm: 200,
@@ -315,7 +307,6 @@ export const demoAssets: DemoAssetPlan[] = [
 						memberType: 'deck',
 						face: 'top',
 						exposureClass: 'XS1',
-						cMinDurMm: 35,
 						barDiameterMm: 16,
 						barSpacingMm: 150,
 						memberDepthMm: 300,
@@ -329,7 +320,6 @@ export const demoAssets: DemoAssetPlan[] = [
 						memberType: 'beam',
 						face: 'side',
 						exposureClass: 'XS1',
-						cMinDurMm: 35,
 						barDiameterMm: 20,
 						barSpacingMm: 150,
 						memberDepthMm: 700,

@@ -1,0 +1,96 @@
+/**
+ * Chart data, kept apart from the assessment so an overview of many groups does not pay for it.
+ * Every point list is thinned to at most `maxPoints` so a million readings plot quickly.
+ */
+import { type FittedModel, modelCdf, modelPdf } from './fitModels';
+import { histogramSorted, type HistogramBin } from './histogram';
+import { normalQuantile } from './normalDistribution';
+import { requireReadings } from './readings';
+
+export interface ChartData {
+	histogram: HistogramBin[];
+	ecdf: { coverMm: number; fraction: number }[];
+	curves: { model: FittedModel['model']; coverMm: number; pdf: number; cdf: number }[];
+	probabilityPlot: { normalScore: number; coverMm: number }[];
+}
+
+/** Indices 0…n−1 thinned to at most maxPoints, always keeping the first and last. */
+function thinnedIndices(n: number, maxPoints: number): number[] {
+	if (n <= maxPoints) return Array.from({ length: n }, (_, i) => i);
+	const step = (n - 1) / (maxPoints - 1);
+	return Array.from({ length: maxPoints }, (_, j) => Math.round(j * step));
+}
+
+/**
+ * Empirical CDF points (x(i), i/n), thinned. Definition F_n(x) = #{x_j ≤ x}/n.
+ * Cost O(maxPoints). @example ecdfPoints(Float64Array.of(1, 2)) // [{1, 0.5}, {2, 1}]
+ */
+export function ecdfPoints(sorted: Float64Array, maxPoints = 500): ChartData['ecdf'] {
+	requireReadings('ecdfPoints', sorted.length, 1);
+	const n = sorted.length;
+	return thinnedIndices(n, maxPoints).map((i) => ({ coverMm: sorted[i], fraction: (i + 1) / n }));
+}
+
+/**
+ * Fitted pdf (1/mm) and cdf on an even grid of `points` covers from fromMm to toMm.
+ * Cost O(points). @example modelCurves(fit, 20, 90, 141)
+ */
+export function modelCurves(
+	fit: FittedModel,
+	fromMm: number,
+	toMm: number,
+	points = 200
+): ChartData['curves'] {
+	const out: ChartData['curves'] = [];
+	for (let i = 0; i < points; i++) {
+		const coverMm = fromMm + ((toMm - fromMm) * i) / Math.max(1, points - 1);
+		out.push({
+			model: fit.model,
+			coverMm,
+			pdf: modelPdf(fit, coverMm),
+			cdf: modelCdf(fit, coverMm)
+		});
+	}
+	return out;
+}
+
+/**
+ * Normal probability plot points (normal score, x(i)) with R's ppoints plotting positions
+ * (i − a)/(n + 1 − 2a), a = 3/8 for n ≤ 10, else 1/2 (R ?ppoints; Blom 1958). Thinned.
+ * Cost O(maxPoints) normal quantiles.
+ */
+export function normalProbabilityPlot(
+	sorted: Float64Array,
+	maxPoints = 500
+): ChartData['probabilityPlot'] {
+	const n = sorted.length;
+	requireReadings('normalProbabilityPlot', n, 1);
+	const a = n <= 10 ? 3 / 8 : 1 / 2;
+	return thinnedIndices(n, maxPoints).map((i) => ({
+		normalScore: normalQuantile((i + 1 - a) / (n + 1 - 2 * a)),
+		coverMm: sorted[i]
+	}));
+}
+
+/**
+ * All chart data for a population: histogram (Freedman–Diaconis or fixed width), ECDF, fitted
+ * curves for each model given, normal probability plot. Cost O(n) for the histogram, the rest
+ * O(points).
+ */
+export function chartData(
+	sorted: Float64Array,
+	models: readonly FittedModel[],
+	binWidthMm?: number,
+	maxPoints = 500
+): ChartData {
+	const n = sorted.length;
+	const padMm = 0.1 * (sorted[n - 1] - sorted[0] || 1);
+	return {
+		histogram: histogramSorted(sorted, binWidthMm),
+		ecdf: ecdfPoints(sorted, maxPoints),
+		curves: models.flatMap((m) =>
+			modelCurves(m, Math.max(0, sorted[0] - padMm), sorted[n - 1] + padMm)
+		),
+		probabilityPlot: normalProbabilityPlot(sorted, maxPoints)
+	};
+}

@@ -1,0 +1,139 @@
+/**
+ * Fractile analysis engine: the public API. Pure TypeScript, no I/O; usable on server and browser.
+ */
+export { ENGINE_VERSION } from './version';
+export { assessPopulation, type PopulationAssessment } from './assessPopulation';
+export {
+	type AssessOptions,
+	type ModelChoice,
+	type ResolvedOptions,
+	resolveOptions
+} from './assessOptions';
+export { toSortedCovers, countBelowSorted, countAtOrBelowSorted } from './readings';
+export { percentileSorted, type PercentileType } from './percentile';
+export { describeSorted, type CoverDescription } from './describe';
+export {
+	fitNormal,
+	fitLognormal,
+	modelCdf,
+	modelPdf,
+	modelQuantile,
+	type FittedModel,
+	type ModelName
+} from './fitModels';
+export {
+	andersonDarling,
+	andersonDarlingPValue,
+	type AndersonDarlingResult
+} from './andersonDarling';
+export { kolmogorovSmirnov, lillieforsPValue, type KolmogorovSmirnovResult } from './lilliefors';
+export {
+	compareModels,
+	FIT_SIGNIFICANCE,
+	type ModelComparison,
+	type ModelFit
+} from './goodnessOfFit';
+export { erf, erfc, erfcInverse, normalCdf, normalPdf, normalQuantile } from './normalDistribution';
+export { noncentralTCdf } from './noncentralT';
+export {
+	predictionFactor,
+	toleranceFactor,
+	fractionBelowUpperBound
+} from './characteristicFactors';
+export {
+	characteristicCovers,
+	chosenCharacteristicMm,
+	type CharacteristicCovers,
+	type CharacteristicMethod
+} from './characteristicCover';
+export { clopperPearsonInterval, clopperPearsonLower, clopperPearsonUpper } from './clopperPearson';
+export { fractionBelow, type FractionBelow } from './fractionBelow';
+export { histogramSorted, type HistogramBin } from './histogram';
+export {
+	chartData,
+	ecdfPoints,
+	modelCurves,
+	normalProbabilityPlot,
+	type ChartData
+} from './charts';
+export {
+	type CoverRequirement,
+	type CodeSystem,
+	DEFAULT_ALLOWED_FRACTION_BELOW,
+	projectRequirement
+} from './requirements/requirement';
+export {
+	cMinDurMm,
+	enRequirement,
+	structuralClassEn,
+	type ExposureClass,
+	type StructuralClass,
+	type EnRequirementInput
+} from './requirements/en1992';
+export {
+	aciCoverToleranceMm,
+	aciRequirement,
+	aciSpecifiedCoverIn,
+	type AciBarSize,
+	type AciExposure,
+	type AciMember
+} from './requirements/aci';
+export {
+	RULE_SETS,
+	defaultRuleSet,
+	runRuleSet,
+	type RuleSetName,
+	type RuleSetResult
+} from './rules/ruleSets';
+export type { RuleId, RuleOutcome, RuleResult, RuleContext } from './rules/ruleTypes';
+export {
+	verifyMeter,
+	correctReadings,
+	differenceSdMm,
+	MIN_VERIFICATION_HOLES,
+	type MeterVerification
+} from './meterVerification';
+export {
+	barPositionFromScan,
+	nearestStandardBarMm,
+	shareMatchingDiameter,
+	spacingSummary,
+	spacingsFromPositions,
+	standardBarDiametersMm,
+	type SpacingSummary
+} from './barsAndSpacing';
+export {
+	carbonationDepthMm,
+	carbonationRateFromDepth,
+	carbonationTimeToDepassivationYears
+} from './durability/carbonation';
+export {
+	apparentDiffusionMm2PerYear,
+	chlorideContentAt,
+	chlorideCriticalDepthMm,
+	chlorideTimeToDepassivationYears,
+	m2PerSToMm2PerYear,
+	type ChlorideModel
+} from './durability/chloride';
+export {
+	depassivationAssessment,
+	timesToDepassivationYears,
+	type DepassivationAtAge,
+	type DurabilityModel,
+	type DepassivationOptions
+} from './durability/depassivation';
+export {
+	FIB_TARGET_BETA_DEPASSIVATION,
+	meetsTargetBeta,
+	reliabilityIndex
+} from './durability/reliability';
+export { mulberry32, normalSampler } from './durability/prng';
+export {
+	MM_PER_INCH,
+	coversFromInches,
+	formatCover,
+	inchToMm,
+	mmToInch,
+	type LengthUnit
+} from './units';
+export { toPlainJson } from './plainJson';
