@@ -64,7 +64,8 @@ async function streamRows(job: ImportJob, transaction: Transaction, tally: Impor
 	let chunk: unknown[][] = [];
 	let inFlight: Promise<void> = Promise.resolve();
 	let lastTick = Date.now();
-	let index = -1;
+	let index = -1; // among non-blank records, as detection counts them
+	let recordNumber = 0; // every record, so row numbers match the file's lines
 	const flush = async () => {
 		await inFlight;
 		const rows = chunk;
@@ -73,13 +74,12 @@ async function streamRows(job: ImportJob, transaction: Transaction, tally: Impor
 		inFlight.catch(() => undefined); // awaited below; this only silences the early rejection
 	};
 	for await (const cells of records(job, tally)) {
-		index++;
-		if (index <= job.options.headerRowIndex) {
+		const rowNumber = ++recordNumber;
+		if (isBlank(cells)) continue;
+		if (++index <= job.options.headerRowIndex) {
 			if (index === job.options.headerRowIndex) tally.headers = cells;
 			continue;
 		}
-		if (isBlank(cells)) continue;
-		const rowNumber = index + 1;
 		if (++tally.rowsRead > IMPORT_LIMITS.maxRows) {
 			throw new ImportError(
 				'too-many-rows',

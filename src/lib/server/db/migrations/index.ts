@@ -9,10 +9,4 @@ import type { Migration } from './types';
  * Every migration, in order. Listed by hand rather than found by a glob so Vite can bundle them
  * into the server build (STACK.md pitfall 8). A new migration is a new file plus a line here.
  */
-export const migrations: Migration[] = [
-	accounts,
-	surveys,
-	readings,
-	assessments,
-	intakeProgress
-];
+export const migrations: Migration[] = [accounts, surveys, readings, assessments, intakeProgress];
