@@ -115,7 +115,12 @@ export async function importFile(
 	mapping = standardMapping,
 	opts: Partial<ImportOptions> = {}
 ) {
-	const upload = await receiveUpload(actor, surveyId, fileName, Readable.from([Buffer.from(content)]));
+	const upload = await receiveUpload(
+		actor,
+		surveyId,
+		fileName,
+		Readable.from([Buffer.from(content)])
+	);
 	const { mixedDecimalMarks, ...detected } = upload.preview.settings;
 	void mixedDecimalMarks;
 	const started = await startImport(actor, upload.batchId, {
@@ -129,7 +134,10 @@ export async function importFile(
 	return { upload, outcome, batch: batch! };
 }
 
-export async function countReadings(sequelize: Sequelize, where: { surveyId?: number; batchId?: number }) {
+export async function countReadings(
+	sequelize: Sequelize,
+	where: { surveyId?: number; batchId?: number }
+) {
 	const sql = where.batchId
 		? 'SELECT COUNT(*) AS n FROM readings WHERE import_batch_id = ?'
 		: 'SELECT COUNT(*) AS n FROM readings r JOIN members m ON m.id = r.member_id WHERE m.survey_id = ?';

@@ -90,12 +90,19 @@ describe('import of bad input: a clear message, and the whole batch or none of i
 		});
 		expect(valid.outcome.state).toBe('completed');
 		expect(await countReadings(sequelize, { surveyId: s2.id })).toBe(2);
-		expect(valid.batch.rejectedRowsCsv).toContain('3,"cover ""abc"" is not a number",M-01,0,150,abc');
+		expect(valid.batch.rejectedRowsCsv).toContain(
+			'3,"cover ""abc"" is not a number",M-01,0,150,abc'
+		);
 	});
 
 	it('refuses negative and absurd covers unless the limit is widened', async () => {
 		const s = await survey();
-		const bad = await importFile(actor, s.id, 'c.csv', csv([HEADER, 'M-01,0,0,-3', 'M-01,1,0,450']));
+		const bad = await importFile(
+			actor,
+			s.id,
+			'c.csv',
+			csv([HEADER, 'M-01,0,0,-3', 'M-01,1,0,450'])
+		);
 		expect(bad.batch.errorMessage).toContain('cover -3 mm is negative');
 		expect(bad.batch.rejectedRowsCsv).toContain('cover 450 mm is above the 300 mm limit');
 		expect(await countReadings(sequelize, { surveyId: s.id })).toBe(0);
@@ -107,10 +114,15 @@ describe('import of bad input: a clear message, and the whole batch or none of i
 	});
 
 	it('stops inch values entered as mm, and converts them when inch is chosen', async () => {
-		const rows = Array.from({ length: 20 }, (_, i) => `M-01,${i * 100},0,${(1.2 + i * 0.02).toFixed(2)}`);
+		const rows = Array.from(
+			{ length: 20 },
+			(_, i) => `M-01,${i * 100},0,${(1.2 + i * 0.02).toFixed(2)}`
+		);
 		const s = await survey();
 		const asMm = await importFile(actor, s.id, 'inch.csv', csv([HEADER, ...rows]));
-		expect(asMm.batch.errorMessage).toMatch(/Nearly all covers \(100%\) are below 4 mm: were they measured in inches\?/);
+		expect(asMm.batch.errorMessage).toMatch(
+			/Nearly all covers \(100%\) are below 4 mm: were they measured in inches\?/
+		);
 		expect(await countReadings(sequelize, { surveyId: s.id })).toBe(0);
 		const asInch = await importFile(actor, s.id, 'inch.csv', csv([HEADER, ...rows]), undefined, {
 			units: 'inch'
@@ -138,17 +150,29 @@ describe('import of bad input: a clear message, and the whole batch or none of i
 
 	it('refuses a very long line, at upload when it is near the start, else during the import', async () => {
 		const long = `M-01,0,0,${'9'.repeat(100_000)}`;
-		await expectUploadRefused(csv([HEADER, long]), 'long.csv', /^Line 2 is longer than 16384 bytes/);
+		await expectUploadRefused(
+			csv([HEADER, long]),
+			'long.csv',
+			/^Line 2 is longer than 16384 bytes/
+		);
 		const s = await survey();
 		// Past the first 64 KB read for the preview, so the import itself meets it.
 		const rows = Array.from({ length: 6000 }, (_, i) => `M-01,${i},0,30`);
-		const result = await importFile(actor, s.id, 'long.csv', csv([HEADER, ...rows, long, 'M-02,0,0,30']));
+		const result = await importFile(
+			actor,
+			s.id,
+			'long.csv',
+			csv([HEADER, ...rows, long, 'M-02,0,0,30'])
+		);
 		expect(result.batch.errorMessage).toMatch(/^Line 6002 is longer than 16384 bytes/);
 		expect(await countReadings(sequelize, { surveyId: s.id })).toBe(0);
 	});
 
 	it('refuses binary files renamed .csv', async () => {
-		const png = Buffer.from('89504e470d0a1a0a0000000d49484452000000010000000108060000001f15c489', 'hex');
+		const png = Buffer.from(
+			'89504e470d0a1a0a0000000d49484452000000010000000108060000001f15c489',
+			'hex'
+		);
 		await expectUploadRefused(png, 'readings.csv', /This file is image\/png \(\.png\), not a CSV/);
 		const noise = Buffer.from(Array.from({ length: 4096 }, (_, i) => (i * 7919) % 256));
 		await expectUploadRefused(noise, 'readings.csv', /This file is not text/);
@@ -157,7 +181,12 @@ describe('import of bad input: a clear message, and the whole batch or none of i
 	it('refuses another organisation’s member labels and surveys', async () => {
 		const other = await otherOrganisation();
 		const s = await survey();
-		const result = await importFile(actor, s.id, 'o.csv', csv([HEADER, 'M-01,0,0,30', 'OTHER-01,0,0,30']));
+		const result = await importFile(
+			actor,
+			s.id,
+			'o.csv',
+			csv([HEADER, 'M-01,0,0,30', 'OTHER-01,0,0,30'])
+		);
 		expect(result.batch.errorMessage).toContain(
 			'Row 3: member label "OTHER-01" is not a member of this survey'
 		);

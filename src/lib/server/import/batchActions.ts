@@ -1,5 +1,4 @@
-import { QueryTypes } from 'sequelize';
-import { ImportBatch, ImportProgress } from '../db/models';
+import { ImportBatch, ImportProgress, Reading } from '../db/models';
 import { recordAudit } from '../audit';
 import { StateError } from '../domainErrors';
 import { assertSurveyEditable } from '../intake/frozen';
@@ -30,13 +29,7 @@ export async function undoImport(actor: Actor, batchId: number): Promise<number>
 	}
 	const sequelize = ImportBatch.sequelize!;
 	return sequelize.transaction(async (transaction) => {
-		const [, result] = (await sequelize.query('DELETE FROM readings WHERE import_batch_id = ?', {
-			replacements: [batch.id],
-			type: QueryTypes.DELETE,
-			transaction,
-			raw: true
-		})) as unknown as [unknown, { affectedRows?: number } | number];
-		const deleted = typeof result === 'number' ? result : (result?.affectedRows ?? 0);
+		const deleted = await Reading.destroy({ where: { importBatchId: batch.id }, transaction });
 		await batch.update(
 			{ state: 'undone', undoneAt: new Date(), undoneByUserId: actor.userId },
 			{ transaction }

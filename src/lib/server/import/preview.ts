@@ -4,7 +4,7 @@ import { ImportError } from './errors';
 import { IMPORT_LIMITS } from './limits';
 import { headerSignature, suggestMapping, type ReadingField } from './mapping';
 import { sniffFormat, type SourceFormat } from './sniff';
-import { csvRecords, xlsxRecords } from './sources';
+import { csvRecordBatches, xlsxRecordBatches } from './sources';
 import { readSample } from './stage';
 import { checkXlsxArchive } from './zipGuard';
 
@@ -19,21 +19,21 @@ export interface FilePreview {
 	warnings: string[];
 }
 
-async function firstRecords(source: AsyncGenerator<string[]>, count: number) {
+async function firstRecords(source: AsyncGenerator<string[][]>, count: number) {
 	const records: string[][] = [];
-	for await (const record of source) {
-		if (record.some((c) => c.trim() !== '')) records.push(record);
+	for await (const batch of source) {
+		for (const record of batch) if (record.some((c) => c.trim() !== '')) records.push(record);
 		if (records.length >= count) break;
 	}
 	await source.return(undefined);
-	return records;
+	return records.slice(0, count);
 }
 
 async function xlsxSettings(path: string, bytes: number) {
 	await checkXlsxArchive(path, bytes);
 	let records: string[][];
 	try {
-		records = await firstRecords(xlsxRecords(createReadStream(path)), 40);
+		records = await firstRecords(xlsxRecordBatches(createReadStream(path)), 40);
 	} catch {
 		throw new ImportError('malformed-xlsx', 'The spreadsheet is damaged and cannot be read.');
 	}
@@ -49,7 +49,7 @@ async function xlsxSettings(path: string, bytes: number) {
 
 async function csvSettings(path: string, sample: Uint8Array, bytes: number) {
 	const settings = detectText(sample, bytes <= sample.length);
-	const records = await firstRecords(csvRecords(createReadStream(path), settings), 40);
+	const records = await firstRecords(csvRecordBatches(createReadStream(path), settings), 40);
 	return { settings, records };
 }
 

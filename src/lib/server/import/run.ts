@@ -8,7 +8,7 @@ import { IMPORT_LIMITS } from './limits';
 import type { ColumnMapping, ImportOptions } from './mapping';
 import { tickProgress, type ProgressCounts } from './progress';
 import { RejectedRows } from './rejected';
-import { csvRecords, xlsxRecords } from './sources';
+import { csvRecordBatches, xlsxRecordBatches } from './sources';
 import type { SourceFormat } from './sniff';
 import { createRowValidator, labelKey } from './validateRow';
 import { connectionOf, insertReadings, readingParams } from './writer';
@@ -40,13 +40,15 @@ export interface ImportTally extends ProgressCounts {
 	smallCovers: number;
 }
 
-function records(job: ImportJob, tally: ImportTally): AsyncGenerator<string[]> {
+function recordBatches(job: ImportJob, tally: ImportTally): AsyncGenerator<string[][]> {
 	const counter = new PassThrough();
 	counter.on('data', (chunk: Buffer) => (tally.bytesRead += chunk.length));
 	const input = job.open();
 	input.on('error', (err) => counter.destroy(err));
 	input.pipe(counter);
-	return job.format === 'xlsx' ? xlsxRecords(counter) : csvRecords(counter, job.options);
+	return job.format === 'xlsx'
+		? xlsxRecordBatches(counter)
+		: csvRecordBatches(counter, job.options);
 }
 
 const isBlank = (cells: string[]) => cells.every((c) => c.trim() === '');
@@ -73,42 +75,46 @@ async function streamRows(job: ImportJob, transaction: Transaction, tally: Impor
 		inFlight = insertReadings(connection, rows).then(() => void (tally.rowsWritten += rows.length));
 		inFlight.catch(() => undefined); // awaited below; this only silences the early rejection
 	};
-	for await (const cells of records(job, tally)) {
-		const rowNumber = ++recordNumber;
-		if (isBlank(cells)) continue;
-		if (++index <= job.options.headerRowIndex) {
-			if (index === job.options.headerRowIndex) tally.headers = cells;
-			continue;
-		}
-		if (++tally.rowsRead > IMPORT_LIMITS.maxRows) {
-			throw new ImportError(
-				'too-many-rows',
-				`The file has more than ${IMPORT_LIMITS.maxRows} rows; split it.`
-			);
-		}
-		const result = validate(cells);
-		if (!result.ok) {
-			tally.rejected.add(rowNumber, result.code, result.reason, cells);
-		} else {
-			const earlier = duplicates.check(result.reading, rowNumber);
-			if (earlier !== undefined) {
-				tally.rejected.add(rowNumber, 'duplicate', `exact duplicate of row ${earlier}`, cells);
+	for await (const batch of recordBatches(job, tally))
+		for (const cells of batch) {
+			const rowNumber = ++recordNumber;
+			if (isBlank(cells)) continue;
+			if (++index <= job.options.headerRowIndex) {
+				if (index === job.options.headerRowIndex) tally.headers = cells;
+				continue;
+			}
+			if (++tally.rowsRead > IMPORT_LIMITS.maxRows) {
+				throw new ImportError(
+					'too-many-rows',
+					`The file has more than ${IMPORT_LIMITS.maxRows} rows; split it.`
+				);
+			}
+			const result = validate(cells);
+			if (!result.ok) {
+				tally.rejected.add(rowNumber, result.code, result.reason, cells);
 			} else {
-				if (result.reading.coverMm < 4) tally.smallCovers++;
-				if (!(rejectAll && tally.rejected.count > 0)) {
-					chunk.push(readingParams(result.reading, job.batchId, job.flags ?? 0));
-					if (chunk.length >= IMPORT_LIMITS.insertChunkRows) await flush();
+				const earlier = duplicates.check(result.reading, rowNumber);
+				if (earlier !== undefined) {
+					tally.rejected.add(rowNumber, 'duplicate', `exact duplicate of row ${earlier}`, cells);
+				} else {
+					if (result.reading.coverMm < 4) tally.smallCovers++;
+					if (!(rejectAll && tally.rejected.count > 0)) {
+						chunk.push(readingParams(result.reading, job.batchId, job.flags ?? 0));
+						if (chunk.length >= IMPORT_LIMITS.insertChunkRows) await flush();
+					}
+				}
+			}
+			tally.rowsRejected = tally.rejected.count;
+			if (
+				(tally.rowsRead & 1023) === 0 &&
+				Date.now() - lastTick > IMPORT_LIMITS.progressIntervalMs
+			) {
+				lastTick = Date.now();
+				if (await tickProgress(job.batchId, tally, connectionId)) {
+					throw new ImportError('cancelled', 'The import was cancelled; nothing was written.');
 				}
 			}
 		}
-		tally.rowsRejected = tally.rejected.count;
-		if ((tally.rowsRead & 1023) === 0 && Date.now() - lastTick > IMPORT_LIMITS.progressIntervalMs) {
-			lastTick = Date.now();
-			if (await tickProgress(job.batchId, tally, connectionId)) {
-				throw new ImportError('cancelled', 'The import was cancelled; nothing was written.');
-			}
-		}
-	}
 	await flush();
 	await inFlight;
 }

@@ -35,24 +35,63 @@ export function lineLengthGuard(maxLineBytes: number = IMPORT_LIMITS.maxLineByte
 	});
 }
 
-/** Decoded, parsed records of a delimited text file, streamed: never the whole file at once. */
-export async function* csvRecords(
+/**
+ * Decoded, parsed records of a delimited text file, streamed in batches: never the whole file
+ * at once. papaparse reads the Node stream itself and is paused while batches wait (its
+ * NODE_STREAM_INPUT duplex was measured 100× slower here: 12 k rows/s against 2 M).
+ */
+export async function* csvRecordBatches(
 	input: Readable,
-	settings: TextSettings
-): AsyncGenerator<string[]> {
+	settings: Pick<TextSettings, 'encoding' | 'delimiter'>
+): AsyncGenerator<string[][]> {
 	const decoder = iconv.decodeStream(settings.encoding === 'windows-1252' ? 'win1252' : 'utf8', {
 		stripBOM: true
 	});
-	const parser = Papa.parse(Papa.NODE_STREAM_INPUT, { delimiter: settings.delimiter });
+	const queue: string[][][] = [];
+	let finished = false;
+	let failure: unknown = null;
+	let wake: (() => void) | null = null;
+	let parser: Papa.Parser | null = null;
+	const notify = () => {
+		wake?.();
+		wake = null;
+	};
+	const fail = (err: unknown) => {
+		failure ??= err;
+		notify();
+	};
 	const guard = lineLengthGuard();
-	const fail = (err: Error) => parser.destroy(err);
-	input.on('error', fail);
-	guard.on('error', fail);
-	decoder.on('error', fail);
-	input.pipe(guard).pipe(decoder).pipe(parser);
+	for (const stream of [input, guard, decoder]) stream.on('error', fail);
+	const decoded = input.pipe(guard).pipe(decoder);
+	Papa.parse<string[]>(decoded as unknown as File, {
+		delimiter: settings.delimiter,
+		chunk(results, p) {
+			parser = p;
+			queue.push(results.data);
+			if (queue.length >= 4) p.pause();
+			notify();
+		},
+		complete() {
+			finished = true;
+			notify();
+		},
+		error: fail
+	});
 	try {
-		for await (const record of parser as AsyncIterable<string[]>) yield record;
+		for (;;) {
+			if (failure) throw failure;
+			const batch = queue.shift();
+			if (batch) {
+				if (queue.length < 2) (parser as Papa.Parser | null)?.resume();
+				yield batch;
+			} else if (finished) {
+				return;
+			} else {
+				await new Promise<void>((resolve) => (wake = resolve));
+			}
+		}
 	} finally {
+		(parser as Papa.Parser | null)?.abort();
 		input.destroy();
 	}
 }
@@ -71,7 +110,19 @@ function cellText(value: ExcelJS.CellValue): string {
 }
 
 /** Rows of the first worksheet of an XLSX file, streamed with exceljs' streaming reader. */
-export async function* xlsxRecords(input: Readable): AsyncGenerator<string[]> {
+export async function* xlsxRecordBatches(input: Readable): AsyncGenerator<string[][]> {
+	let batch: string[][] = [];
+	for await (const record of xlsxRecords(input)) {
+		batch.push(record);
+		if (batch.length >= 1000) {
+			yield batch;
+			batch = [];
+		}
+	}
+	if (batch.length) yield batch;
+}
+
+async function* xlsxRecords(input: Readable): AsyncGenerator<string[]> {
 	const reader = new ExcelJS.stream.xlsx.WorkbookReader(input, {
 		worksheets: 'emit',
 		sharedStrings: 'cache',
