@@ -9,16 +9,29 @@
 #
 # dev:  port $DB_PORT (3307), data in .local/mariadb,      settings in .env
 # test: port $TEST_DB_PORT (3308), data in .local/mariadb-test, settings in .env.test (throwaway)
+# primary, replica: the replication pair on 3311 and 3312 (scripts/replication.sh drives them;
+#       settings in .env.replication)
 set -euo pipefail
 . "$(dirname "$0")/lib.sh"
 
 action="${1:-start}"
 instance="${2:-dev}"
 
+PORT_KEY=DB_PORT
 case "$instance" in
 	dev) ENV_FILE="$ROOT/.env"; DATA_DIR="$LOCAL_DIR/mariadb"; DEFAULT_PORT="${DB_PORT:-3307}"; DEFAULT_NAME=fractile ;;
 	test) ENV_FILE="$ROOT/.env.test"; DATA_DIR="$LOCAL_DIR/mariadb-test"; DEFAULT_PORT="${TEST_DB_PORT:-3308}"; DEFAULT_NAME=fractile_test ;;
-	*) die "unknown instance '$instance' (dev or test)" ;;
+	fault)
+		# A throwaway instance that the fault tests stop and start under a running app.
+		ENV_FILE="$ROOT/.env.fault"; DATA_DIR="$LOCAL_DIR/mariadb-fault"; DEFAULT_PORT="${FAULT_DB_PORT:-3313}"
+		DEFAULT_NAME=fractile_fault
+		;;
+	primary | replica)
+		ENV_FILE="$ROOT/.env.replication"; DATA_DIR="$LOCAL_DIR/mariadb-$instance"
+		DEFAULT_PORT="${PRIMARY_DB_PORT:-3311}"; DEFAULT_NAME=fractile_replicated
+		[ "$instance" = replica ] && PORT_KEY=REPLICA_DB_PORT
+		;;
+	*) die "unknown instance '$instance' (dev, test, fault, primary or replica)" ;;
 esac
 
 SOCKET="$DATA_DIR/mysqld.sock"
@@ -31,7 +44,13 @@ write_env_defaults() {
 	env_default "$ENV_FILE" DB_NAME "$DEFAULT_NAME"
 	env_default "$ENV_FILE" DB_USER fractile
 	env_default "$ENV_FILE" DB_PASSWORD "$(random_secret 18)"
+	if [ "$ENV_FILE" = "$ROOT/.env.replication" ]; then
+		env_default "$ENV_FILE" REPLICA_DB_PORT "${REPLICA_DB_PORT:-3312}"
+		env_default "$ENV_FILE" DB_READ_REPLICAS "127.0.0.1:${REPLICA_DB_PORT:-3312}"
+		env_default "$ENV_FILE" REPLICATION_PASSWORD "$(random_secret 18)"
+	fi
 	load_env "$ENV_FILE"
+	LISTEN_PORT="${!PORT_KEY}"
 }
 
 admin() { mariadb-admin --no-defaults -S "$SOCKET" -uroot "$@"; }
@@ -45,7 +64,9 @@ running() {
 
 # The database and the application user, made to match the env file every time (idempotent).
 # The user may also create databases named after its own (DB_NAME_*), for tests of migrations.
+# A replica gets both through replication from its primary, so it is left alone.
 provision() {
+	[ "$instance" = replica ] && return 0
 	sql <<SQL
 CREATE DATABASE IF NOT EXISTS \`$DB_NAME\` CHARACTER SET utf8mb4 COLLATE utf8mb4_unicode_ci;
 CREATE USER IF NOT EXISTS '$DB_USER'@'127.0.0.1' IDENTIFIED BY '$DB_PASSWORD';
@@ -63,7 +84,7 @@ start() {
 	ensure_debian_package mariadbd mariadb-server mariadb-client
 	write_env_defaults
 	if running; then
-		say "MariaDB ($instance) already running on 127.0.0.1:$DB_PORT"
+		say "MariaDB ($instance) already running on 127.0.0.1:$LISTEN_PORT"
 		provision
 		return 0
 	fi
@@ -78,11 +99,11 @@ start() {
 			--auth-root-authentication-method=normal --skip-test-db >"$DATA_DIR/install.log" 2>&1 \
 			|| die "mariadb-install-db failed, see $DATA_DIR/install.log"
 	fi
-	say "starting MariaDB ($instance) on 127.0.0.1:$DB_PORT"
+	say "starting MariaDB ($instance) on 127.0.0.1:$LISTEN_PORT"
 	# utf8mb4 throughout (a --no-defaults server is latin1 otherwise); local_infile for the
 	# import benchmark's LOAD DATA comparison; a larger packet for batched inserts.
 	nohup mariadbd --no-defaults --datadir="$DATA_DIR" --socket="$SOCKET" --pid-file="$PID_FILE" \
-		--port="$DB_PORT" --bind-address=127.0.0.1 --user="$(id -un)" \
+		--port="$LISTEN_PORT" --bind-address=127.0.0.1 --user="$(id -un)" \
 		--character-set-server=utf8mb4 --collation-server=utf8mb4_unicode_ci \
 		--local-infile=1 --max-allowed-packet=256M --skip-name-resolve \
 		--innodb-buffer-pool-size="${DB_BUFFER_POOL:-512M}" --innodb-log-file-size=256M \

@@ -14,6 +14,7 @@ cleanup() {
 	local code=$?
 	if pid_alive "${APP_PID:-}"; then kill "$APP_PID" 2>/dev/null || true; wait "$APP_PID" 2>/dev/null || true; fi
 	bash scripts/services.sh stop test >/dev/null 2>&1 || true
+	bash scripts/replication.sh stop >/dev/null 2>&1 || true
 	exit "$code"
 }
 trap cleanup EXIT INT TERM
@@ -42,6 +43,9 @@ node --env-file="$ROOT/.env.test" build >"$LOCAL_DIR/app-test.log" 2>&1 &
 APP_PID=$!
 wait_for_port "$PORT" "the built app"
 export APP_URL="$ORIGIN"
+
+# The primary/replica pair for the test of several app processes (docs/scaling.md).
+bash scripts/replication.sh start
 
 say "integration tests (real MariaDB, the built app over HTTP)"
 npx vitest run --project integration

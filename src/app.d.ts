@@ -7,6 +7,9 @@ declare global {
 			message: string;
 			/** Quoted to the user so support can find the log line; no internals are shown. */
 			errorId?: string;
+			/** For /api answers: a stable machine-readable code and the offending field. */
+			code?: string;
+			field?: string;
 		}
 		interface Locals {
 			user: { id: number; email: string; displayName: string } | null;
@@ -16,6 +19,8 @@ declare global {
 			/** How the request proved who it is. */
 			authMethod: 'session' | 'token' | null;
 			requestId: string;
+			/** Set when a load or action found the database unreachable: the answer becomes a 503. */
+			databaseUnavailable?: boolean;
 		}
 		// interface PageData {}
 		// interface PageState {}

@@ -22,6 +22,7 @@ describe('GET /api/health', () => {
 			const body = await response.json();
 			expect(body.database.up).toBe(false);
 			expect(body.database.reason).toMatch(/refuses connections|did not answer|unavailable/);
+			expect(body.error.code).toBe('unavailable');
 			// No credentials or internals leak into the answer.
 			expect(JSON.stringify(body)).not.toContain(process.env.DB_PASSWORD!);
 			// The process is still up and serving other pages.

@@ -100,9 +100,8 @@ export interface Actor {
 
 /** The actor of a request, or 401 when nobody is signed in (routes redirect pages themselves). */
 export function requireActor(locals: App.Locals): Actor {
-	if (!locals.user || !locals.membership) {
-		error(401, 'Sign in to continue.');
-	}
+	if (!locals.user) error(401, 'Sign in to continue.');
+	if (!locals.membership) error(403, 'You are not a member of any organisation.');
 	return {
 		userId: locals.user.id,
 		organisationId: locals.membership.organisationId,

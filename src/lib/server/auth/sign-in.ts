@@ -1,0 +1,80 @@
+import type { RequestEvent } from '@sveltejs/kit';
+import { User } from '../db/models';
+import { recordAudit } from '../audit';
+import { hashPassword, verifyPassword } from './password';
+import { lucia } from './lucia';
+import { setCookie } from './resolve';
+import { clearFailures, lockedUntil, recordFailure, type ThrottleKey } from './throttle';
+import { lockedMessage } from './throttle-rules';
+
+/** One message for an unknown address and a wrong password, so neither can be told apart. */
+export const SIGN_IN_REFUSED = 'That e-mail address and password do not match an account.';
+
+export type SignInOutcome = { ok: true; user: User } | { ok: false; message: string };
+
+let dummyHash: Promise<string> | null = null;
+
+/**
+ * Checks a password with throttling per account and per address. For an unknown address we
+ * still verify against a dummy hash, so the answer takes as long as for a real account.
+ */
+export async function attemptSignIn(
+	email: string,
+	password: string,
+	address: string
+): Promise<SignInOutcome> {
+	const keys: ThrottleKey[] = [
+		{ scope: 'account', subject: email },
+		{ scope: 'address', subject: address }
+	];
+	const until = await lockedUntil(keys);
+	if (until) return { ok: false, message: lockedMessage(until) };
+	const user = await User.findOne({ where: { email } });
+	dummyHash ??= hashPassword('no account has this password');
+	const matches = await verifyPassword(user?.passwordHash ?? (await dummyHash), password);
+	if (!user || !user.passwordHash || !matches) {
+		await recordFailure(keys);
+		await recordAudit({
+			action: 'auth.sign_in_failed',
+			userId: user?.id,
+			ipAddress: address,
+			detail: { email }
+		});
+		return { ok: false, message: SIGN_IN_REFUSED };
+	}
+	await clearFailures(keys[0]);
+	await recordAudit({
+		action: 'auth.sign_in',
+		userId: user.id,
+		organisationId: user.activeOrganisationId,
+		ipAddress: address
+	});
+	return { ok: true, user };
+}
+
+/** Starts a session for the user on this device and sets its cookie. */
+export async function startSession(event: RequestEvent, userId: number): Promise<void> {
+	const auth = lucia();
+	const session = await auth.createSession(userId, {
+		userAgent: (event.request.headers.get('user-agent') ?? '').slice(0, 255) || null,
+		ipAddress: clientAddress(event)
+	});
+	setCookie(event, auth.createSessionCookie(session.id));
+}
+
+/** Ends this device's session (or all of the user's) and clears the cookie. */
+export async function endSessions(event: RequestEvent, everywhere: boolean): Promise<void> {
+	const auth = lucia();
+	if (everywhere && event.locals.user) await auth.invalidateUserSessions(event.locals.user.id);
+	else if (event.locals.session) await auth.invalidateSession(event.locals.session.id);
+	setCookie(event, auth.createBlankSessionCookie());
+}
+
+/** The caller's address; behind a proxy adapter-node reads it from ADDRESS_HEADER. */
+export function clientAddress(event: Pick<RequestEvent, 'getClientAddress'>): string {
+	try {
+		return event.getClientAddress().slice(0, 45);
+	} catch {
+		return 'unknown';
+	}
+}

@@ -1,0 +1,2 @@
+export { queueMail, type OutgoingMail } from './queue';
+export { appLink } from './config';

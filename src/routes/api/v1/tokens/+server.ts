@@ -1,0 +1,22 @@
+import { json } from '@sveltejs/kit';
+import type { RequestHandler } from './$types';
+import { authorize } from '$lib/server/policy';
+import { readJson } from '$lib/server/http';
+import { listApiTokens } from '$lib/server/auth/api-tokens';
+import { createTokenSchema } from '$lib/server/auth/token-schemas';
+import { createTokenFor } from '$lib/server/auth/token-actions';
+import { clientAddress } from '$lib/server/auth/sign-in';
+
+/** The caller's own tokens (never their secrets). */
+export const GET: RequestHandler = async ({ locals }) => {
+	const actor = authorize(locals, 'token:manage');
+	return json({ tokens: await listApiTokens(actor.userId) });
+};
+
+/** A new token; its secret is in this answer and nowhere else, ever. */
+export const POST: RequestHandler = async (event) => {
+	const actor = authorize(event.locals, 'token:manage');
+	const input = await readJson(event.request, createTokenSchema);
+	const { token, secret } = await createTokenFor(actor, input, clientAddress(event));
+	return json({ token, secret }, { status: 201 });
+};

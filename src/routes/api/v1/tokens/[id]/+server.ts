@@ -1,0 +1,17 @@
+import { json } from '@sveltejs/kit';
+import type { RequestHandler } from './$types';
+import { authorize } from '$lib/server/policy';
+import { apiError } from '$lib/server/http';
+import { idParamSchema } from '$lib/server/auth/token-schemas';
+import { revokeTokenOf } from '$lib/server/auth/token-actions';
+import { clientAddress } from '$lib/server/auth/sign-in';
+
+/** Revokes one of the caller's tokens; anyone else's is "not found", never "forbidden". */
+export const DELETE: RequestHandler = async (event) => {
+	const actor = authorize(event.locals, 'token:manage');
+	const id = idParamSchema.safeParse(event.params.id);
+	if (!id.success) apiError(404, 'not_found', 'No such token.');
+	const revoked = await revokeTokenOf(actor, id.data, clientAddress(event));
+	if (!revoked) apiError(404, 'not_found', 'No such token.');
+	return json({ token: revoked });
+};
