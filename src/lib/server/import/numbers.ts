@@ -17,9 +17,9 @@ export function parseDecimal(raw: string, mark: DecimalMark): number | null | Nu
 	if (text === '') return null;
 	let normal = text;
 	if (mark === ',') {
-		if (HAS_DOT_DECIMAL.test(text)) return 'wrong-decimal-mark';
+		if (text.includes('.') && HAS_DOT_DECIMAL.test(text)) return 'wrong-decimal-mark';
 		normal = text.replace(',', '.');
-	} else if (HAS_COMMA_DECIMAL.test(text)) {
+	} else if (text.includes(',') && HAS_COMMA_DECIMAL.test(text)) {
 		return 'wrong-decimal-mark';
 	}
 	if (!PLAIN_NUMBER.test(normal)) return 'not-a-number';

@@ -51,7 +51,11 @@ function recordBatches(job: ImportJob, tally: ImportTally): AsyncGenerator<strin
 		: csvRecordBatches(counter, job.options);
 }
 
-const isBlank = (cells: string[]) => cells.every((c) => c.trim() === '');
+function isBlank(cells: string[]): boolean {
+	for (let i = 0; i < cells.length; i++)
+		if (cells[i] !== '' && cells[i].trim() !== '') return false;
+	return true;
+}
 
 /**
  * Streams the file through validation into the readings table inside `transaction`, with one

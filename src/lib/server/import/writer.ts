@@ -16,15 +16,23 @@ export function connectionOf(transaction: Transaction): Connection {
 	return connection;
 }
 
+/**
+ * Lengths go as decimal text (the shortest exact form of the double, so the server parses the
+ * same value back): the connector's bulk protocol sends one parameter type per packet and starts
+ * a new packet whenever a number switches between integer and fractional (30 vs 30.5), which
+ * cut the insert rate about fivefold on real covers.
+ */
+const asText = (mm: number | null) => (mm === null ? null : String(mm));
+
 export function readingParams(r: ValidReading, batchId: number, flags: number): unknown[] {
 	return [
 		r.memberId,
 		batchId,
-		r.xMm,
-		r.yMm,
-		r.coverMm,
-		r.barDiameterMm,
-		r.barSpacingMm,
+		asText(r.xMm),
+		asText(r.yMm),
+		asText(r.coverMm),
+		asText(r.barDiameterMm),
+		asText(r.barSpacingMm),
 		r.barDirection,
 		flags,
 		r.note
