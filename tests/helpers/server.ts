@@ -39,6 +39,7 @@ export async function startBuiltApp(overrides: Record<string, string>) {
 	}
 	return {
 		origin,
+		pid: child.pid,
 		output: () => output,
 		async stop() {
 			if (child.exitCode === null) {

@@ -61,5 +61,7 @@ export async function saveManualReadings(
 		options,
 		flags: READING_FLAGS.manual
 	});
-	return { batchId: batch.id, ...outcome };
+	// Row numbers count the header line the grid's rows were written under: say grid rows.
+	const message = outcome.message.replace(/\bRow (\d+)/g, (_m, n) => `Grid row ${Number(n) - 1}`);
+	return { batchId: batch.id, ...outcome, message };
 }
