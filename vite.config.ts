@@ -29,6 +29,16 @@ export default defineConfig({
 				}
 			},
 			{
+				// `npm run bench:pages`: not part of `npm test`.
+				extends: true,
+				test: {
+					name: 'bench-pages',
+					include: ['tests/bench/pages.bench.ts'],
+					environment: 'node',
+					testTimeout: 600_000
+				}
+			},
+			{
 				extends: true,
 				test: {
 					name: 'browser',

@@ -1,9 +1,11 @@
-import type { Handle, HandleServerError } from '@sveltejs/kit';
+import { json, type Handle, type HandleServerError, type ServerInit } from '@sveltejs/kit';
 import { randomUUID } from 'node:crypto';
 import { closeDb, db } from '$lib/server/db';
 import { databaseUnavailableResponse, isDatabaseUnavailable } from '$lib/server/db/unavailable';
 import { resolveAuth } from '$lib/server/auth/resolve';
 import { toApiErrorResponse } from '$lib/server/http';
+import { lockedMessage } from '$lib/server/auth/throttle-rules';
+import { startAuthHousekeeping, stopAuthHousekeeping } from '$lib/server/auth/housekeeping';
 import { startMailRetryLoop, stopMailRetryLoop } from '$lib/server/mail/retry';
 
 const SECURITY_HEADERS: Record<string, string> = {
@@ -14,10 +16,16 @@ const SECURITY_HEADERS: Record<string, string> = {
 	'cross-origin-opener-policy': 'same-origin'
 };
 
-// Bind the models to the one Sequelize instance before the first request, whatever route it
-// asks for (connecting waits for the first query).
-db();
-startMailRetryLoop();
+/**
+ * Once per process, before the first request: bind the models to the one Sequelize instance
+ * (model calls made before `db()` would fail), start the mail retry loop and the hourly sweep
+ * of expired sessions and stale throttle counters.
+ */
+export const init: ServerInit = () => {
+	db();
+	startMailRetryLoop();
+	startAuthHousekeeping();
+};
 
 export const handle: Handle = async ({ event, resolve }) => {
 	event.locals.requestId = randomUUID();
@@ -25,13 +33,14 @@ export const handle: Handle = async ({ event, resolve }) => {
 	event.locals.session = null;
 	event.locals.membership = null;
 	event.locals.authMethod = null;
+	let throttledUntil: Date | null = null;
 	try {
-		await resolveAuth(event);
+		({ throttledUntil } = await resolveAuth(event));
 	} catch (err) {
 		if (isDatabaseUnavailable(err)) return databaseUnavailableResponse(event.url.pathname);
 		throw err;
 	}
-	let response = await resolve(event);
+	let response = throttledUntil ? tooManyTokenGuesses(throttledUntil) : await resolve(event);
 	// A load or action met a database that is down (handleError marked it): say so plainly.
 	if (event.locals.databaseUnavailable) return databaseUnavailableResponse(event.url.pathname);
 	// Every failed /api answer leaves in one shape, { error: { code, message, field? } } (http.ts).
@@ -45,6 +54,19 @@ export const handle: Handle = async ({ event, resolve }) => {
 	}
 	return response;
 };
+
+function tooManyTokenGuesses(until: Date): Response {
+	const retryAfterSeconds = Math.max(1, Math.ceil((until.getTime() - Date.now()) / 1000));
+	return json(
+		{
+			error: {
+				code: 'too_many_requests',
+				message: lockedMessage(until).replace('sign-ins', 'token attempts')
+			}
+		},
+		{ status: 429, headers: { 'retry-after': String(retryAfterSeconds) } }
+	);
+}
 
 /** Unexpected errors: logged with an id, shown without internals (no SQL or stack). */
 export const handleError: HandleServerError = ({ error, event, status, message }) => {
@@ -65,5 +87,6 @@ export const handleError: HandleServerError = ({ error, event, status, message }
 // adapter-node emits this on SIGTERM/SIGINT; closing the pool lets the process end promptly.
 process.on('sveltekit:shutdown', () => {
 	stopMailRetryLoop();
+	stopAuthHousekeeping();
 	void closeDb();
 });

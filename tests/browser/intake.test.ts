@@ -58,7 +58,7 @@ describe('intake pages in chromium (the built app)', () => {
 		const actor = await actorFor(DEMO_USERS.surveyor);
 		const { members } = await freshSurvey(actor);
 		await page.setViewportSize({ width: 820, height: 1100 });
-		await page.goto(`${appUrl()}/members/${members[0].id}`, { waitUntil: 'networkidle' });
+		await page.goto(`${appUrl()}/members/${members[0].id}/entry`, { waitUntil: 'networkidle' });
 		await page.fill('#cell-0-2', '31.5');
 		await page.keyboard.press('Enter');
 		await page.keyboard.type('abc');

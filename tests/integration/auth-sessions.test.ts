@@ -1,3 +1,4 @@
+import { createHash } from 'node:crypto';
 import { describe, expect, it } from 'vitest';
 import { QueryTypes } from 'sequelize';
 import {
@@ -23,6 +24,18 @@ describe('sign-in', () => {
 		const header = response.headers.getSetCookie().find((c) => c.startsWith('fractile_session='));
 		expect(header).toMatch(/HttpOnly/i);
 		expect(header).toMatch(/SameSite=Lax/i);
+		// Stored as its sha256 only: the sessions table is no list of usable cookies.
+		const value = header!.split(';')[0].split('=')[1];
+		const db = testSequelize();
+		const rows = await db.query<{ id: string }>(
+			'SELECT id FROM sessions WHERE id = ? OR id = SHA2(?, 256)',
+			{
+				replacements: [value, value],
+				type: QueryTypes.SELECT
+			}
+		);
+		await db.close();
+		expect(rows.map((r) => r.id)).toEqual([createHash('sha256').update(value).digest('hex')]);
 	});
 
 	it('gives the same message for an unknown address and a wrong password, and keeps the address', async () => {

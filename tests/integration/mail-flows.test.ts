@@ -116,3 +116,16 @@ describe('password reset by e-mail, end to end through the SMTP fake', () => {
 		expect(await mailsTo(email)).toHaveLength(0);
 	});
 });
+
+describe('the development outbox', () => {
+	it('shows admins what the SMTP fake received, and nobody else', async () => {
+		const admin = await signInAs('admin');
+		const email = uniqueEmail('outbox');
+		await admin.postForm('/organisation/members?/invite', { email, role: 'researcher' });
+		await waitForMail(email);
+		const page = await admin.get('/dev/outbox');
+		expect(page.status).toBe(200);
+		expect(await page.text()).toContain(`To ${email}`);
+		expect((await (await signInAs('surveyor')).get('/dev/outbox')).status).toBe(403);
+	});
+});

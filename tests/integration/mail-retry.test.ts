@@ -4,21 +4,28 @@ import { SMTPServer } from 'smtp-server';
 import { freePort, startBuiltApp } from '../helpers/server';
 import { httpClient } from '../helpers/session';
 import { signUpNewOrganisation, uniqueEmail } from '../helpers/accounts';
-import { testSequelize } from '../helpers/database';
+import { scratchDatabase } from '../helpers/database';
+import { createMigrator } from '../../src/lib/server/db/migrator';
 
 /**
  * A copy of the app whose SMTP relay is down: mail is kept and retried, the admin sees it
- * failing, and once a relay answers on that port the retry loop delivers it.
+ * failing, and once a relay answers on that port the retry loop delivers it, once.
+ * The copy runs on a scratch database of its own, so the shared app's retry loop (which would
+ * send through the usual fake) cannot reach this outbox.
  */
 let app: Awaited<ReturnType<typeof startBuiltApp>>;
 let relayPort: number;
+let scratch: Awaited<ReturnType<typeof scratchDatabase>>;
 let db: Sequelize;
 let relay: SMTPServer | null = null;
 
 beforeAll(async () => {
 	relayPort = await freePort();
-	db = testSequelize();
+	scratch = await scratchDatabase('mail_retry');
+	db = scratch.sequelize;
+	await createMigrator(db).up();
 	app = await startBuiltApp({
+		DB_NAME: `${process.env.DB_NAME}_mail_retry`,
 		SMTP_PORT: String(relayPort),
 		MAIL_RETRY_INTERVAL_MS: '200',
 		MAIL_RETRY_FIRST_DELAY_MS: '200'
@@ -27,7 +34,7 @@ beforeAll(async () => {
 afterAll(async () => {
 	await app?.stop();
 	relay?.close();
-	await db.close();
+	await scratch?.drop();
 });
 
 async function outboxRow(to: string) {
@@ -87,6 +94,7 @@ describe('mail when the relay is down', () => {
 			return row?.state === 'sent' && row;
 		});
 		expect(sent.state).toBe('sent');
+		await new Promise((r) => setTimeout(r, 500));
 		expect(received.filter((m) => m.includes(email))).toHaveLength(1);
 	});
 });

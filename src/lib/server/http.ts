@@ -64,7 +64,8 @@ export async function toApiErrorResponse(response: Response): Promise<Response> 
 	if (response.status < 400) return response;
 	const text = await response.text();
 	const parsed = parseJson(text);
-	if (parsed && typeof parsed === 'object' && 'error' in parsed) {
+	if (parsed !== null && !isKitErrorBody(parsed)) {
+		// Already ours, or a route's own deliberate body (/api/health's 503 report).
 		return new Response(text, { status: response.status, headers: response.headers });
 	}
 	const kitBody = (parsed ?? {}) as {
@@ -85,6 +86,17 @@ export async function toApiErrorResponse(response: Response): Promise<Response> 
 	headers.delete('content-length');
 	headers.set('content-type', 'application/json');
 	return json(body, { status: response.status, headers });
+}
+
+/** SvelteKit's error JSON is App.Error: `message` and our optional extras, nothing else. */
+const KIT_ERROR_KEYS = new Set(['message', 'code', 'field', 'errorId']);
+function isKitErrorBody(body: unknown): boolean {
+	return (
+		typeof body === 'object' &&
+		body !== null &&
+		'message' in body &&
+		Object.keys(body).every((key) => KIT_ERROR_KEYS.has(key))
+	);
 }
 
 function parseJson(text: string): unknown {

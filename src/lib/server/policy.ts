@@ -23,6 +23,7 @@ export const ACTIONS = [
 	'hole:write',
 	'attachment:upload',
 	'attachment:read',
+	'population:read',
 	'assessment:read',
 	'assessment:write',
 	'assessment:approve',
@@ -57,6 +58,7 @@ const engineer: Action[] = [
 	'hole:write',
 	'attachment:upload',
 	'attachment:read',
+	'population:read',
 	'assessment:read',
 	'assessment:write',
 	'assessment:approve',
@@ -81,6 +83,8 @@ export const PERMISSIONS: Record<Role, ReadonlySet<Action>> = {
 		'hole:write',
 		'attachment:upload',
 		'attachment:read',
+		// Live population figures, to check a survey before handing it over; no sign-off.
+		'population:read',
 		'token:manage'
 	]),
 	owner: new Set<Action>([...everyone, 'asset:read', 'assessment:read', 'report:read']),

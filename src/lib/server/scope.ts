@@ -1,3 +1,4 @@
+import { error } from '@sveltejs/kit';
 import { Op, type Transaction, type WhereOptions } from 'sequelize';
 import { Asset, AssetShare, ImportBatch, Member, Survey } from './db/models';
 import { NotFoundError, ReadOnlyError } from './domainErrors';
@@ -77,4 +78,16 @@ export async function scopedImportBatch(actor: Actor, batchId: number, access: A
 		throw err instanceof NotFoundError ? new NotFoundError('The import') : err;
 	});
 	return { batch, survey, asset };
+}
+
+/**
+ * A record of the actor's organisation, or 404. Another organisation's record is "not found",
+ * never "forbidden", so that ids reveal nothing. Use after `authorize` in every route with an id.
+ */
+export function ownRecord<T extends { organisationId: number }>(
+	record: T | null | undefined,
+	actor: Actor
+): T {
+	if (!record || record.organisationId !== actor.organisationId) error(404, 'Not found.');
+	return record;
 }

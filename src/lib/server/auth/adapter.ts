@@ -1,10 +1,20 @@
 import { Op } from 'sequelize';
 import type { Adapter, DatabaseSession, DatabaseUser } from 'lucia';
 import { Session, User } from '../db/models';
+import { hashSecret } from './secrets';
+
+/**
+ * The key a session is stored under: the sha256 of the cookie's value, so that someone who
+ * reads the sessions table (a backup, a replica) cannot use its rows as cookies.
+ */
+export function storedSessionId(sessionId: string): string {
+	return hashSecret(sessionId);
+}
 
 /**
  * Lucia's storage over our own Sequelize models (lucia v3 leaves storage to the app).
- * Sessions live in MariaDB, so several app processes can share them (issue 9).
+ * Sessions live in MariaDB, so several app processes can share them (issue 9). Lucia hands us
+ * the cookie's value; we hash it on the way in and never store it.
  */
 export class SequelizeSessionAdapter implements Adapter {
 	async getSessionAndUser(
@@ -12,12 +22,17 @@ export class SequelizeSessionAdapter implements Adapter {
 	): Promise<[session: DatabaseSession | null, user: DatabaseUser | null]> {
 		// From the primary: a session written a moment ago by another app process must be seen at
 		// once, before a replica has caught up (read-your-own-writes; docs/scaling.md).
-		const row = await Session.findByPk(sessionId, { include: [User], useMaster: true });
+		const row = await Session.findByPk(storedSessionId(sessionId), {
+			include: [User],
+			useMaster: true
+		});
 		if (!row) return [null, null];
 		const user = (row as Session & { User?: User }).User ?? null;
-		return [toDatabaseSession(row), user ? toDatabaseUser(user) : null];
+		// Lucia compares and refreshes by the id it was given, so hand back the cookie's value.
+		return [{ ...toDatabaseSession(row), id: sessionId }, user ? toDatabaseUser(user) : null];
 	}
 
+	/** Ids here are the stored hashes: lucia only lists them, we never turn them into cookies. */
 	async getUserSessions(userId: number): Promise<DatabaseSession[]> {
 		const rows = await Session.findAll({ where: { userId } });
 		return rows.map(toDatabaseSession);
@@ -25,7 +40,7 @@ export class SequelizeSessionAdapter implements Adapter {
 
 	async setSession(session: DatabaseSession): Promise<void> {
 		await Session.create({
-			id: session.id,
+			id: storedSessionId(session.id),
 			userId: session.userId,
 			expiresAt: session.expiresAt,
 			userAgent: session.attributes.userAgent,
@@ -35,11 +50,11 @@ export class SequelizeSessionAdapter implements Adapter {
 	}
 
 	async updateSessionExpiration(sessionId: string, expiresAt: Date): Promise<void> {
-		await Session.update({ expiresAt }, { where: { id: sessionId } });
+		await Session.update({ expiresAt }, { where: { id: storedSessionId(sessionId) } });
 	}
 
 	async deleteSession(sessionId: string): Promise<void> {
-		await Session.destroy({ where: { id: sessionId } });
+		await Session.destroy({ where: { id: storedSessionId(sessionId) } });
 	}
 
 	async deleteUserSessions(userId: number): Promise<void> {

@@ -1,9 +1,10 @@
 import { Session } from '../db/models';
 import { hashSecret } from './secrets';
+import { storedSessionId } from './adapter';
 
 /**
- * A signed-in device as the account page shows it. The session id is the cookie's secret, so
- * pages name a session by a handle derived from it, never by the id itself.
+ * A signed-in device as the account page shows it. Pages name a session by a short handle
+ * derived from its stored key, never by the key itself.
  */
 export interface Device {
 	handle: string;
@@ -14,8 +15,8 @@ export interface Device {
 	current: boolean;
 }
 
-export function sessionHandle(sessionId: string): string {
-	return hashSecret(`session:${sessionId}`).slice(0, 24);
+export function sessionHandle(storedId: string): string {
+	return hashSecret(`session:${storedId}`).slice(0, 24);
 }
 
 export async function listDevices(
@@ -23,13 +24,14 @@ export async function listDevices(
 	currentSessionId: string | null
 ): Promise<Device[]> {
 	const rows = await Session.findAll({ where: { userId }, order: [['createdAt', 'DESC']] });
+	const current = currentSessionId ? storedSessionId(currentSessionId) : null;
 	return rows.map((row) => ({
 		handle: sessionHandle(row.id),
 		userAgent: row.userAgent,
 		ipAddress: row.ipAddress,
 		createdAt: row.createdAt,
 		expiresAt: row.expiresAt,
-		current: row.id === currentSessionId
+		current: row.id === current
 	}));
 }
 

@@ -3,6 +3,7 @@ import { Session, User } from '../db/models';
 import { Op } from 'sequelize';
 import { recordAudit } from '../audit';
 import { hashPassword, verifyPassword } from './password';
+import { storedSessionId } from './adapter';
 
 /**
  * Changes a password after checking the current one, and signs out every other device: whoever
@@ -22,7 +23,10 @@ export async function changePassword(input: {
 	await db().transaction(async (transaction) => {
 		await user.update({ passwordHash }, { transaction });
 		await Session.destroy({
-			where: { userId: user.id, id: { [Op.ne]: input.currentSessionId ?? '' } },
+			where: {
+				userId: user.id,
+				id: { [Op.ne]: input.currentSessionId ? storedSessionId(input.currentSessionId) : '' }
+			},
 			transaction
 		});
 		await recordAudit({ action: 'auth.password_changed', userId: user.id }, transaction);

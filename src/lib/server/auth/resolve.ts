@@ -1,22 +1,24 @@
 import type { RequestEvent } from '@sveltejs/kit';
-import type { Cookie } from 'lucia';
 import { User } from '../db/models';
 import { lucia } from './lucia';
 import { activeMembership, membershipIn } from './membership';
 import { verifyApiToken } from './api-tokens';
+import { lockedUntil, recordFailure } from './throttle';
+import { clientAddress, setCookie } from './request';
 
 /**
  * Works out who is asking and fills event.locals: a bearer token on /api routes, else the
  * session cookie. A bad or revoked token leaves the request anonymous (the route then answers
  * 401); it never falls back to the cookie, so a script cannot borrow a browser's session.
  */
-export async function resolveAuth(event: RequestEvent): Promise<void> {
+export async function resolveAuth(event: RequestEvent): Promise<{ throttledUntil: Date | null }> {
 	const bearer = readBearer(event);
-	if (bearer !== null) {
-		if (event.url.pathname.startsWith('/api/')) await resolveToken(event, bearer);
-		return;
+	if (bearer === null) {
+		await resolveSession(event);
+	} else if (event.url.pathname.startsWith('/api/')) {
+		return { throttledUntil: await resolveToken(event, bearer) };
 	}
-	await resolveSession(event);
+	return { throttledUntil: null };
 }
 
 function readBearer(event: RequestEvent): string | null {
@@ -26,15 +28,26 @@ function readBearer(event: RequestEvent): string | null {
 	return match ? match[1] : '';
 }
 
-async function resolveToken(event: RequestEvent, secret: string): Promise<void> {
+/**
+ * Guessing tokens is throttled per address like guessing passwords; returns the lock's end
+ * when one is in force (the hook then answers 429 without looking at the token).
+ */
+async function resolveToken(event: RequestEvent, secret: string): Promise<Date | null> {
+	const key = { scope: 'token' as const, subject: clientAddress(event) };
+	const until = await lockedUntil([key]);
+	if (until) return until;
 	const token = await verifyApiToken(secret);
-	if (!token) return;
+	if (!token) {
+		await recordFailure([key]);
+		return null;
+	}
 	const membership = await membershipIn(token.userId, token.organisationId);
 	const user = await User.findByPk(token.userId);
-	if (!membership || !user) return;
+	if (!membership || !user) return null;
 	event.locals.user = { id: user.id, email: user.email, displayName: user.displayName };
 	event.locals.membership = membership;
 	event.locals.authMethod = 'token';
+	return null;
 }
 
 async function resolveSession(event: RequestEvent): Promise<void> {
@@ -53,8 +66,4 @@ async function resolveSession(event: RequestEvent): Promise<void> {
 	event.locals.session = { id: session.id, expiresAt: session.expiresAt, fresh: session.fresh };
 	event.locals.membership = await activeMembership(user.id, row?.activeOrganisationId ?? null);
 	event.locals.authMethod = 'session';
-}
-
-export function setCookie(event: Pick<RequestEvent, 'cookies'>, cookie: Cookie): void {
-	event.cookies.set(cookie.name, cookie.value, { path: '/', ...cookie.attributes });
 }

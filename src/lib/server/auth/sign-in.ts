@@ -3,9 +3,11 @@ import { User } from '../db/models';
 import { recordAudit } from '../audit';
 import { hashPassword, verifyPassword } from './password';
 import { lucia } from './lucia';
-import { setCookie } from './resolve';
+import { clientAddress, setCookie } from './request';
 import { clearFailures, lockedUntil, recordFailure, type ThrottleKey } from './throttle';
 import { lockedMessage } from './throttle-rules';
+
+export { clientAddress };
 
 /** One message for an unknown address and a wrong password, so neither can be told apart. */
 export const SIGN_IN_REFUSED = 'That e-mail address and password do not match an account.';
@@ -37,6 +39,8 @@ export async function attemptSignIn(
 		await recordAudit({
 			action: 'auth.sign_in_failed',
 			userId: user?.id,
+			// So the account's organisation sees attempts on it in its audit log.
+			organisationId: user?.activeOrganisationId,
 			ipAddress: address,
 			detail: { email }
 		});
@@ -68,13 +72,4 @@ export async function endSessions(event: RequestEvent, everywhere: boolean): Pro
 	if (everywhere && event.locals.user) await auth.invalidateUserSessions(event.locals.user.id);
 	else if (event.locals.session) await auth.invalidateSession(event.locals.session.id);
 	setCookie(event, auth.createBlankSessionCookie());
-}
-
-/** The caller's address; behind a proxy adapter-node reads it from ADDRESS_HEADER. */
-export function clientAddress(event: Pick<RequestEvent, 'getClientAddress'>): string {
-	try {
-		return event.getClientAddress().slice(0, 45);
-	} catch {
-		return 'unknown';
-	}
 }

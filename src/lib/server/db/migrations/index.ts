@@ -2,11 +2,19 @@ import { accounts } from './001-accounts';
 import { surveys } from './002-surveys';
 import { readings } from './003-readings';
 import { assessments } from './004-assessments';
-import { intakeProgress } from './005-intake-progress';
+import { assessmentFreeze } from './005-assessment-freeze';
+import { intakeProgress } from './006-intake-progress';
 import type { Migration } from './types';
 
 /**
  * Every migration, in order. Listed by hand rather than found by a glob so Vite can bundle them
  * into the server build (STACK.md pitfall 8). A new migration is a new file plus a line here.
  */
-export const migrations: Migration[] = [accounts, surveys, readings, assessments, intakeProgress];
+export const migrations: Migration[] = [
+	accounts,
+	surveys,
+	readings,
+	assessments,
+	assessmentFreeze,
+	intakeProgress
+];

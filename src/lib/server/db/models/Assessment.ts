@@ -57,7 +57,26 @@ export class Assessment extends Model<
 				supersededReason: { type: DataTypes.TEXT, allowNull: true },
 				createdAt: DataTypes.DATE
 			},
-			{ sequelize, tableName: 'assessments', updatedAt: false }
+			{
+				sequelize,
+				tableName: 'assessments',
+				updatedAt: false,
+				hooks: {
+					// An approved snapshot stays as signed (migration 005's trigger is the last line).
+					beforeUpdate(assessment) {
+						const before = assessment.previous('state') ?? assessment.state;
+						const frozen = ['snapshot', 'snapshotSha256', 'engineVersion'] as const;
+						if (before !== 'draft' && frozen.some((field) => assessment.changed(field))) {
+							throw new Error('An approved assessment snapshot cannot be changed.');
+						}
+					},
+					beforeDestroy(assessment) {
+						if (assessment.state !== 'draft') {
+							throw new Error('An approved assessment cannot be deleted.');
+						}
+					}
+				}
+			}
 		);
 	}
 }

@@ -7,7 +7,7 @@ import {
 	type Sequelize
 } from 'sequelize';
 
-/** Live progress of a running import (see migration 005 for why it is a table of its own). */
+/** Live progress of a running import (see migration 006 for why it is a table of its own). */
 export class ImportProgress extends Model<
 	InferAttributes<ImportProgress>,
 	InferCreationAttributes<ImportProgress>

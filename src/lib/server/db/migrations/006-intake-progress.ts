@@ -10,7 +10,7 @@ import type { Migration } from './types';
  * rows, so the importer and any app process can read and write it while the import runs.
  */
 export const intakeProgress: Migration = {
-	name: '005-intake-progress',
+	name: '006-intake-progress',
 	async up({ context: qi }) {
 		await qi.createTable(
 			'import_progress',

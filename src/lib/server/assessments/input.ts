@@ -1,0 +1,39 @@
+/** What a client sends to save an assessment, checked with zod. */
+import { readJson } from '$lib/server/http';
+import { z } from 'zod';
+import { methodSchema, SPLITS } from '$lib/server/populations';
+
+export const saveSchema = z.object({
+	title: z
+		.string()
+		.trim()
+		.min(3, 'Give the assessment a title of at least 3 characters.')
+		.max(160, 'The title is at most 160 characters.'),
+	survey: z.number().int().positive().nullable().default(null),
+	split: z.enum(SPLITS).default('none'),
+	methods: methodSchema.default(methodSchema.parse({})),
+	recommendations: z
+		.string()
+		.trim()
+		.max(20_000, 'Recommendations are at most 20,000 characters.')
+		.nullable()
+		.default(null),
+	supersedes: z
+		.object({
+			id: z.number().int().positive(),
+			reason: z
+				.string()
+				.trim()
+				.min(10, 'Say in at least 10 characters why the approved assessment is replaced.')
+				.max(2000, 'The reason is at most 2,000 characters.')
+		})
+		.nullable()
+		.default(null)
+});
+
+export type SaveBody = z.infer<typeof saveSchema>;
+
+/** Parse a JSON body; not JSON or not the schema is a 400 naming the field (http.ts). */
+export function readSaveBody(request: Request): Promise<SaveBody> {
+	return readJson(request, saveSchema);
+}

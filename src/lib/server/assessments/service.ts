@@ -1,0 +1,141 @@
+/**
+ * Assessment sign-off: save a draft (a computed snapshot), approve it, supersede an approved
+ * one with a stated reason, read the history. Each change is one transaction with its audit
+ * event. An approved or superseded snapshot is never rewritten.
+ */
+import { error } from '@sveltejs/kit';
+import { db, Assessment } from '$lib/server/db';
+import { recordAudit } from '$lib/server/audit';
+import { can, type Actor } from '$lib/server/policy';
+import { ownAsset, visibleAsset, visibleSurvey } from '$lib/server/populations';
+import type { MethodChoice, Split } from '$lib/server/populations';
+import { buildSnapshot, serialiseSnapshot, sha256Hex } from './snapshot';
+
+export interface SaveInput {
+	assetId: number;
+	title: string;
+	surveyId: number | null;
+	split: Split;
+	methods: MethodChoice;
+	recommendations: string | null;
+	/** An approved assessment this one is to replace, with the reason. */
+	supersedes?: { id: number; reason: string } | null;
+}
+
+async function checkSupersedable(assetId: number, id: number) {
+	const old = await Assessment.findOne({ where: { id, assetId } });
+	if (!old) error(404, 'No such assessment to supersede.');
+	if (old.state !== 'approved') {
+		error(409, 'Only an approved assessment can be superseded, and only once.');
+	}
+}
+
+/** Compute the populations now and keep them as a draft assessment. */
+export async function saveDraft(actor: Actor, input: SaveInput): Promise<Assessment> {
+	const asset = await ownAsset(actor, input.assetId);
+	if (input.surveyId) await visibleSurvey(actor, asset.id, input.surveyId);
+	if (input.supersedes) await checkSupersedable(asset.id, input.supersedes.id);
+	const snapshot = await buildSnapshot(
+		asset,
+		{ surveyId: input.surveyId, split: input.split },
+		input.methods
+	);
+	const { text, sha256 } = serialiseSnapshot(snapshot);
+	return db().transaction(async (transaction) => {
+		const created = await Assessment.create(
+			{
+				assetId: asset.id,
+				surveyId: input.surveyId,
+				title: input.title,
+				snapshot: text,
+				snapshotSha256: sha256,
+				engineVersion: snapshot.engineVersion,
+				recommendations: input.recommendations,
+				createdByUserId: actor.userId,
+				supersedesId: input.supersedes?.id ?? null,
+				supersededReason: input.supersedes?.reason ?? null
+			},
+			{ transaction }
+		);
+		await recordAudit(
+			{
+				action: 'assessment.saved',
+				organisationId: actor.organisationId,
+				userId: actor.userId,
+				subjectType: 'assessment',
+				subjectId: created.id,
+				detail: { sha256, supersedes: input.supersedes?.id ?? null }
+			},
+			transaction
+		);
+		return created;
+	});
+}
+
+/**
+ * Approve a draft: its snapshot is checked against its sha256 and frozen; the assessment it
+ * supersedes, if any, becomes superseded. Policy 'assessment:approve' is asked by the caller.
+ */
+export async function approve(actor: Actor, id: number): Promise<Assessment> {
+	const found = await Assessment.findByPk(id);
+	if (!found) error(404, 'No such assessment.');
+	await ownAsset(actor, found.assetId);
+	return db().transaction(async (transaction) => {
+		const draft = await Assessment.findByPk(id, { transaction, lock: transaction.LOCK.UPDATE });
+		if (!draft || draft.state !== 'draft') error(409, 'Only a draft can be approved.');
+		if (sha256Hex(draft.snapshot) !== draft.snapshotSha256) {
+			error(409, 'The draft does not match its checksum; save it again.');
+		}
+		await draft.update(
+			{ state: 'approved', approvedByUserId: actor.userId, approvedAt: new Date() },
+			{ transaction }
+		);
+		if (draft.supersedesId) {
+			const old = await Assessment.findByPk(draft.supersedesId, {
+				transaction,
+				lock: transaction.LOCK.UPDATE
+			});
+			if (!old || old.state !== 'approved') {
+				error(409, 'The assessment this one replaces is no longer approved.');
+			}
+			await old.update({ state: 'superseded' }, { transaction });
+		}
+		await recordAudit(
+			{
+				action: 'assessment.approved',
+				organisationId: actor.organisationId,
+				userId: actor.userId,
+				subjectType: 'assessment',
+				subjectId: draft.id,
+				detail: { sha256: draft.snapshotSha256, supersedes: draft.supersedesId }
+			},
+			transaction
+		);
+		return draft;
+	});
+}
+
+/** Whether the actor sees drafts: only those who may write assessments, of their own assets. */
+function seesDrafts(actor: Actor, access: 'own' | 'shared'): boolean {
+	return access === 'own' && can(actor.role, 'assessment:write');
+}
+
+/** An asset's assessments, newest first; owners and shared viewers see approved ones only. */
+export async function history(actor: Actor, assetId: number): Promise<Assessment[]> {
+	const { access } = await visibleAsset(actor, assetId);
+	const rows = await Assessment.findAll({
+		where: { assetId },
+		attributes: { exclude: ['snapshot'] },
+		order: [['id', 'DESC']]
+	});
+	return seesDrafts(actor, access) ? rows : rows.filter((a) => a.state !== 'draft');
+}
+
+/** One assessment with its snapshot, or 404 when not visible. */
+export async function getAssessment(actor: Actor, id: number): Promise<Assessment> {
+	const found = await Assessment.findByPk(id);
+	if (!found) error(404, 'No such assessment.');
+	const { access } = await visibleAsset(actor, found.assetId);
+	if (found.state === 'draft' && !seesDrafts(actor, access)) error(404, 'No such assessment.');
+	return found;
+}

@@ -1,0 +1,124 @@
+/**
+ * The assessment snapshot: everything an approved assessment says, frozen as JSON text with its
+ * sha256. Issue 7 renders the owner's risk view and the PDF from it, so it carries what they
+ * need without the readings: populations with the engine's full results and chart data, the
+ * methods and parameters chosen, the asset and survey identity, the meter verification and the
+ * engine version. It is never altered after approval (service.ts, Assessment model hook and the
+ * database trigger of migration 005).
+ */
+import { createHash } from 'node:crypto';
+import { ENGINE_VERSION } from '$lib/analysis';
+import { Asset, Survey } from '$lib/server/db';
+import {
+	meterCheck,
+	populationOverview,
+	type MeterCheck,
+	type MethodChoice,
+	type PopulationResult,
+	type Split
+} from '$lib/server/populations';
+
+export const SNAPSHOT_SCHEMA_VERSION = 1;
+
+export interface SnapshotSurvey {
+	id: number;
+	title: string;
+	surveyDate: string;
+	status: string;
+	meterMake: string | null;
+	meterSerial: string | null;
+	meterCalibration: string | null;
+}
+
+export interface AssessmentSnapshot {
+	schemaVersion: typeof SNAPSHOT_SCHEMA_VERSION;
+	engineVersion: string;
+	/** When the figures were computed (ISO 8601, UTC). */
+	computedAt: string;
+	asset: {
+		id: number;
+		name: string;
+		locationText: string | null;
+		designCode: string;
+		designServiceLifeYears: number;
+		yearOfConstruction: number | null;
+	};
+	/** The survey assessed, or null when the assessment covers every survey of the asset. */
+	survey: SnapshotSurvey | null;
+	/** Every survey whose readings are in the populations. */
+	surveys: SnapshotSurvey[];
+	scope: { surveyId: number | null; split: Split };
+	/** The methods and parameters chosen; each population's `assessment.options` has them resolved. */
+	methods: MethodChoice;
+	/** Judged populations, with chart data (`assessment.charts`) for reports. */
+	populations: PopulationResult[];
+	/** The meter's verification from every hole in the populations' members. */
+	meter: MeterCheck;
+	readingCount: number;
+}
+
+function surveyOf(s: Survey): SnapshotSurvey {
+	return {
+		id: s.id,
+		title: s.title,
+		surveyDate: s.surveyDate,
+		status: s.status,
+		meterMake: s.meterMake,
+		meterSerial: s.meterSerial,
+		meterCalibration: s.meterCalibration
+	};
+}
+
+/** Compute a snapshot of an asset's populations now. */
+export async function buildSnapshot(
+	asset: Asset,
+	scope: { surveyId: number | null; split: Split },
+	methods: MethodChoice
+): Promise<AssessmentSnapshot> {
+	const overview = await populationOverview({
+		assetId: asset.id,
+		surveyId: scope.surveyId ?? undefined,
+		split: scope.split,
+		choice: methods,
+		charts: true
+	});
+	const members = overview.populations.flatMap((p) => p.members);
+	const surveyIds = [...new Set(members.map((m) => m.surveyId))];
+	const surveys = await Survey.findAll({ where: { id: surveyIds }, order: [['id', 'ASC']] });
+	const chosen = scope.surveyId ? surveys.find((s) => s.id === scope.surveyId) : null;
+	return {
+		schemaVersion: SNAPSHOT_SCHEMA_VERSION,
+		engineVersion: ENGINE_VERSION,
+		computedAt: new Date().toISOString(),
+		asset: {
+			id: asset.id,
+			name: asset.name,
+			locationText: asset.locationText,
+			designCode: asset.designCode,
+			designServiceLifeYears: asset.designServiceLifeYears,
+			yearOfConstruction: asset.yearOfConstruction
+		},
+		survey: chosen ? surveyOf(chosen) : null,
+		surveys: surveys.map(surveyOf),
+		scope,
+		methods,
+		populations: overview.populations,
+		meter: await meterCheck(members.map((m) => m.id)),
+		readingCount: members.reduce((sum, m) => sum + m.readings, 0)
+	};
+}
+
+/** The stored text of a snapshot and its sha256 (hex). */
+export function serialiseSnapshot(snapshot: AssessmentSnapshot): { text: string; sha256: string } {
+	const text = JSON.stringify(snapshot);
+	return { text, sha256: sha256Hex(text) };
+}
+
+export function sha256Hex(text: string): string {
+	return createHash('sha256').update(text, 'utf8').digest('hex');
+}
+
+/** Parse a stored snapshot (no re-validation: it was written by buildSnapshot). */
+export function parseSnapshot(text: string): AssessmentSnapshot {
+	return JSON.parse(text) as AssessmentSnapshot;
+}

@@ -1,0 +1,38 @@
+import { building } from '$app/environment';
+import { Op } from 'sequelize';
+import { SignInThrottle } from '../db/models';
+import { lucia } from './lucia';
+import { FAILURE_WINDOW_SECONDS } from './throttle-rules';
+
+const EVERY_MS = 60 * 60 * 1000;
+let timer: NodeJS.Timeout | null = null;
+
+/**
+ * Hourly: deletes expired sessions and throttle counters that no longer count. Harmless when
+ * several processes do it at once (plain DELETEs of rows nobody needs).
+ */
+export function startAuthHousekeeping(): void {
+	if (building || timer) return;
+	timer = setInterval(() => void sweep(), EVERY_MS);
+	timer.unref();
+}
+
+export function stopAuthHousekeeping(): void {
+	if (timer) clearInterval(timer);
+	timer = null;
+}
+
+async function sweep(): Promise<void> {
+	try {
+		await lucia().deleteExpiredSessions();
+		const forgotten = new Date(Date.now() - FAILURE_WINDOW_SECONDS * 1000);
+		await SignInThrottle.destroy({
+			where: {
+				updatedAt: { [Op.lt]: forgotten },
+				[Op.or]: [{ lockedUntil: null }, { lockedUntil: { [Op.lt]: new Date() } }]
+			}
+		});
+	} catch (err) {
+		console.error('auth housekeeping:', err instanceof Error ? err.message : err);
+	}
+}

@@ -1,0 +1,107 @@
+/**
+ * The extras of a population detail: box-plot figures per member and the meter's verification
+ * from the check holes of the members — every figure by the engine.
+ */
+import {
+	describeSorted,
+	MIN_VERIFICATION_HOLES,
+	percentileSorted,
+	verifyMeter,
+	type MeterVerification,
+	type PercentileType
+} from '$lib/analysis';
+import { VerificationHole } from '$lib/server/db';
+import type { GatheredGroup } from './groups';
+
+export interface MemberBox {
+	memberId: number;
+	label: string;
+	n: number;
+	minMm: number;
+	q1Mm: number;
+	medianMm: number;
+	q3Mm: number;
+	maxMm: number;
+	meanMm: number | null;
+}
+
+/**
+ * Box-plot figures per member. The group's covers are in member order and ascending within a
+ * member (the readings query orders them so), so each member is a sorted slice.
+ */
+export function memberBoxes(group: GatheredGroup, type: PercentileType): MemberBox[] {
+	const boxes: MemberBox[] = [];
+	let at = 0;
+	for (const member of group.members) {
+		const n = group.countsByMember.get(member.id) ?? 0;
+		const sorted = group.coversMm.subarray(at, at + n);
+		at += n;
+		if (n === 0) continue;
+		boxes.push({
+			memberId: member.id,
+			label: member.label,
+			n,
+			minMm: sorted[0],
+			q1Mm: percentileSorted(sorted, 0.25, type),
+			medianMm: percentileSorted(sorted, 0.5, type),
+			q3Mm: percentileSorted(sorted, 0.75, type),
+			maxMm: sorted[n - 1],
+			meanMm: n >= 2 ? describeSorted(sorted, type).meanMm : sorted[0]
+		});
+	}
+	return boxes;
+}
+
+export interface HoleRow {
+	id: number;
+	memberId: number;
+	label: string;
+	xMm: number | null;
+	yMm: number | null;
+	meterReadingMm: number;
+	measuredCoverMm: number;
+	method: string | null;
+}
+
+export interface MeterCheck {
+	holes: HoleRow[];
+	verification: MeterVerification | null;
+	/** Why there is no verification, or why it is weak, in words; null when it is enough. */
+	note: string | null;
+}
+
+/** The verification holes of these members and the meter's calibration from them. */
+export async function meterCheck(memberIds: readonly number[]): Promise<MeterCheck> {
+	const rows = await VerificationHole.findAll({
+		where: { memberId: [...memberIds] },
+		order: [['id', 'ASC']]
+	});
+	const holes: HoleRow[] = rows.map((h) => ({
+		id: h.id,
+		memberId: h.memberId,
+		label: h.label,
+		xMm: h.xMm,
+		yMm: h.yMm,
+		meterReadingMm: h.meterReadingMm,
+		measuredCoverMm: h.measuredCoverMm,
+		method: h.method
+	}));
+	if (holes.length < 3) {
+		return {
+			holes,
+			verification: null,
+			note: `${holes.length} verification hole${holes.length === 1 ? '' : 's'}: at least 3 are needed to check the meter.`
+		};
+	}
+	const verification = verifyMeter(
+		holes.map((h) => h.meterReadingMm),
+		holes.map((h) => h.measuredCoverMm)
+	);
+	return {
+		holes,
+		verification,
+		note: verification.enough
+			? null
+			: `Only ${holes.length} holes: the check is indicative; ${MIN_VERIFICATION_HOLES} or more are advised.`
+	};
+}

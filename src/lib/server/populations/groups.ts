@@ -1,0 +1,83 @@
+/**
+ * Members grouped into populations, and each population's covers gathered into one
+ * Float64Array, in member order (the engine sorts them).
+ */
+import { coversByMember, membersInScope, type MemberFilter, type MemberSpec } from './gather';
+import type { Split } from './query';
+
+export interface PopulationKey {
+	memberType: string;
+	exposureClass: string;
+	face?: string;
+	surveyId?: number;
+	memberId?: number;
+}
+
+export interface GatheredGroup {
+	key: PopulationKey;
+	/** Stable text key, e.g. "deck|XD3" or "deck|XD3|member:12". */
+	id: string;
+	members: MemberSpec[];
+	coversMm: Float64Array;
+	/** Readings per member id, in member order. */
+	countsByMember: Map<number, number>;
+}
+
+function keyOf(member: MemberSpec, split: Split): PopulationKey {
+	const key: PopulationKey = { memberType: member.memberType, exposureClass: member.exposureClass };
+	if (split === 'face') key.face = member.face;
+	if (split === 'survey') key.surveyId = member.surveyId;
+	if (split === 'member') key.memberId = member.id;
+	return key;
+}
+
+export function keyId(key: PopulationKey): string {
+	const parts = [key.memberType, key.exposureClass];
+	if (key.face) parts.push(`face:${key.face}`);
+	if (key.surveyId) parts.push(`survey:${key.surveyId}`);
+	if (key.memberId) parts.push(`member:${key.memberId}`);
+	return parts.join('|');
+}
+
+/** Group the members in scope by member type × exposure class (and the split), ordered by key. */
+function groupMembers(members: MemberSpec[], split: Split) {
+	const groups = new Map<string, { key: PopulationKey; members: MemberSpec[] }>();
+	for (const member of members) {
+		const key = keyOf(member, split);
+		const id = keyId(key);
+		const group = groups.get(id) ?? { key, members: [] };
+		group.members.push(member);
+		groups.set(id, group);
+	}
+	return [...groups.entries()].sort(([a], [b]) => a.localeCompare(b));
+}
+
+/** One array of the members' covers, in member order. */
+function joinCovers(parts: (Float64Array | undefined)[]): Float64Array {
+	const joined = new Float64Array(parts.reduce((n, p) => n + (p?.length ?? 0), 0));
+	let offset = 0;
+	for (const part of parts) {
+		if (!part) continue;
+		joined.set(part, offset);
+		offset += part.length;
+	}
+	return joined;
+}
+
+/**
+ * Gather the populations of a scope: the members, then every cover in one query.
+ * Cost: one index range scan of the readings in scope, O(n) parsing and copying.
+ */
+export async function gatherGroups(filter: MemberFilter, split: Split): Promise<GatheredGroup[]> {
+	const members = await membersInScope(filter);
+	const grouped = groupMembers(members, split);
+	const byMember = await coversByMember(members.map((m) => m.id));
+	const covers = grouped.map(([, g]) => joinCovers(g.members.map((m) => byMember.get(m.id))));
+	return grouped.map(([id, g], index) => ({
+		id,
+		key: g.key,
+		members: g.members,
+		coversMm: covers[index],
+		countsByMember: new Map(g.members.map((m) => [m.id, byMember.get(m.id)?.length ?? 0]))
+	}));
+}

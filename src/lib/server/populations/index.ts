@@ -1,0 +1,9 @@
+/** Populations: gathered with SQL, judged by the engine. The seam issues 7 and 9 call. */
+export * from './access';
+export * from './detail';
+export * from './groups';
+export * from './query';
+export * from './requirement';
+export * from './service';
+export type { MemberSpec } from './gather';
+export * from './member';

@@ -1,0 +1,69 @@
+/**
+ * A member's own view: its readings on the x–y grid for a cover map, its holes and the meter's
+ * verification from every hole of the member's survey (one meter per survey).
+ */
+import { Member, Reading, Survey } from '$lib/server/db';
+import { meterCheck, type MeterCheck } from './detail';
+import { groupRequirement, type GroupRequirement } from './requirement';
+
+export interface MemberReading {
+	id: number;
+	xMm: number | null;
+	yMm: number | null;
+	coverMm: number;
+	barDiameterMm: number | null;
+	flags: number;
+}
+
+export interface MemberView {
+	member: {
+		id: number;
+		label: string;
+		assetId: number;
+		surveyId: number;
+		surveyTitle: string;
+		memberType: string;
+		face: string;
+		exposureClass: string;
+		gridWidthMm: number | null;
+		gridHeightMm: number | null;
+	};
+	requirement: GroupRequirement;
+	readings: MemberReading[];
+	/** Holes of this member only. */
+	memberHoles: MeterCheck['holes'];
+	/** The meter's verification from all holes of the survey. */
+	surveyMeter: MeterCheck;
+}
+
+export async function memberView(member: Member): Promise<MemberView> {
+	const [survey, readings, surveyMembers] = await Promise.all([
+		Survey.findByPk(member.surveyId),
+		Reading.findAll({
+			attributes: ['id', 'xMm', 'yMm', 'coverMm', 'barDiameterMm', 'flags'],
+			where: { memberId: member.id },
+			order: [['id', 'ASC']],
+			raw: true
+		}),
+		Member.findAll({ attributes: ['id'], where: { surveyId: member.surveyId }, raw: true })
+	]);
+	const surveyMeter = await meterCheck(surveyMembers.map((m) => m.id));
+	return {
+		member: {
+			id: member.id,
+			label: member.label,
+			assetId: member.assetId,
+			surveyId: member.surveyId,
+			surveyTitle: survey?.title ?? '',
+			memberType: member.memberType,
+			face: member.face,
+			exposureClass: member.exposureClass,
+			gridWidthMm: member.gridWidthMm,
+			gridHeightMm: member.gridHeightMm
+		},
+		requirement: groupRequirement([member]),
+		readings: readings as MemberReading[],
+		memberHoles: surveyMeter.holes.filter((h) => h.memberId === member.id),
+		surveyMeter
+	};
+}

@@ -1,0 +1,101 @@
+/**
+ * The population query: which readings, how they are grouped and which methods judge them.
+ * One zod schema for the API's query string and the page URL, so a view can be bookmarked.
+ */
+import { error } from '@sveltejs/kit';
+import { apiError } from '$lib/server/http';
+import { z } from 'zod';
+import { RULE_SETS, type AssessOptions, type RuleSetName } from '$lib/analysis';
+import { MEMBER_FACES, MEMBER_TYPES } from '$lib/server/db/migrations/002-surveys';
+
+/** Groups are member type × exposure class, optionally split further by one of these. */
+export const SPLITS = ['none', 'face', 'survey', 'member'] as const;
+export type Split = (typeof SPLITS)[number];
+
+const id = z.coerce.number().int().positive().max(4_294_967_295);
+const ruleSetNames = Object.keys(RULE_SETS) as [RuleSetName, ...RuleSetName[]];
+
+export const methodSchema = z.object({
+	fractile: z.coerce
+		.number()
+		.gt(0, 'The fractile must be above 0.')
+		.max(0.2, 'The fractile must be at most 0.2 (20 %).')
+		.default(0.05),
+	confidence: z.coerce
+		.number()
+		.min(0.75, 'The confidence must be at least 0.75.')
+		.max(0.995, 'The confidence must be at most 0.995.')
+		.default(0.95),
+	percentile: z.enum(['6', '7'], 'The percentile definition is type 6 or type 7.').default('7'),
+	model: z
+		.enum(['best-fit', 'normal', 'lognormal'], 'The model is best-fit, normal or lognormal.')
+		.default('best-fit'),
+	method: z
+		.enum(
+			['prediction', 'tolerance', 'model', 'empirical'],
+			'The method is prediction, tolerance, model or empirical.'
+		)
+		.default('prediction'),
+	rules: z.enum(ruleSetNames, `The rule set is one of ${ruleSetNames.join(', ')}.`).optional()
+});
+
+export const scopeSchema = z.object({
+	survey: id.optional(),
+	split: z.enum(SPLITS, `Split by one of ${SPLITS.join(', ')}.`).default('none')
+});
+
+/** One population, picked out of the overview by its group key. */
+export const groupSchema = z.object({
+	type: z.enum(MEMBER_TYPES, `The member type is one of ${MEMBER_TYPES.join(', ')}.`),
+	exposure: z
+		.string()
+		.trim()
+		.min(1, 'Give the exposure class.')
+		.max(24, 'The exposure class is at most 24 characters.'),
+	face: z.enum(MEMBER_FACES).optional(),
+	member: id.optional()
+});
+
+export type MethodChoice = z.infer<typeof methodSchema>;
+export type PopulationScope = z.infer<typeof scopeSchema>;
+export type GroupSelector = z.infer<typeof groupSchema>;
+
+/** The engine's options for a method choice. */
+export function toAssessOptions(choice: MethodChoice, charts = false): AssessOptions {
+	return {
+		fractileP: choice.fractile,
+		confidence: choice.confidence,
+		percentileType: choice.percentile === '6' ? 6 : 7,
+		model: choice.model,
+		characteristicMethod: choice.method,
+		...(choice.rules ? { ruleSet: choice.rules } : {}),
+		charts
+	};
+}
+
+/** Plain object of the URL's query parameters (the last value of a repeated key wins). */
+export function paramsOf(url: URL): Record<string, string> {
+	return Object.fromEntries(url.searchParams.entries());
+}
+
+/** Validate query parameters; a bad one is a 400 `invalid_input` naming the parameter (field). */
+export function parseParams<S extends z.ZodType>(
+	schema: S,
+	params: Record<string, string>
+): z.infer<S> {
+	const parsed = schema.safeParse(params);
+	if (!parsed.success) {
+		const issue = parsed.error.issues[0];
+		const field = issue.path.join('.');
+		apiError(400, 'invalid_input', issue.message, field || undefined);
+	}
+	return parsed.data as z.infer<S>;
+}
+
+export const idParam = z.object({ id: id });
+/** A path id ("12"); anything else is a 404, as an unknown record is. */
+export function pathId(value: string): number {
+	const parsed = id.safeParse(value);
+	if (!parsed.success) error(404, 'Not found.');
+	return parsed.data;
+}

@@ -1,0 +1,126 @@
+/**
+ * The one place that turns readings into judged populations: gather with SQL (groups.ts),
+ * requirement from the members (requirement.ts), figures from the engine — never computed here.
+ * Issue 7 (risk) and issue 9 (load) call these functions.
+ */
+import { assessPopulation, ENGINE_VERSION, type PopulationAssessment } from '$lib/analysis';
+import { gatherGroups, keyId, type GatheredGroup, type PopulationKey } from './groups';
+import { toAssessOptions, type GroupSelector, type MethodChoice, type Split } from './query';
+import { groupRequirement, type GroupRequirement } from './requirement';
+
+export interface PopulationMember {
+	id: number;
+	label: string;
+	surveyId: number;
+	face: string;
+	readings: number;
+}
+
+export interface PopulationResult {
+	id: string;
+	key: PopulationKey;
+	/** Words for a heading, e.g. "deck · XD3 · top face". */
+	label: string;
+	members: PopulationMember[];
+	requirement: GroupRequirement;
+	/** The engine's result; null when the group has fewer than 2 readings. */
+	assessment: PopulationAssessment | null;
+	/** Why there is no assessment, in words. */
+	problem: string | null;
+}
+
+export interface PopulationScopeInput {
+	assetId: number;
+	surveyId?: number;
+	split: Split;
+	choice: MethodChoice;
+	/** Chart data for every population (snapshots for reports); default false. */
+	charts?: boolean;
+}
+
+export function populationLabel(key: PopulationKey, members: readonly { label: string }[]) {
+	const parts = [key.memberType, key.exposureClass];
+	if (key.face) parts.push(`${key.face} face`);
+	if (key.surveyId) parts.push(`survey ${key.surveyId}`);
+	if (key.memberId) parts.push(`member ${members[0]?.label ?? key.memberId}`);
+	return parts.join(' · ');
+}
+
+function judge(group: GatheredGroup, choice: MethodChoice, charts: boolean): PopulationResult {
+	const requirement = groupRequirement(group.members);
+	const n = group.coversMm.length;
+	const enough = n >= 2;
+	return {
+		id: group.id,
+		key: group.key,
+		label: populationLabel(group.key, group.members),
+		members: group.members.map((m) => ({
+			id: m.id,
+			label: m.label,
+			surveyId: m.surveyId,
+			face: m.face,
+			readings: group.countsByMember.get(m.id) ?? 0
+		})),
+		requirement,
+		assessment: enough
+			? assessPopulation(group.coversMm, requirement.requirement, toAssessOptions(choice, charts))
+			: null,
+		problem: enough ? null : `Only ${n} reading${n === 1 ? '' : 's'}: at least 2 are needed.`
+	};
+}
+
+export interface PopulationOverview {
+	engineVersion: string;
+	choice: MethodChoice;
+	split: Split;
+	populations: PopulationResult[];
+}
+
+/** Every population of an asset (or one survey of it), judged without chart data. */
+export async function populationOverview(input: PopulationScopeInput): Promise<PopulationOverview> {
+	const groups = await gatherGroups(
+		{ assetId: input.assetId, surveyId: input.surveyId },
+		input.split
+	);
+	return {
+		engineVersion: ENGINE_VERSION,
+		choice: input.choice,
+		split: input.split,
+		populations: groups.map((g) => judge(g, input.choice, input.charts ?? false))
+	};
+}
+
+export interface DetailGathered {
+	result: PopulationResult;
+	group: GatheredGroup;
+}
+
+/**
+ * One population picked by its key (type × exposure, and face, member or survey when the
+ * overview was split so), judged with chart data; null when no member matches.
+ */
+export async function populationDetail(
+	input: Omit<PopulationScopeInput, 'split'>,
+	selector: GroupSelector
+): Promise<DetailGathered | null> {
+	const [group] = await gatherGroups(
+		{
+			assetId: input.assetId,
+			surveyId: input.surveyId,
+			memberType: selector.type,
+			exposureClass: selector.exposure,
+			face: selector.face,
+			memberId: selector.member
+		},
+		'none'
+	);
+	if (!group) return null;
+	const key: PopulationKey = {
+		...group.key,
+		...(selector.face ? { face: selector.face } : {}),
+		...(input.surveyId ? { surveyId: input.surveyId } : {}),
+		...(selector.member ? { memberId: selector.member } : {})
+	};
+	const keyed = { ...group, key, id: keyId(key) };
+	return { result: judge(keyed, input.choice, true), group: keyed };
+}

@@ -1,0 +1,74 @@
+import { fail, redirect, type ActionFailure } from '@sveltejs/kit';
+import { z } from 'zod';
+import type { Actions, PageServerLoad } from './$types';
+import { pageActor } from '$lib/server/guard';
+import { authorize, can } from '$lib/server/policy';
+import { pathId, visibleAsset, methodSchema } from '$lib/server/populations';
+import { history, saveDraft, saveSchema, summarise } from '$lib/server/assessments';
+
+export const load: PageServerLoad = async (event) => {
+	const actor = pageActor(event, 'assessment:read');
+	const { asset, access } = await visibleAsset(actor, pathId(event.params.assetId));
+	const rows = await history(actor, asset.id);
+	const own = access === 'own';
+	return {
+		asset: { id: asset.id, name: asset.name },
+		assessments: await summarise(rows),
+		canSave: own && can(actor.role, 'assessment:write'),
+		canApprove: own && can(actor.role, 'assessment:approve')
+	};
+};
+
+const formSchema = z.object({
+	title: saveSchema.shape.title,
+	recommendations: z.string().trim().max(20_000).optional(),
+	supersedesId: z.coerce.number().int().positive().optional(),
+	reason: z.string().trim().optional(),
+	query: z.string().max(2000).default('')
+});
+
+type FormErrors = Partial<Record<'title' | 'reason', string>>;
+const refuse = (
+	values: { title: string; reason: string },
+	errors: FormErrors
+): ActionFailure<{ values: { title: string; reason: string }; errors: FormErrors }> =>
+	fail(400, { values, errors });
+
+export const actions = {
+	/** Save the populations as they are now (with the methods in the page URL) as a draft. */
+	save: async ({ locals, params, request }) => {
+		const actor = authorize(locals, 'assessment:write');
+		const fields = Object.fromEntries(await request.formData()) as Record<string, string>;
+		const values = { title: fields.title ?? '', reason: fields.reason ?? '' };
+		const parsed = formSchema.safeParse(fields);
+		if (!parsed.success) {
+			const issue = parsed.error.issues[0];
+			const errors: FormErrors =
+				issue.path[0] === 'reason' ? { reason: issue.message } : { title: issue.message };
+			return refuse(values, errors);
+		}
+		const query = Object.fromEntries(new URLSearchParams(parsed.data.query));
+		const methods = methodSchema.safeParse(query);
+		if (!methods.success) return refuse(values, { title: methods.error.issues[0].message });
+		const supersedes = parsed.data.supersedesId
+			? saveSchema.shape.supersedes.safeParse({
+					id: parsed.data.supersedesId,
+					reason: parsed.data.reason ?? ''
+				})
+			: null;
+		if (supersedes && !supersedes.success) {
+			return refuse(values, { reason: supersedes.error.issues[0].message });
+		}
+		const survey = Number(query.survey) || null;
+		const saved = await saveDraft(actor, {
+			assetId: pathId(params.assetId),
+			title: parsed.data.title,
+			surveyId: survey,
+			split: (['face', 'survey', 'member'] as const).find((s) => s === query.split) ?? 'none',
+			methods: methods.data,
+			recommendations: parsed.data.recommendations || null,
+			supersedes: supersedes?.data ?? null
+		});
+		redirect(303, `/assessments/${saved.id}`);
+	}
+} satisfies Actions;

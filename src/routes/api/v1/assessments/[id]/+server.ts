@@ -1,0 +1,12 @@
+import { json } from '@sveltejs/kit';
+import type { RequestHandler } from './$types';
+import { authorize } from '$lib/server/policy';
+import { pathId } from '$lib/server/populations';
+import { getAssessment, withSnapshot } from '$lib/server/assessments';
+
+/** One assessment with its snapshot exactly as stored. */
+export const GET: RequestHandler = async ({ locals, params }) => {
+	const actor = authorize(locals, 'assessment:read');
+	const row = await getAssessment(actor, pathId(params.id));
+	return json({ assessment: await withSnapshot(row) });
+};

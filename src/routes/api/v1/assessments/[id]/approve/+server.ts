@@ -1,0 +1,13 @@
+import { json } from '@sveltejs/kit';
+import type { RequestHandler } from './$types';
+import { authorize } from '$lib/server/policy';
+import { pathId } from '$lib/server/populations';
+import { approve, summarise } from '$lib/server/assessments';
+
+/** Approve a draft assessment: engineers and admins only (policy 'assessment:approve'). */
+export const POST: RequestHandler = async ({ locals, params }) => {
+	const actor = authorize(locals, 'assessment:approve');
+	const approved = await approve(actor, pathId(params.id));
+	const [summary] = await summarise([approved]);
+	return json({ assessment: summary });
+};

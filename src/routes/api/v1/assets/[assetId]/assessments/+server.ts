@@ -1,0 +1,30 @@
+import { json } from '@sveltejs/kit';
+import type { RequestHandler } from './$types';
+import { authorize } from '$lib/server/policy';
+import { pathId } from '$lib/server/populations';
+import { history, readSaveBody, saveDraft, summarise } from '$lib/server/assessments';
+
+/** The asset's assessments, newest first (drafts only for those who may write them). */
+export const GET: RequestHandler = async ({ locals, params }) => {
+	const actor = authorize(locals, 'assessment:read');
+	const rows = await history(actor, pathId(params.assetId));
+	return json({ assessments: await summarise(rows) });
+};
+
+/** Compute the populations now and save them as a draft assessment (optionally superseding). */
+export const POST: RequestHandler = async ({ locals, params, request }) => {
+	const actor = authorize(locals, 'assessment:write');
+	const assetId = pathId(params.assetId);
+	const body = await readSaveBody(request);
+	const saved = await saveDraft(actor, {
+		assetId,
+		title: body.title,
+		surveyId: body.survey,
+		split: body.split,
+		methods: body.methods,
+		recommendations: body.recommendations,
+		supersedes: body.supersedes
+	});
+	const [summary] = await summarise([saved]);
+	return json({ assessment: summary }, { status: 201 });
+};

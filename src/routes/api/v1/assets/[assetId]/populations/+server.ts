@@ -1,0 +1,31 @@
+import { json } from '@sveltejs/kit';
+import type { RequestHandler } from './$types';
+import { authorize } from '$lib/server/policy';
+import {
+	methodSchema,
+	paramsOf,
+	parseParams,
+	pathId,
+	populationOverview,
+	scopeSchema,
+	visibleAsset,
+	visibleSurvey
+} from '$lib/server/populations';
+
+/** The population overview of an asset or one of its surveys: every group, judged by the engine. */
+export const GET: RequestHandler = async ({ locals, params, url }) => {
+	const actor = authorize(locals, 'population:read');
+	const assetId = pathId(params.assetId);
+	const query = paramsOf(url);
+	const scope = parseParams(scopeSchema, query);
+	const choice = parseParams(methodSchema, query);
+	if (scope.survey) await visibleSurvey(actor, assetId, scope.survey);
+	else await visibleAsset(actor, assetId);
+	const overview = await populationOverview({
+		assetId,
+		surveyId: scope.survey,
+		split: scope.split,
+		choice
+	});
+	return json(overview);
+};

@@ -1,0 +1,36 @@
+import { error, json } from '@sveltejs/kit';
+import type { RequestHandler } from './$types';
+import { authorize } from '$lib/server/policy';
+import {
+	groupSchema,
+	memberBoxes,
+	meterCheck,
+	methodSchema,
+	paramsOf,
+	parseParams,
+	pathId,
+	populationDetail,
+	scopeSchema,
+	visibleAsset,
+	visibleSurvey
+} from '$lib/server/populations';
+
+/** One population with chart data, per-member box figures and the meter's verification. */
+export const GET: RequestHandler = async ({ locals, params, url }) => {
+	const actor = authorize(locals, 'population:read');
+	const assetId = pathId(params.assetId);
+	const query = paramsOf(url);
+	const scope = parseParams(scopeSchema, query);
+	const selector = parseParams(groupSchema, query);
+	const choice = parseParams(methodSchema, query);
+	if (scope.survey) await visibleSurvey(actor, assetId, scope.survey);
+	else await visibleAsset(actor, assetId);
+	const detail = await populationDetail({ assetId, surveyId: scope.survey, choice }, selector);
+	if (!detail) error(404, 'No members of this asset match that population.');
+	const type = choice.percentile === '6' ? 6 : 7;
+	return json({
+		population: detail.result,
+		boxes: memberBoxes(detail.group, type),
+		meter: await meterCheck(detail.group.members.map((m) => m.id))
+	});
+};

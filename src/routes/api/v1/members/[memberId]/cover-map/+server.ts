@@ -1,0 +1,11 @@
+import { json } from '@sveltejs/kit';
+import type { RequestHandler } from './$types';
+import { authorize } from '$lib/server/policy';
+import { memberView, pathId, visibleMember } from '$lib/server/populations';
+
+/** A member's readings on its grid, its verification holes and the survey meter's check. */
+export const GET: RequestHandler = async ({ locals, params }) => {
+	const actor = authorize(locals, 'population:read');
+	const { member } = await visibleMember(actor, pathId(params.memberId));
+	return json(await memberView(member));
+};

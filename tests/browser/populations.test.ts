@@ -1,0 +1,73 @@
+import type { Browser, Page } from 'playwright-core';
+import { mkdirSync } from 'node:fs';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { launchChromium, SCREENSHOT_DIR } from '../helpers/browser';
+import { testSequelize } from '../helpers/database';
+import { CAR_PARK, assetIdByName } from '../helpers/actors';
+import { browserSignIn, canvasPixels, screenshot } from '../helpers/pages';
+
+// c_min is drawn in Okabe–Ito vermillion (#d55e00) on every cover axis.
+const VERMILLION: [number, number, number] = [213, 94, 0];
+
+describe('the engineer looks at the car-park deck', () => {
+	let browser: Browser;
+	let page: Page;
+	let assetId: number;
+	beforeAll(async () => {
+		mkdirSync(SCREENSHOT_DIR, { recursive: true });
+		const sequelize = testSequelize();
+		assetId = await assetIdByName(sequelize, CAR_PARK);
+		await sequelize.close();
+		browser = await launchChromium();
+		page = await browserSignIn(browser, 'engineer');
+	});
+	afterAll(async () => {
+		await browser?.close();
+	});
+
+	it('shows the dashboard with the assets and their standing', async () => {
+		await expect(page.locator(`[data-asset="${CAR_PARK}"]`).count()).resolves.toBe(1);
+		await screenshot(page, 'dashboard-engineer');
+	});
+
+	it('lists the populations with the engine’s verdicts', async () => {
+		await page.goto(`/assets/${assetId}/populations`);
+		const deckRow = page.locator('[data-population="deck|XD3"]');
+		await deckRow.waitFor();
+		await expect(
+			deckRow.locator('[data-verdict]').first().getAttribute('data-verdict')
+		).resolves.toMatch(/^(pass|fail|not-enough-data)$/);
+		await screenshot(page, 'population-overview');
+	});
+
+	it('draws the deck histogram with the c_min line, and recomputes when the fractile changes', async () => {
+		await page.locator('[data-population="deck|XD3"] a').click();
+		await page.waitForURL('**/populations/detail?**');
+		await page.locator('canvas[data-chart="histogram"]').waitFor();
+		await page.waitForTimeout(300);
+		const pixels = await canvasPixels(page, 'canvas[data-chart="histogram"]', VERMILLION);
+		expect(pixels.inked).toBeGreaterThan(5000);
+		expect(pixels.coloured).toBeGreaterThan(100);
+		await screenshot(page, 'population-detail-deck');
+		const before = await page.getByTestId('characteristic').textContent();
+		await page.selectOption('select[name=fractile]', '0.1');
+		await page.waitForURL('**fractile=0.1**');
+		await page.waitForFunction(
+			(old) => document.querySelector('[data-testid=characteristic]')?.textContent !== old,
+			before
+		);
+		const after = await page.getByTestId('characteristic').textContent();
+		expect(parseFloat(after!)).toBeGreaterThan(parseFloat(before!));
+		await screenshot(page, 'population-detail-deck-p10');
+	});
+
+	it('opens a member’s cover map', async () => {
+		await page.locator('a[href^="/members/"]').first().click();
+		await page.waitForURL('**/members/**');
+		await page.locator('canvas[data-chart="cover-map"]').waitFor();
+		await page.waitForTimeout(300);
+		const pixels = await canvasPixels(page, 'canvas[data-chart="cover-map"]', [0, 0, 0]);
+		expect(pixels.inked).toBeGreaterThan(5000);
+		await screenshot(page, 'member-cover-map');
+	});
+});

@@ -1,0 +1,89 @@
+import type { Browser } from 'playwright-core';
+import { mkdirSync } from 'node:fs';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { ImportBatch, Member, Reading } from '../../src/lib/server/db';
+import { launchChromium, SCREENSHOT_DIR } from '../helpers/browser';
+import { testSequelize } from '../helpers/database';
+import { CAR_PARK, assetIdByName } from '../helpers/actors';
+import { browserSignIn, screenshot } from '../helpers/pages';
+
+describe('signing an assessment off', () => {
+	let browser: Browser;
+	let assetId: number;
+	let assessmentPath = '';
+	const sequelize = testSequelize();
+	beforeAll(async () => {
+		mkdirSync(SCREENSHOT_DIR, { recursive: true });
+		assetId = await assetIdByName(sequelize, CAR_PARK);
+		browser = await launchChromium();
+	});
+	afterAll(async () => {
+		await browser?.close();
+		await sequelize.close();
+	});
+
+	it('the engineer approves, and a later import leaves the assessment as signed', async () => {
+		const page = await browserSignIn(browser, 'engineer');
+		await page.goto(`/assets/${assetId}/assessments`);
+		await page.fill('input[name=title]', 'Car park, browser sign-off');
+		await Promise.all([page.waitForURL('**/assessments/*'), page.click('text=Save as a draft')]);
+		assessmentPath = new URL(page.url()).pathname;
+		await Promise.all([page.waitForLoadState('load'), page.getByTestId('approve').click()]);
+		await page.waitForSelector('[data-testid=assessment-state][data-state=approved]');
+		const sha = await page.getByTestId('snapshot-sha').textContent();
+		const deckN = await page.locator('[data-population="deck|XD3"] [data-testid=n]').textContent();
+		await screenshot(page, 'assessment-approved');
+
+		const member = await Member.findOne({ where: { assetId, label: 'ROOF-BAY-01' } });
+		const batch = await ImportBatch.create({
+			surveyId: member!.surveyId,
+			createdByUserId: null,
+			sourceFormat: 'manual',
+			fileName: 'later.csv',
+			fileSha256: null,
+			fileBytes: null,
+			state: 'completed'
+		});
+		await Reading.bulkCreate(
+			Array.from({ length: 40 }, (_, i) => ({
+				memberId: member!.id,
+				importBatchId: batch.id,
+				xMm: 20 * i,
+				yMm: 20,
+				coverMm: 20,
+				barDiameterMm: null,
+				barSpacingMm: null,
+				barDirection: null,
+				note: null
+			}))
+		);
+
+		await page.reload();
+		expect(await page.getByTestId('snapshot-sha').textContent()).toBe(sha);
+		expect(await page.locator('[data-population="deck|XD3"] [data-testid=n]').textContent()).toBe(
+			deckN
+		);
+		await page.goto(`/assets/${assetId}/populations`);
+		const liveN = page.locator('[data-population="deck|XD3"] td').first();
+		await liveN.waitFor();
+		expect(Number(await liveN.textContent())).toBe(Number(deckN) + 40);
+		await Reading.destroy({ where: { importBatchId: batch.id } });
+		await page.context().close();
+	});
+
+	it('the surveyor sees no approve button and the API refuses', async () => {
+		const page = await browserSignIn(browser, 'surveyor');
+		await screenshot(page, 'dashboard-surveyor');
+		await page.goto(`/assets/${assetId}/populations/detail?type=deck&exposure=XD3`);
+		await page.locator('canvas[data-chart="histogram"]').waitFor();
+		expect(await page.getByTestId('approve').count()).toBe(0);
+		const response = await page.goto(assessmentPath);
+		expect(response!.status()).toBe(403);
+		expect(await page.getByTestId('approve').count()).toBe(0);
+		await screenshot(page, 'surveyor-assessment-refused');
+		const id = assessmentPath.split('/').pop();
+		const api = await page.request.post(`/api/v1/assessments/${id}/approve`, { data: {} });
+		expect(api.status()).toBe(403);
+		await page.context().close();
+	});
+});

@@ -1,0 +1,109 @@
+import { QueryTypes, type Sequelize } from 'sequelize';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { db, closeDb, Assessment, ImportBatch, Member, Reading } from '../../src/lib/server/db';
+import { methodSchema } from '../../src/lib/server/populations';
+import { approve, saveDraft, sha256Hex } from '../../src/lib/server/assessments';
+import { CAR_PARK, ENGINEER, assetIdByName, demoActor } from '../helpers/actors';
+
+describe('assessment sign-off', () => {
+	let sequelize: Sequelize;
+	let assetId: number;
+	let engineer: Awaited<ReturnType<typeof demoActor>>;
+	const methods = methodSchema.parse({});
+	const save = (title: string, supersedes: { id: number; reason: string } | null = null) =>
+		saveDraft(engineer, {
+			assetId,
+			title,
+			surveyId: null,
+			split: 'none',
+			methods,
+			recommendations: null,
+			supersedes
+		});
+	beforeAll(async () => {
+		sequelize = db();
+		assetId = await assetIdByName(sequelize, CAR_PARK);
+		engineer = await demoActor(sequelize, ENGINEER);
+	});
+	afterAll(async () => {
+		await closeDb();
+	});
+
+	it('keeps an approved snapshot byte-identical after a later import of readings', async () => {
+		const draft = await save('Level 2 and roof, first sign-off');
+		await approve(engineer, draft.id);
+		const signed = await Assessment.findByPk(draft.id);
+		expect(signed!.state).toBe('approved');
+		const deck = await Member.findOne({ where: { assetId, label: 'L2-BAY-01' } });
+		const batch = await ImportBatch.create({
+			surveyId: deck!.surveyId,
+			createdByUserId: engineer.userId,
+			sourceFormat: 'manual',
+			fileName: null,
+			fileSha256: null,
+			fileBytes: null,
+			state: 'completed'
+		});
+		await Reading.bulkCreate(
+			Array.from({ length: 50 }, (_, i) => ({
+				memberId: deck!.id,
+				importBatchId: batch.id,
+				xMm: 10 * i,
+				yMm: 10,
+				coverMm: 12,
+				barDiameterMm: null,
+				barSpacingMm: null,
+				barDirection: null,
+				note: null
+			}))
+		);
+		const after = await Assessment.findByPk(draft.id);
+		expect(after!.snapshot).toBe(signed!.snapshot);
+		expect(after!.snapshotSha256).toBe(signed!.snapshotSha256);
+		expect(sha256Hex(after!.snapshot)).toBe(after!.snapshotSha256);
+		// The import did change the live figures: a new draft counts the extra readings.
+		const fresh = await save('After the extra readings');
+		const count = (text: string) => JSON.parse(text).readingCount as number;
+		expect(count(fresh.snapshot)).toBe(count(signed!.snapshot) + 50);
+		await Reading.destroy({ where: { importBatchId: batch.id } });
+		await fresh.destroy();
+	});
+
+	it('refuses to rewrite or delete an approved snapshot, in code and in the database', async () => {
+		const [approved] = await Assessment.findAll({ where: { assetId, state: 'approved' } });
+		approved.snapshot = '{}';
+		await expect(approved.save()).rejects.toThrow(/cannot be changed/);
+		await expect(
+			sequelize.query("UPDATE assessments SET snapshot = '{}' WHERE id = ?", {
+				replacements: [approved.id],
+				type: QueryTypes.UPDATE
+			})
+		).rejects.toThrow(/cannot be changed/);
+		await expect(
+			sequelize.query('DELETE FROM assessments WHERE id = ?', {
+				replacements: [approved.id],
+				type: QueryTypes.DELETE
+			})
+		).rejects.toThrow(/cannot be deleted/);
+	});
+
+	it('supersedes an approved assessment with a reason, and only once', async () => {
+		const [old] = await Assessment.findAll({ where: { assetId, state: 'approved' } });
+		const next = await save('Second sign-off', {
+			id: old.id,
+			reason: 'Roof survey readings reviewed and accepted.'
+		});
+		await expect(approve(engineer, old.id)).rejects.toMatchObject({ status: 409 });
+		await approve(engineer, next.id);
+		await old.reload();
+		expect(old.state).toBe('superseded');
+		await expect(
+			save('Third', { id: old.id, reason: 'Trying to replace a superseded one.' })
+		).rejects.toMatchObject({ status: 409 });
+		const audit = await sequelize.query<{ n: number }>(
+			"SELECT COUNT(*) AS n FROM audit_events WHERE action = 'assessment.approved'",
+			{ type: QueryTypes.SELECT, plain: true }
+		);
+		expect(audit!.n).toBeGreaterThanOrEqual(2);
+	});
+});
