@@ -156,7 +156,7 @@ describe('intake API over HTTP (the built app, the real database)', () => {
 		const clash = await surveyor.postJson(`/api/v1/surveys/${survey.id}/members/bulk`, { table });
 		expect(clash.status).toBe(400);
 		expect((await clash.json()).error.message).toContain(
-			'Row 2: label "b-01" is already used by an existing member.'
+			'Row 3: label "b-01" is already used by an existing member.'
 		);
 		const ok = await surveyor.postJson(`/api/v1/surveys/${survey.id}/members/bulk`, {
 			table: table.replace('b-01', 'B-04')

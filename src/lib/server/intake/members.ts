@@ -66,7 +66,9 @@ async function auditMembers(
 export async function createMembers(
 	actor: Actor,
 	surveyId: number,
-	inputs: MemberInput[]
+	inputs: MemberInput[],
+	/** Line number of the first input, to name rows as the user sees them (2 under a header). */
+	firstRow = 1
 ): Promise<Member[]> {
 	return Member.sequelize!.transaction(async (transaction) => {
 		const { survey } = await scopedSurvey(actor, surveyId, 'write', transaction);
@@ -81,8 +83,9 @@ export async function createMembers(
 		inputs.forEach((input, i) => {
 			const key = labelKey(input.label);
 			const clash = taken.get(key);
-			if (clash) problems.push(`Row ${i + 1}: label "${input.label}" is already used by ${clash}.`);
-			else taken.set(key, `row ${i + 1}`);
+			if (clash)
+				problems.push(`Row ${i + firstRow}: label "${input.label}" is already used by ${clash}.`);
+			else taken.set(key, `row ${i + firstRow}`);
 		});
 		if (problems.length) {
 			throw new InputError(

@@ -70,7 +70,12 @@ export const actions = {
 			});
 		const done = await actOr(form, async () => {
 			const { asset } = await scopedSurvey(actor, surveyIdOf(params), 'write');
-			return createMembers(actor, surveyIdOf(params), parsePastedMembers(table, asset.designCode));
+			return createMembers(
+				actor,
+				surveyIdOf(params),
+				parsePastedMembers(table, asset.designCode),
+				2
+			);
 		});
 		return Array.isArray(done) ? { ok: `${done.length} members added.` } : done;
 	},

@@ -17,7 +17,7 @@ export const POST: RequestHandler = async ({ locals, params, request }) => {
 	const { table } = await readJson(request, bulkSchema);
 	const members = await api(async () => {
 		const { asset } = await scopedSurvey(actor, id, 'write');
-		return createMembers(actor, id, parsePastedMembers(table, asset.designCode));
+		return createMembers(actor, id, parsePastedMembers(table, asset.designCode), 2);
 	});
 	return json({ created: members.length }, { status: 201 });
 };
