@@ -135,12 +135,8 @@ describe('import lifecycle: duplicates, undo, cancel, a lost connection, frozen 
 			'The connection to the database was lost during the import; nothing was written. Start the import again.'
 		);
 		expect(await countReadings(sequelize, { surveyId: survey.id })).toBe(0);
-		let t = Date.now();
 		const retry = await begin(survey.id, content);
-		console.log('begin', Date.now() - t);
-		t = Date.now();
 		expect((await retry.done).state).toBe('completed');
-		console.log('done', Date.now() - t);
 		expect(await countReadings(sequelize, { surveyId: survey.id })).toBe(300_000);
 	});
 
