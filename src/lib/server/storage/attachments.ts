@@ -25,7 +25,7 @@ const ALLOWED: Record<AttachmentKind, (mime: string) => boolean> = {
 	other: (m) =>
 		IMAGE_TYPES.has(m) ||
 		m === 'application/pdf' ||
-		m === 'text/csv' ||
+		m === 'text/plain' ||
 		m.startsWith('application/vnd.openxmlformats')
 };
 
@@ -37,7 +37,7 @@ async function contentTypeOf(path: string, fileName: string): Promise<string> {
 		() => true,
 		() => false
 	);
-	return isText ? 'text/csv' : 'application/octet-stream';
+	return isText ? 'text/plain' : 'application/octet-stream';
 }
 
 async function thumbnail(path: string): Promise<Buffer | null> {

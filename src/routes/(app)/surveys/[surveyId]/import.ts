@@ -42,6 +42,11 @@ export interface Status {
 	progress: { rowsRead: number; fraction: number } | null;
 }
 
+/** A file upload's headers: the server ignores a body sent without a Content-Type. */
+export function fileHeaders(file: File): Record<string, string> {
+	return { accept: 'application/json', 'content-type': file.type || 'application/octet-stream' };
+}
+
 /** Reads an API answer; an error answer becomes an Error with the server's own message. */
 export async function answer<T>(response: Response): Promise<T> {
 	const body = await response.json().catch(() => null);

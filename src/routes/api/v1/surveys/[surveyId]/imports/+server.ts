@@ -29,7 +29,9 @@ export const POST: RequestHandler = async ({ locals, params, request, url }) => 
 			`The file is larger than the ${limitMb} MB limit for one import; split it into smaller files.`
 		);
 	}
-	if (!request.body) apiError(400, 'empty-file', 'The file is empty.');
+	// SvelteKit gives no body to a request without a Content-Type.
+	if (!request.body)
+		apiError(400, 'empty-file', 'Send the file as the request body, with a Content-Type header.');
 	const fileName = url.searchParams.get('fileName') ?? 'readings.csv';
 	const result = await api(() => receiveUpload(actor, surveyId, fileName, request.body!));
 	return json(result, { status: 201 });
