@@ -20,7 +20,7 @@ function send(
 			origin: new URL(appUrl()).origin,
 			accept: 'application/json'
 		},
-		body
+		body: new Blob([new Uint8Array(body)])
 	});
 }
 
@@ -46,7 +46,7 @@ describe('attachments in object storage (the S3 fake), through the policy', () =
 			surveyor,
 			survey.id,
 			{ fileName: '../../bay 3\u0000.jpg', kind: 'photo', caption: 'Bay 3' },
-			new Uint8Array(png)
+			png
 		);
 		expect(response.status).toBe(201);
 		const { attachment } = await response.json();
@@ -66,7 +66,7 @@ describe('attachments in object storage (the S3 fake), through the policy', () =
 
 	it('refuses a type the kind may not hold, recording nothing', async () => {
 		const { survey } = await freshSurvey(await actorFor('surveyor@kestrel-lane.example'));
-		const html = new TextEncoder().encode('<html><script>alert(1)</script></html>');
+		const html = Buffer.from('<html><script>alert(1)</script></html>');
 		const response = await send(
 			surveyor,
 			survey.id,

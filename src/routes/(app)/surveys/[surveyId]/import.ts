@@ -57,9 +57,7 @@ export async function answer<T>(response: Response): Promise<T> {
 
 export async function uploadFile(surveyId: number, file: File): Promise<Upload> {
 	const url = `/api/v1/surveys/${surveyId}/imports?fileName=${encodeURIComponent(file.name)}`;
-	return answer(
-		await fetch(url, { method: 'POST', body: file, headers: { accept: 'application/json' } })
-	);
+	return answer(await fetch(url, { method: 'POST', body: file, headers: fileHeaders(file) }));
 }
 
 export async function postJson<T>(url: string, body: unknown): Promise<T> {
