@@ -18,7 +18,8 @@ function send(
 		headers: {
 			cookie: client.cookie,
 			origin: new URL(appUrl()).origin,
-			accept: 'application/json'
+			accept: 'application/json',
+			'content-type': 'application/octet-stream'
 		},
 		body: new Blob([new Uint8Array(body)])
 	});
@@ -56,7 +57,13 @@ describe('attachments in object storage (the S3 fake), through the policy', () =
 			byteSize: png.length
 		});
 		const file = await surveyor.get(`/api/v1/attachments/${attachment.id}`);
-		expect(Buffer.from(await file.arrayBuffer()).equals(png)).toBe(true);
+		const got = Buffer.from(await file.arrayBuffer());
+		expect([file.status, got.length, got.subarray(0, 8).toString('hex')]).toEqual([
+			200,
+			png.length,
+			png.subarray(0, 8).toString('hex')
+		]);
+		expect(got.equals(png)).toBe(true);
 		const thumb = await surveyor.get(`/api/v1/attachments/${attachment.id}?thumbnail=1`);
 		const meta = await sharp(Buffer.from(await thumb.arrayBuffer())).metadata();
 		expect([meta.format, meta.width, meta.height]).toEqual(['jpeg', 320, 240]);

@@ -34,6 +34,10 @@ function storage() {
 				region: env.S3_REGION,
 				// Path-style URLs (http://host/bucket/key): the fake and most S3-compatible services need them.
 				forcePathStyle: true,
+				// Newer SDKs send bodies aws-chunked with a trailing checksum by default; s3rver and
+				// several S3-compatible services store that framing as the object's bytes.
+				requestChecksumCalculation: 'WHEN_REQUIRED',
+				responseChecksumValidation: 'WHEN_REQUIRED',
 				credentials: {
 					accessKeyId: env.S3_ACCESS_KEY_ID,
 					secretAccessKey: env.S3_SECRET_ACCESS_KEY

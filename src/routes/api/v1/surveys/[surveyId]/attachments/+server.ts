@@ -35,12 +35,16 @@ export const POST: RequestHandler = async ({ locals, params, request, url }) => 
 	const q = querySchema.safeParse(Object.fromEntries(url.searchParams));
 	if (!q.success)
 		apiError(400, 'invalid_input', q.error.issues[0].message, String(q.error.issues[0].path[0]));
-	if (Number(request.headers.get('content-length') ?? 0) > ATTACHMENT_MAX_BYTES || !request.body) {
+	if (Number(request.headers.get('content-length') ?? 0) > ATTACHMENT_MAX_BYTES) {
 		apiError(
 			413,
 			'too-large',
-			`Attachments may be up to ${ATTACHMENT_MAX_BYTES / 1024 / 1024} MB (and not empty).`
+			`Attachments may be up to ${ATTACHMENT_MAX_BYTES / 1024 / 1024} MB.`
 		);
+	}
+	// SvelteKit gives no body to a request without a Content-Type.
+	if (!request.body) {
+		apiError(400, 'empty-file', 'Send the file as the request body, with a Content-Type header.');
 	}
 	const input = {
 		kind: q.data.kind,
