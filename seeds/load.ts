@@ -35,6 +35,7 @@ const DATA_TABLES = [
 	'attachments',
 	'verification_holes',
 	'readings',
+	'import_progress',
 	'import_batches',
 	'members',
 	'surveys',

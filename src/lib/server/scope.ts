@@ -1,10 +1,88 @@
 import { error } from '@sveltejs/kit';
+import { Op, type Transaction, type WhereOptions } from 'sequelize';
+import { Asset, AssetShare, ImportBatch, Member, Survey } from './db/models';
+import { NotFoundError, ReadOnlyError } from './domainErrors';
 import type { Actor } from './policy';
+
+/**
+ * Data scoping, written once: an actor sees the assets their organisation owns and those shared
+ * with it (read-only); surveys, members, readings, holes, imports and attachments through their
+ * asset. Anything else does not exist for them: NotFoundError, which routes answer with 404.
+ */
+export type Access = 'read' | 'write';
+
+export async function sharedAssetIds(organisationId: number): Promise<number[]> {
+	const shares = await AssetShare.findAll({ where: { organisationId }, attributes: ['assetId'] });
+	return shares.map((s) => s.assetId);
+}
+
+/** The where-clause of every asset the actor may read. */
+export async function readableAssetsWhere(actor: Actor): Promise<WhereOptions<Asset>> {
+	const shared = await sharedAssetIds(actor.organisationId);
+	return shared.length
+		? { [Op.or]: [{ organisationId: actor.organisationId }, { id: shared }] }
+		: { organisationId: actor.organisationId };
+}
+
+export async function scopedAsset(
+	actor: Actor,
+	assetId: number,
+	access: Access,
+	transaction?: Transaction
+): Promise<Asset> {
+	const asset = Number.isSafeInteger(assetId)
+		? await Asset.findByPk(assetId, { transaction })
+		: null;
+	if (!asset) throw new NotFoundError('The asset');
+	if (asset.organisationId === actor.organisationId) return asset;
+	const share = await AssetShare.findOne({
+		where: { assetId, organisationId: actor.organisationId },
+		transaction
+	});
+	if (!share) throw new NotFoundError('The asset');
+	if (access === 'write') {
+		throw new ReadOnlyError('This asset is shared with your organisation read-only.');
+	}
+	return asset;
+}
+
+export async function scopedSurvey(
+	actor: Actor,
+	surveyId: number,
+	access: Access,
+	transaction?: Transaction
+): Promise<{ survey: Survey; asset: Asset }> {
+	const survey = Number.isSafeInteger(surveyId)
+		? await Survey.findByPk(surveyId, { transaction })
+		: null;
+	if (!survey) throw new NotFoundError('The survey');
+	const asset = await scopedAsset(actor, survey.assetId, access, transaction).catch((err) => {
+		throw err instanceof NotFoundError ? new NotFoundError('The survey') : err;
+	});
+	return { survey, asset };
+}
+
+export async function scopedMember(actor: Actor, memberId: number, access: Access) {
+	const member = Number.isSafeInteger(memberId) ? await Member.findByPk(memberId) : null;
+	if (!member) throw new NotFoundError('The member');
+	const { survey, asset } = await scopedSurvey(actor, member.surveyId, access).catch((err) => {
+		throw err instanceof NotFoundError ? new NotFoundError('The member') : err;
+	});
+	return { member, survey, asset };
+}
+
+export async function scopedImportBatch(actor: Actor, batchId: number, access: Access) {
+	const batch = Number.isSafeInteger(batchId) ? await ImportBatch.findByPk(batchId) : null;
+	if (!batch) throw new NotFoundError('The import');
+	const { survey, asset } = await scopedSurvey(actor, batch.surveyId, access).catch((err) => {
+		throw err instanceof NotFoundError ? new NotFoundError('The import') : err;
+	});
+	return { batch, survey, asset };
+}
 
 /**
  * A record of the actor's organisation, or 404. Another organisation's record is "not found",
  * never "forbidden", so that ids reveal nothing. Use after `authorize` in every route with an id.
- * (Assets shared read-only with the actor's organisation are the assets issue's own check.)
  */
 export function ownRecord<T extends { organisationId: number }>(
 	record: T | null | undefined,

@@ -10,3 +10,4 @@ export * from './store';
 export * from './portfolio';
 export { visibleAsset, visibleAssets } from './access';
 export * from './view';
+export * from './form';

@@ -5,6 +5,7 @@ import { assessments } from './004-assessments';
 import { assessmentFreeze } from './005-assessment-freeze';
 import { assessmentRisk } from './006-assessment-risk';
 import { apiRateLimits } from './007-api-rate-limits';
+import { intakeProgress } from './008-intake-progress';
 import type { Migration } from './types';
 
 /**
@@ -18,5 +19,6 @@ export const migrations: Migration[] = [
 	assessments,
 	assessmentFreeze,
 	assessmentRisk,
-	apiRateLimits
+	apiRateLimits,
+	intakeProgress
 ];

@@ -26,9 +26,9 @@ export class ImportBatch extends Model<
 	declare rowsTotal: CreationOptional<number>;
 	declare rowsImported: CreationOptional<number>;
 	declare rowsRejected: CreationOptional<number>;
-	declare mapping: CreationOptional<unknown>;
-	declare options: CreationOptional<unknown>;
-	declare warnings: CreationOptional<unknown>;
+	declare mapping: CreationOptional<object | null>;
+	declare options: CreationOptional<object | null>;
+	declare warnings: CreationOptional<string[] | null>;
 	declare rejectedRowsCsv: CreationOptional<string | null>;
 	declare errorMessage: CreationOptional<string | null>;
 	declare cancelRequested: CreationOptional<boolean>;

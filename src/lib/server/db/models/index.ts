@@ -8,6 +8,7 @@ import { Attachment } from './Attachment';
 import { AuditEvent } from './AuditEvent';
 import { ColumnTemplate } from './ColumnTemplate';
 import { ImportBatch } from './ImportBatch';
+import { ImportProgress } from './ImportProgress';
 import { Invitation } from './Invitation';
 import { MailMessage } from './MailMessage';
 import { Member } from './Member';
@@ -33,6 +34,7 @@ export {
 	AuditEvent,
 	ColumnTemplate,
 	ImportBatch,
+	ImportProgress,
 	Invitation,
 	MailMessage,
 	Member,
@@ -59,6 +61,7 @@ const allModels = [
 	AuditEvent,
 	ColumnTemplate,
 	ImportBatch,
+	ImportProgress,
 	Invitation,
 	MailMessage,
 	Member,
@@ -111,6 +114,7 @@ function associate(): void {
 
 	Survey.hasMany(ImportBatch, { foreignKey: 'surveyId' });
 	ImportBatch.belongsTo(Survey, { foreignKey: 'surveyId' });
+	ImportBatch.hasOne(ImportProgress, { foreignKey: 'importBatchId' });
 	Survey.hasMany(Attachment, { foreignKey: 'surveyId' });
 	Attachment.belongsTo(Survey, { foreignKey: 'surveyId' });
 

@@ -1,17 +1,32 @@
-import { redirect } from '@sveltejs/kit';
+import { fail, redirect } from '@sveltejs/kit';
 import type { Actions, PageServerLoad } from './$types';
 import { pageActor } from '$lib/server/guard';
 import { authorize, can } from '$lib/server/policy';
 import { pathId, visibleAsset } from '$lib/server/populations';
 import { approve, getAssessment, withSnapshot } from '$lib/server/assessments';
+import type { AssessmentSnapshot } from '$lib/server/assessments/snapshot';
+import { durabilityFieldGroups, loadAnnex, readDurabilityForm, saveRisk } from '$lib/server/risk';
+
+const exposureClassesOf = (snapshot: AssessmentSnapshot) => [
+	...new Set(snapshot.populations.map((p) => p.key.exposureClass))
+];
 
 export const load: PageServerLoad = async (event) => {
 	const actor = pageActor(event, 'assessment:read');
 	const row = await getAssessment(actor, pathId(event.params.id));
 	const { access } = await visibleAsset(actor, row.assetId);
+	const assessment = await withSnapshot(row);
+	const annex = await loadAnnex(row.id);
 	return {
-		assessment: await withSnapshot(row),
-		canApprove: access === 'own' && can(actor.role, 'assessment:approve')
+		assessment,
+		canApprove: access === 'own' && can(actor.role, 'assessment:approve'),
+		durability: {
+			editable: row.state === 'draft' && access === 'own' && can(actor.role, 'assessment:write'),
+			groups: durabilityFieldGroups(
+				exposureClassesOf(assessment.snapshot),
+				annex?.parameters ?? null
+			)
+		}
 	};
 };
 
@@ -21,5 +36,17 @@ export const actions = {
 		const actor = authorize(locals, 'assessment:approve');
 		const approved = await approve(actor, pathId(params.id));
 		redirect(303, `/assessments/${approved.id}`);
+	},
+	/** The engineer's durability parameters for a draft; the projections are computed and kept. */
+	durability: async ({ locals, params, request }) => {
+		const actor = authorize(locals, 'assessment:write');
+		const id = pathId(params.id);
+		const row = await getAssessment(actor, id);
+		const snapshot = (await withSnapshot(row)).snapshot;
+		const groups = durabilityFieldGroups(exposureClassesOf(snapshot), null);
+		const read = readDurabilityForm(await request.formData(), groups);
+		if (!read.ok) return fail(400, { durability: { errors: read.errors, values: read.values } });
+		await saveRisk(actor, id, read.parameters);
+		redirect(303, `/assessments/${id}?saved=durability#durability`);
 	}
 } satisfies Actions;

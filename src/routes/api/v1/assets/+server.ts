@@ -3,10 +3,21 @@ import type { RequestHandler } from './$types';
 import { authorize } from '$lib/server/policy';
 import { visibleAssets } from '$lib/server/api/visible';
 import { assetAnswer } from '$lib/server/api/ownRecords';
+import { readJson } from '$lib/server/http';
+import { assetSchema } from '$lib/intake/schemas';
+import { createAsset, listAssets } from '$lib/server/intake/assets';
+import { api } from '$lib/server/intake/respond';
 
 /** Assets the caller's organisation owns or has been shared. */
 export const GET: RequestHandler = async ({ locals }) => {
 	const actor = authorize(locals, 'asset:read');
 	const assets = await visibleAssets(actor);
 	return json({ assets: assets.map(({ asset, owned }) => assetAnswer(asset, owned)) });
+};
+
+export const POST: RequestHandler = async ({ locals, request }) => {
+	const actor = authorize(locals, 'asset:write');
+	const input = await readJson(request, assetSchema);
+	const asset = await api(() => createAsset(actor, input));
+	return json({ asset }, { status: 201 });
 };

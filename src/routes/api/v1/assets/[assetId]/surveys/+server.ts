@@ -6,10 +6,21 @@ import { parseInput } from '$lib/server/api/request';
 import { idParam } from '$lib/server/api/schemas';
 import { visibleAsset } from '$lib/server/api/visible';
 import { surveysOf } from '$lib/server/api/ownRecords';
+import { readJson } from '$lib/server/http';
+import { surveySchema } from '$lib/intake/schemas';
+import { createSurvey, listSurveys } from '$lib/server/intake/surveys';
+import { api, idParam as intakeId } from '$lib/server/intake/respond';
 
 export const GET: RequestHandler = async ({ locals, params }) => {
 	const actor = authorize(locals, 'asset:read');
 	const { assetId } = parseInput(z.object({ assetId: idParam('asset') }), params);
 	const asset = await visibleAsset(actor, assetId);
 	return json({ surveys: await surveysOf(asset.id) });
+};
+
+export const POST: RequestHandler = async ({ locals, params, request }) => {
+	const actor = authorize(locals, 'survey:create');
+	const assetId = intakeId(params.assetId);
+	const input = await readJson(request, surveySchema);
+	return json({ survey: await api(() => createSurvey(actor, assetId, input)) }, { status: 201 });
 };

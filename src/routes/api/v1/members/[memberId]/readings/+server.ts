@@ -7,6 +7,10 @@ import { parseInput, queryObject } from '$lib/server/api/request';
 import { idParam } from '$lib/server/api/schemas';
 import { visibleMember } from '$lib/server/api/visible';
 import { readingPage } from '$lib/server/api/ownRecords';
+import { apiError, readJson } from '$lib/server/http';
+import { manualEntrySchema } from '$lib/intake/schemas';
+import { saveManualReadings } from '$lib/server/intake/manualEntry';
+import { api, idParam as intakeId } from '$lib/server/intake/respond';
 
 export const GET: RequestHandler = async ({ locals, params, url }) => {
 	const actor = authorize(locals, 'asset:read');
@@ -14,4 +18,13 @@ export const GET: RequestHandler = async ({ locals, params, url }) => {
 	const { cursor, limit } = parseInput(pageQuerySchema, queryObject(url));
 	const member = await visibleMember(actor, memberId);
 	return json(await readingPage(member.id, cursor ?? 0, limit));
+};
+
+export const POST: RequestHandler = async ({ locals, params, request }) => {
+	const actor = authorize(locals, 'reading:edit');
+	const id = intakeId(params.memberId);
+	const entry = await readJson(request, manualEntrySchema);
+	const outcome = await api(() => saveManualReadings(actor, id, entry));
+	if (outcome.state !== 'completed') apiError(400, 'rows-rejected', outcome.message);
+	return json(outcome, { status: 201 });
 };

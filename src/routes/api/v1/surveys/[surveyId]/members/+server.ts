@@ -6,10 +6,22 @@ import { parseInput } from '$lib/server/api/request';
 import { idParam } from '$lib/server/api/schemas';
 import { visibleSurvey } from '$lib/server/api/visible';
 import { membersOf } from '$lib/server/api/ownRecords';
+import { readJson } from '$lib/server/http';
+import { memberSchema } from '$lib/intake/schemas';
+import { createMembers, listMembers } from '$lib/server/intake/members';
+import { api, idParam as intakeId } from '$lib/server/intake/respond';
 
 export const GET: RequestHandler = async ({ locals, params }) => {
 	const actor = authorize(locals, 'asset:read');
 	const { surveyId } = parseInput(z.object({ surveyId: idParam('survey') }), params);
 	const survey = await visibleSurvey(actor, surveyId);
 	return json({ members: await membersOf(survey.id) });
+};
+
+export const POST: RequestHandler = async ({ locals, params, request }) => {
+	const actor = authorize(locals, 'member:write');
+	const id = intakeId(params.surveyId);
+	const input = await readJson(request, memberSchema);
+	const [member] = await api(() => createMembers(actor, id, [input]));
+	return json({ member }, { status: 201 });
 };

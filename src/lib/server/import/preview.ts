@@ -1,0 +1,93 @@
+import { createReadStream } from 'node:fs';
+import { detectDecimalMark, detectHeaderRow, detectText, type TextDetection } from './detect';
+import { ImportError } from './errors';
+import { IMPORT_LIMITS } from './limits';
+import { headerSignature, suggestMapping, type ReadingField } from './mapping';
+import { sniffFormat, type SourceFormat } from './sniff';
+import { csvRecordBatches, xlsxRecordBatches } from './sources';
+import { readSample } from './stage';
+import { checkXlsxArchive } from './zipGuard';
+
+export interface FilePreview {
+	format: SourceFormat;
+	settings: TextDetection;
+	headers: string[];
+	/** The first data rows as text, for the user to check the mapping against. */
+	rows: string[][];
+	suggestedMapping: Partial<Record<ReadingField, number>>;
+	headerSignature: string;
+	warnings: string[];
+}
+
+async function firstRecords(source: AsyncGenerator<string[][]>, count: number) {
+	const records: string[][] = [];
+	for await (const batch of source) {
+		for (const record of batch) if (record.some((c) => c.trim() !== '')) records.push(record);
+		if (records.length >= count) break;
+	}
+	await source.return(undefined);
+	return records.slice(0, count);
+}
+
+async function xlsxSettings(path: string, bytes: number) {
+	await checkXlsxArchive(path, bytes);
+	let records: string[][];
+	try {
+		records = await firstRecords(xlsxRecordBatches(createReadStream(path)), 40);
+	} catch {
+		throw new ImportError('malformed-xlsx', 'The spreadsheet is damaged and cannot be read.');
+	}
+	const headerRowIndex = detectHeaderRow(records);
+	const settings: TextDetection = {
+		encoding: 'utf-8',
+		delimiter: ',',
+		headerRowIndex,
+		...detectDecimalMark(records, ',')
+	};
+	return { settings, records };
+}
+
+async function csvSettings(path: string, sample: Uint8Array, bytes: number) {
+	const settings = detectText(sample, bytes <= sample.length);
+	const records = await firstRecords(csvRecordBatches(createReadStream(path), settings), 40);
+	return { settings, records };
+}
+
+/** Detects a staged file's format and settings and shows its first rows; refuses what it can. */
+export async function previewStagedFile(
+	path: string,
+	fileName: string,
+	bytes: number
+): Promise<FilePreview> {
+	const sample = await readSample(path);
+	const format = await sniffFormat(sample, fileName);
+	const { settings, records } =
+		format === 'xlsx' ? await xlsxSettings(path, bytes) : await csvSettings(path, sample, bytes);
+	const headerAt = settings.headerRowIndex;
+	const width = Math.max(0, ...records.map((r) => r.length));
+	const headers =
+		headerAt >= 0 ? records[headerAt] : Array.from({ length: width }, (_, i) => `Column ${i + 1}`);
+	const rows = records.slice(headerAt + 1, headerAt + 1 + IMPORT_LIMITS.previewRows);
+	if (records.length === 0)
+		throw new ImportError('empty-file', 'The file is empty: it holds no rows of readings.');
+	if (rows.length === 0)
+		throw new ImportError('header-only', 'The file has a header row but no readings under it.');
+	const warnings: string[] = [];
+	if (settings.mixedDecimalMarks) {
+		warnings.push(
+			'The first rows use both "." and "," as decimal marks; rows written with the other mark will be refused.'
+		);
+	}
+	if (width <= 1) {
+		warnings.push('Every row is a single column: check the delimiter.');
+	}
+	return {
+		format,
+		settings,
+		headers,
+		rows,
+		suggestedMapping: suggestMapping(headers),
+		headerSignature: headerSignature(headers),
+		warnings
+	};
+}

@@ -1,0 +1,197 @@
+import { PassThrough, type Readable } from 'node:stream';
+import type { Transaction } from 'sequelize';
+import { ImportBatch, Member } from '../db/models';
+import { recordAudit } from '../audit';
+import { DuplicateFinder } from './dedupe';
+import { ImportError } from './errors';
+import { IMPORT_LIMITS } from './limits';
+import type { ColumnMapping, ImportOptions } from './mapping';
+import { tickProgress, type ProgressCounts } from './progress';
+import { RejectedRows } from './rejected';
+import { csvRecordBatches, xlsxRecordBatches } from './sources';
+import type { SourceFormat } from './sniff';
+import { createRowValidator, labelKey } from './validateRow';
+import { connectionOf, insertReadings, readingParams } from './writer';
+import { finishImport, type ImportOutcome } from './finish';
+
+export interface ImportJob {
+	batchId: number;
+	surveyId: number;
+	organisationId: number;
+	userId: number | null;
+	format: SourceFormat;
+	/** Opens the file from its start (a staged file, or any stream in the benchmark). */
+	open: () => Readable;
+	mapping: ColumnMapping;
+	options: ImportOptions;
+	/** Reading flags for every row (READING_FLAGS.manual for the entry grid). */
+	flags?: number;
+}
+
+export async function memberIndex(surveyId: number): Promise<Map<string, number>> {
+	const members = await Member.findAll({ where: { surveyId }, attributes: ['id', 'label'] });
+	return new Map(members.map((m) => [labelKey(m.label), m.id]));
+}
+
+/** Tallies of one pass over the file. */
+export interface ImportTally extends ProgressCounts {
+	rejected: RejectedRows;
+	headers: string[];
+	smallCovers: number;
+}
+
+function recordBatches(job: ImportJob, tally: ImportTally): AsyncGenerator<string[][]> {
+	const counter = new PassThrough();
+	counter.on('data', (chunk: Buffer) => (tally.bytesRead += chunk.length));
+	const input = job.open();
+	input.on('error', (err) => counter.destroy(err));
+	input.pipe(counter);
+	return job.format === 'xlsx'
+		? xlsxRecordBatches(counter)
+		: csvRecordBatches(counter, job.options);
+}
+
+function isBlank(cells: string[]): boolean {
+	for (let i = 0; i < cells.length; i++)
+		if (cells[i] !== '' && cells[i].trim() !== '') return false;
+	return true;
+}
+
+/**
+ * Streams the file through validation into the readings table inside `transaction`, with one
+ * INSERT batch in flight while the next is parsed. Throws ImportError('cancelled') on a cancel.
+ */
+async function streamRows(job: ImportJob, transaction: Transaction, tally: ImportTally) {
+	const validate = createRowValidator(job.mapping, job.options, await memberIndex(job.surveyId));
+	const duplicates = new DuplicateFinder();
+	const connection = connectionOf(transaction);
+	const connectionId = connection.threadId ?? undefined;
+	const rejectAll = job.options.failingRows === 'reject-file';
+	let chunk: unknown[][] = [];
+	let inFlight: Promise<void> = Promise.resolve();
+	let lastTick = Date.now();
+	let index = -1; // among non-blank records, as detection counts them
+	let recordNumber = 0; // every record, so row numbers match the file's lines
+	const flush = async () => {
+		await inFlight;
+		const rows = chunk;
+		chunk = [];
+		inFlight = insertReadings(connection, rows).then(() => void (tally.rowsWritten += rows.length));
+		inFlight.catch(() => undefined); // awaited below; this only silences the early rejection
+	};
+	for await (const batch of recordBatches(job, tally))
+		for (const cells of batch) {
+			const rowNumber = ++recordNumber;
+			if (isBlank(cells)) continue;
+			if (++index <= job.options.headerRowIndex) {
+				if (index === job.options.headerRowIndex) tally.headers = cells;
+				continue;
+			}
+			if (++tally.rowsRead > IMPORT_LIMITS.maxRows) {
+				throw new ImportError(
+					'too-many-rows',
+					`The file has more than ${IMPORT_LIMITS.maxRows} rows; split it.`
+				);
+			}
+			const result = validate(cells);
+			if (!result.ok) {
+				tally.rejected.add(rowNumber, result.code, result.reason, cells);
+			} else {
+				const earlier = duplicates.check(result.reading, rowNumber);
+				if (earlier !== undefined) {
+					tally.rejected.add(rowNumber, 'duplicate', `exact duplicate of row ${earlier}`, cells);
+				} else {
+					if (result.reading.coverMm < 4) tally.smallCovers++;
+					if (!(rejectAll && tally.rejected.count > 0)) {
+						chunk.push(readingParams(result.reading, job.batchId, job.flags ?? 0));
+						if (chunk.length >= IMPORT_LIMITS.insertChunkRows) await flush();
+					}
+				}
+			}
+			tally.rowsRejected = tally.rejected.count;
+			if (
+				(tally.rowsRead & 1023) === 0 &&
+				Date.now() - lastTick > IMPORT_LIMITS.progressIntervalMs
+			) {
+				lastTick = Date.now();
+				if (await tickProgress(job.batchId, tally, connectionId)) {
+					throw new ImportError('cancelled', 'The import was cancelled; nothing was written.');
+				}
+			}
+		}
+	await flush();
+	await inFlight;
+}
+
+/**
+ * Runs one import to its end: every row validated, the valid ones written in ONE transaction
+ * that commits together with the batch's final state and its audit event, or nothing written.
+ */
+export async function runImport(job: ImportJob): Promise<ImportOutcome> {
+	const sequelize = ImportBatch.sequelize!;
+	const tally: ImportTally = {
+		rowsRead: 0,
+		rowsWritten: 0,
+		rowsRejected: 0,
+		bytesRead: 0,
+		rejected: new RejectedRows(),
+		headers: [],
+		smallCovers: 0
+	};
+	await ImportBatch.update({ state: 'running' }, { where: { id: job.batchId } });
+	let transaction: Transaction | null = null;
+	try {
+		transaction = await sequelize.transaction();
+		await tickProgress(job.batchId, tally, connectionOf(transaction).threadId ?? undefined);
+		await streamRows(job, transaction, tally);
+		return await finishImport(job, tally, transaction);
+	} catch (err) {
+		if (transaction && !(transaction as unknown as { finished?: string }).finished) {
+			await transaction.rollback().catch(() => undefined);
+		}
+		return failImport(job, tally, err);
+	}
+}
+
+function messageFor(err: unknown): { message: string; state: 'failed' | 'cancelled' } {
+	if (err instanceof ImportError) {
+		return { message: err.message, state: err.code === 'cancelled' ? 'cancelled' : 'failed' };
+	}
+	const lost = /connection|socket|killed|ECONNRESET|closed/i.test(String((err as Error)?.message));
+	if (!lost) console.error('import failed unexpectedly:', err);
+	return {
+		state: 'failed',
+		message: lost
+			? 'The connection to the database was lost during the import; nothing was written. Start the import again.'
+			: 'The import failed because of an error on our side; nothing was written. Try again, and tell us if it happens again.'
+	};
+}
+
+async function failImport(
+	job: ImportJob,
+	tally: ImportTally,
+	err: unknown
+): Promise<ImportOutcome> {
+	const { message, state } = messageFor(err);
+	await ImportBatch.update(
+		{
+			state,
+			errorMessage: message.slice(0, 1000),
+			rowsTotal: tally.rowsRead,
+			rowsImported: 0,
+			rowsRejected: tally.rejected.count,
+			rejectedRowsCsv: tally.rejected.toCsv(tally.headers),
+			finishedAt: new Date()
+		},
+		{ where: { id: job.batchId } }
+	);
+	await recordAudit({
+		action: `import.${state}`,
+		organisationId: job.organisationId,
+		userId: job.userId,
+		subjectType: 'import_batch',
+		subjectId: job.batchId,
+		detail: { rowsRead: tally.rowsRead, message }
+	});
+	return { state, message, rowsImported: 0, rowsRejected: tally.rejected.count, warnings: [] };
+}

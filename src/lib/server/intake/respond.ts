@@ -1,0 +1,35 @@
+import { isHttpError, isRedirect } from '@sveltejs/kit';
+import { apiError } from '../http';
+import { InputError, NotFoundError, ReadOnlyError, StateError } from '../domainErrors';
+import { ImportError } from '../import/errors';
+
+/** Turns the data layer's expected errors into the API's error shape; rethrows the rest. */
+export function toApiError(err: unknown): never {
+	if (isHttpError(err) || isRedirect(err)) throw err;
+	if (err instanceof NotFoundError) apiError(404, 'not_found', err.message);
+	if (err instanceof ReadOnlyError) apiError(403, 'read_only', err.message);
+	if (err instanceof StateError) apiError(409, 'conflict', err.message);
+	if (err instanceof InputError) {
+		apiError(400, 'invalid_input', err.message, Object.keys(err.fieldErrors)[0]);
+	}
+	if (err instanceof ImportError) apiError(err.status, err.code, err.message);
+	throw err;
+}
+
+/** Runs a route's data work, answering expected failures in the API's shape. */
+export async function api<T>(work: () => Promise<T>): Promise<T> {
+	try {
+		return await work();
+	} catch (err) {
+		toApiError(err);
+	}
+}
+
+/** A path parameter that must be a positive integer id; anything else is a 404, not a 500. */
+export function idParam(value: string | undefined): number {
+	const id = Number(value);
+	if (!/^\d{1,10}$/.test(value ?? '') || !Number.isSafeInteger(id) || id < 1) {
+		apiError(404, 'not_found', 'Not found.');
+	}
+	return id;
+}

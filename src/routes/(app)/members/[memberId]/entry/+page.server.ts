@@ -1,0 +1,42 @@
+import type { Actions, PageServerLoad } from './$types';
+import { authorize, can } from '$lib/server/policy';
+import { pageActor } from '$lib/server/guard';
+import { parseForm } from '$lib/server/forms';
+import { Reading } from '$lib/server/db';
+import { holeSchema } from '$lib/intake/schemas';
+import { createHole, listHoles } from '$lib/server/intake/holes';
+import { actOr, loadOr404 } from '$lib/server/intake/pages';
+import { idParam } from '$lib/server/intake/respond';
+import { scopedMember } from '$lib/server/scope';
+
+export const load: PageServerLoad = async (event) => {
+	const actor = pageActor(event, 'survey:read');
+	const memberId = idParam(event.params.memberId);
+	const { member, survey, asset } = await loadOr404(() => scopedMember(actor, memberId, 'read'));
+	const editable =
+		asset.organisationId === actor.organisationId &&
+		(survey.status === 'draft' || survey.status === 'returned');
+	const holes = await listHoles(actor, memberId);
+	return {
+		member: member.get({ plain: true }),
+		survey: { id: survey.id, title: survey.title, status: survey.status },
+		readingCount: await Reading.count({ where: { memberId } }),
+		holes: holes.map((h) => h.get({ plain: true })),
+		can: {
+			enter: editable && can(actor.role, 'reading:edit'),
+			holes: editable && can(actor.role, 'hole:write')
+		}
+	};
+};
+
+export const actions = {
+	addHole: async ({ locals, request, params }) => {
+		const actor = authorize(locals, 'hole:write');
+		const parsed = await parseForm(request, holeSchema);
+		if (!parsed.ok) return parsed.failure;
+		const done = await actOr(parsed.form, () =>
+			createHole(actor, idParam(params.memberId), parsed.data)
+		);
+		return 'id' in done ? { ok: `Hole ${parsed.data.label} recorded.` } : done;
+	}
+} satisfies Actions;

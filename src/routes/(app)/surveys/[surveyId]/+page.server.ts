@@ -1,0 +1,102 @@
+import { fail } from '@sveltejs/kit';
+import type { Actions, PageServerLoad } from './$types';
+import { Attachment } from '$lib/server/db';
+import { authorize, can } from '$lib/server/policy';
+import { pageActor } from '$lib/server/guard';
+import { parseForm } from '$lib/server/forms';
+import { memberSchema, reviewSchema } from '$lib/intake/schemas';
+import { createMembers, listMembers } from '$lib/server/intake/members';
+import { parsePastedMembers } from '$lib/server/intake/pastedMembers';
+import { transitionSurvey } from '$lib/server/intake/surveys';
+import { listImports } from '$lib/server/import/batchActions';
+import { IMPORT_LIMITS } from '$lib/server/import/limits';
+import { actOr, loadOr404 } from '$lib/server/intake/pages';
+import { idParam } from '$lib/server/intake/respond';
+import { scopedSurvey } from '$lib/server/scope';
+
+export const load: PageServerLoad = async (event) => {
+	const actor = pageActor(event, 'survey:read');
+	const surveyId = idParam(event.params.surveyId);
+	const { survey, asset } = await loadOr404(() => scopedSurvey(actor, surveyId, 'read'));
+	const own = asset.organisationId === actor.organisationId;
+	const editable = own && (survey.status === 'draft' || survey.status === 'returned');
+	const attachments = await Attachment.findAll({ where: { surveyId }, order: [['id', 'DESC']] });
+	return {
+		survey: survey.get({ plain: true }),
+		asset: { id: asset.id, name: asset.name, designCode: asset.designCode },
+		members: await listMembers(actor, surveyId),
+		imports: await listImports(actor, surveyId),
+		attachments: attachments.map((a) => ({
+			id: a.id,
+			fileName: a.fileName,
+			kind: a.kind,
+			contentType: a.contentType,
+			byteSize: a.byteSize,
+			hasThumbnail: !!a.thumbnailKey,
+			caption: a.caption
+		})),
+		maxImportMb: IMPORT_LIMITS.maxFileBytes / 1024 / 1024,
+		can: {
+			editMembers: editable && can(actor.role, 'member:write'),
+			importReadings: editable && can(actor.role, 'reading:import'),
+			upload: editable && can(actor.role, 'attachment:upload'),
+			submit: editable && can(actor.role, 'survey:submit'),
+			review: own && survey.status === 'submitted' && can(actor.role, 'survey:review')
+		}
+	};
+};
+
+const surveyIdOf = (params: { surveyId: string }) => idParam(params.surveyId);
+
+export const actions = {
+	addMember: async ({ locals, request, params }) => {
+		const actor = authorize(locals, 'member:write');
+		const parsed = await parseForm(request, memberSchema);
+		if (!parsed.ok) return parsed.failure;
+		const done = await actOr(parsed.form, () =>
+			createMembers(actor, surveyIdOf(params), [parsed.data])
+		);
+		return Array.isArray(done) ? { ok: `Member ${parsed.data.label} added.` } : done;
+	},
+	pasteMembers: async ({ locals, request, params }) => {
+		const actor = authorize(locals, 'member:write');
+		const form = await request.formData();
+		const table = String(form.get('table') ?? '');
+		if (!table.trim())
+			return fail(400, {
+				errors: { table: 'Paste a table first.' },
+				values: {},
+				message: undefined
+			});
+		const done = await actOr(form, async () => {
+			const { asset } = await scopedSurvey(actor, surveyIdOf(params), 'write');
+			return createMembers(
+				actor,
+				surveyIdOf(params),
+				parsePastedMembers(table, asset.designCode),
+				2
+			);
+		});
+		return Array.isArray(done) ? { ok: `${done.length} members added.` } : done;
+	},
+	submit: async ({ locals, request, params }) => {
+		const actor = authorize(locals, 'survey:submit');
+		const form = await request.formData();
+		const done = await actOr(form, () => transitionSurvey(actor, surveyIdOf(params), 'submit'));
+		return 'id' in done
+			? { ok: 'Survey submitted for review; its readings are now frozen.' }
+			: done;
+	},
+	review: async ({ locals, request, params }) => {
+		const actor = authorize(locals, 'survey:review');
+		const parsed = await parseForm(request, reviewSchema);
+		if (!parsed.ok) return parsed.failure;
+		const step = parsed.data.decision === 'approve' ? 'approve' : 'return';
+		const done = await actOr(parsed.form, () =>
+			transitionSurvey(actor, surveyIdOf(params), step, parsed.data.comment)
+		);
+		return 'id' in done
+			? { ok: step === 'approve' ? 'Survey approved.' : 'Survey returned to the surveyor.' }
+			: done;
+	}
+} satisfies Actions;

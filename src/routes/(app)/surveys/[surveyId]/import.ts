@@ -1,0 +1,75 @@
+/** The browser side of the import API: typed calls and the shapes they answer. */
+export const FIELDS = [
+	['memberLabel', 'Member label'],
+	['x', 'x'],
+	['y', 'y'],
+	['cover', 'Cover'],
+	['diameter', 'Bar diameter'],
+	['spacing', 'Bar spacing'],
+	['direction', 'Direction or layer'],
+	['note', 'Note']
+] as const;
+export type Field = (typeof FIELDS)[number][0];
+
+export interface Upload {
+	batchId: number;
+	preview: {
+		format: 'csv' | 'xlsx';
+		settings: Record<string, string | number | boolean>;
+		headers: string[];
+		rows: string[][];
+		suggestedMapping: Partial<Record<Field, number>>;
+		headerSignature: string;
+		warnings: string[];
+	};
+	duplicateOf: { batchId: number; fileName: string | null; rowsImported: number } | null;
+	templates: {
+		id: number;
+		name: string;
+		mapping: Record<string, number | null>;
+		options: Record<string, unknown>;
+	}[];
+}
+
+export interface Status {
+	id: number;
+	state: string;
+	rowsImported: number;
+	rowsRejected: number;
+	errorMessage: string | null;
+	warnings: string[];
+	hasRejectedRows: boolean;
+	progress: { rowsRead: number; fraction: number } | null;
+}
+
+/** A file upload's headers: the server ignores a body sent without a Content-Type. */
+export function fileHeaders(file: File): Record<string, string> {
+	return { accept: 'application/json', 'content-type': file.type || 'application/octet-stream' };
+}
+
+/** Reads an API answer; an error answer becomes an Error with the server's own message. */
+export async function answer<T>(response: Response): Promise<T> {
+	const body = await response.json().catch(() => null);
+	if (!response.ok)
+		throw new Error(body?.error?.message ?? `The server answered ${response.status}.`);
+	return body as T;
+}
+
+export async function uploadFile(surveyId: number, file: File): Promise<Upload> {
+	const url = `/api/v1/surveys/${surveyId}/imports?fileName=${encodeURIComponent(file.name)}`;
+	return answer(await fetch(url, { method: 'POST', body: file, headers: fileHeaders(file) }));
+}
+
+export async function postJson<T>(url: string, body: unknown): Promise<T> {
+	return answer(
+		await fetch(url, {
+			method: 'POST',
+			body: JSON.stringify(body),
+			headers: { 'content-type': 'application/json', accept: 'application/json' }
+		})
+	);
+}
+
+export async function status(batchId: number): Promise<Status> {
+	return (await answer<{ import: Status }>(await fetch(`/api/v1/imports/${batchId}`))).import;
+}

@@ -1,0 +1,27 @@
+import { Readable } from 'node:stream';
+import type { RequestHandler } from './$types';
+import { authorize } from '$lib/server/policy';
+import { scopedAttachment } from '$lib/server/storage/attachments';
+import { getObject } from '$lib/server/storage/s3';
+import { contentDisposition } from '$lib/server/storage/names';
+import { api, idParam } from '$lib/server/intake/respond';
+
+/** Downloads go through the policy and the scope, never straight to the bucket. */
+export const GET: RequestHandler = async ({ locals, params, url }) => {
+	const actor = authorize(locals, 'attachment:read');
+	const attachment = await api(() => scopedAttachment(actor, idParam(params.attachmentId)));
+	const wantThumb = url.searchParams.get('thumbnail') === '1' && attachment.thumbnailKey;
+	const object = await getObject(wantThumb ? attachment.thumbnailKey! : attachment.storageKey);
+	const isImage = attachment.contentType.startsWith('image/');
+	return new Response(Readable.toWeb(object.body) as ReadableStream, {
+		headers: {
+			'content-type': wantThumb ? 'image/jpeg' : attachment.contentType,
+			'content-disposition': contentDisposition(
+				attachment.fileName,
+				isImage ? 'inline' : 'attachment'
+			),
+			'x-content-type-options': 'nosniff',
+			'cache-control': 'private, no-store'
+		}
+	});
+};

@@ -1,0 +1,11 @@
+import { json } from '@sveltejs/kit';
+import type { RequestHandler } from './$types';
+import { authorize } from '$lib/server/policy';
+import { importStatus } from '$lib/server/import/batchActions';
+import { api, idParam } from '$lib/server/intake/respond';
+
+/** State and progress of an import, from MariaDB: any app process can answer it. */
+export const GET: RequestHandler = async ({ locals, params }) => {
+	const actor = authorize(locals, 'survey:read');
+	return json({ import: await api(() => importStatus(actor, idParam(params.batchId))) });
+};

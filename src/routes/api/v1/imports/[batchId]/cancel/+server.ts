@@ -1,0 +1,11 @@
+import { json } from '@sveltejs/kit';
+import type { RequestHandler } from './$types';
+import { authorize } from '$lib/server/policy';
+import { cancelImport } from '$lib/server/import/batchActions';
+import { api, idParam } from '$lib/server/intake/respond';
+
+export const POST: RequestHandler = async ({ locals, params }) => {
+	const actor = authorize(locals, 'reading:import');
+	await api(() => cancelImport(actor, idParam(params.batchId)));
+	return json({ cancelRequested: true }, { status: 202 });
+};

@@ -1,0 +1,19 @@
+import { json } from '@sveltejs/kit';
+import type { RequestHandler } from './$types';
+import { authorize } from '$lib/server/policy';
+import { readJson } from '$lib/server/http';
+import { holeSchema } from '$lib/intake/schemas';
+import { createHole, listHoles } from '$lib/server/intake/holes';
+import { api, idParam } from '$lib/server/intake/respond';
+
+export const GET: RequestHandler = async ({ locals, params }) => {
+	const actor = authorize(locals, 'survey:read');
+	return json({ holes: await api(() => listHoles(actor, idParam(params.memberId))) });
+};
+
+export const POST: RequestHandler = async ({ locals, params, request }) => {
+	const actor = authorize(locals, 'hole:write');
+	const id = idParam(params.memberId);
+	const input = await readJson(request, holeSchema);
+	return json({ hole: await api(() => createHole(actor, id, input)) }, { status: 201 });
+};

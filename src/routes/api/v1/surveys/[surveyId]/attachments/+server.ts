@@ -1,0 +1,57 @@
+import { json } from '@sveltejs/kit';
+import { z } from 'zod';
+import type { RequestHandler } from './$types';
+import { Attachment } from '$lib/server/db';
+import { authorize } from '$lib/server/policy';
+import { apiError } from '$lib/server/http';
+import { ATTACHMENT_MAX_BYTES, uploadAttachment } from '$lib/server/storage/attachments';
+import { scopedSurvey } from '$lib/server/scope';
+import { api, idParam } from '$lib/server/intake/respond';
+
+const querySchema = z.object({
+	fileName: z.string().min(1, 'Give the file name in ?fileName=.').max(500),
+	kind: z.enum(['photo', 'drawing', 'meter-file', 'other'], {
+		error: 'kind must be photo, drawing, meter-file or other.'
+	}),
+	caption: z.string().max(255).optional(),
+	memberId: z.coerce.number().int().positive().optional()
+});
+
+export const GET: RequestHandler = async ({ locals, params }) => {
+	const actor = authorize(locals, 'attachment:read');
+	const id = idParam(params.surveyId);
+	await api(() => scopedSurvey(actor, id, 'read'));
+	const attachments = await Attachment.findAll({
+		where: { surveyId: id },
+		order: [['id', 'DESC']]
+	});
+	return json({ attachments });
+};
+
+/** The file as the raw body; kind, name and caption in the query string. */
+export const POST: RequestHandler = async ({ locals, params, request, url }) => {
+	const actor = authorize(locals, 'attachment:upload');
+	const surveyId = idParam(params.surveyId);
+	const q = querySchema.safeParse(Object.fromEntries(url.searchParams));
+	if (!q.success)
+		apiError(400, 'invalid_input', q.error.issues[0].message, String(q.error.issues[0].path[0]));
+	if (Number(request.headers.get('content-length') ?? 0) > ATTACHMENT_MAX_BYTES) {
+		apiError(
+			413,
+			'too-large',
+			`Attachments may be up to ${ATTACHMENT_MAX_BYTES / 1024 / 1024} MB.`
+		);
+	}
+	// SvelteKit gives no body to a request without a Content-Type.
+	if (!request.body) {
+		apiError(400, 'empty-file', 'Send the file as the request body, with a Content-Type header.');
+	}
+	const input = {
+		kind: q.data.kind,
+		fileName: q.data.fileName,
+		caption: q.data.caption ?? null,
+		memberId: q.data.memberId ?? null
+	};
+	const attachment = await api(() => uploadAttachment(actor, surveyId, input, request.body!));
+	return json({ attachment }, { status: 201 });
+};

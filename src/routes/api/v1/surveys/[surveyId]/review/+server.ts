@@ -1,0 +1,16 @@
+import { json } from '@sveltejs/kit';
+import type { RequestHandler } from './$types';
+import { authorize } from '$lib/server/policy';
+import { readJson } from '$lib/server/http';
+import { reviewSchema } from '$lib/intake/schemas';
+import { transitionSurvey } from '$lib/server/intake/surveys';
+import { api, idParam } from '$lib/server/intake/respond';
+
+/** submitted → approved, or returned with a comment saying what must change. */
+export const POST: RequestHandler = async ({ locals, params, request }) => {
+	const actor = authorize(locals, 'survey:review');
+	const id = idParam(params.surveyId);
+	const input = await readJson(request, reviewSchema);
+	const step = input.decision === 'approve' ? 'approve' : 'return';
+	return json({ survey: await api(() => transitionSurvey(actor, id, step, input.comment)) });
+};

@@ -1,0 +1,73 @@
+import { mkdirSync } from 'node:fs';
+import type { Browser, Page } from 'playwright-core';
+import type { Sequelize } from 'sequelize';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { launchChromium, SCREENSHOT_DIR } from '../helpers/browser';
+import { appUrl } from '../helpers/env';
+import { actorFor, countReadings, freshSurvey, testSequelize } from '../helpers/intake';
+import { DEMO_PASSWORD, DEMO_USERS } from '../helpers/session';
+
+describe('intake pages in chromium (the built app)', () => {
+	let browser: Browser;
+	let page: Page;
+	let sequelize: Sequelize;
+	beforeAll(async () => {
+		mkdirSync(SCREENSHOT_DIR, { recursive: true });
+		sequelize = testSequelize();
+		browser = await launchChromium();
+		page = await browser.newPage({ viewport: { width: 1280, height: 900 } });
+		await page.goto(`${appUrl()}/sign-in`, { waitUntil: 'networkidle' });
+		await page.fill('input[name=email]', DEMO_USERS.surveyor);
+		await page.fill('input[name=password]', DEMO_PASSWORD);
+		await Promise.all([page.waitForURL(/dashboard/), page.click('button[type=submit]')]);
+	});
+	afterAll(async () => {
+		await browser?.close();
+		await sequelize?.close();
+	});
+
+	it('lists assets', async () => {
+		await page.goto(`${appUrl()}/assets`, { waitUntil: 'networkidle' });
+		await expect(page.getByRole('heading', { name: 'Assets' }).isVisible()).resolves.toBe(true);
+		expect(await page.locator('table tbody tr').count()).toBeGreaterThan(0);
+		await page.screenshot({ path: `${SCREENSHOT_DIR}/intake-assets.png`, fullPage: true });
+	});
+
+	it('imports a CSV through the import panel, with the suggested mapping', async () => {
+		const actor = await actorFor(DEMO_USERS.surveyor);
+		const { survey } = await freshSurvey(actor);
+		await page.goto(`${appUrl()}/surveys/${survey.id}`, { waitUntil: 'networkidle' });
+		await page.setInputFiles('#import-file', {
+			name: 'site-log.csv',
+			mimeType: 'text/csv',
+			buffer: Buffer.from(
+				'Member;X (mm);Y (mm);Cover (mm)\nM-01;0;0;31,5\nM-02;150;0;29,0\nM-03;300;0;33,5\n'
+			)
+		});
+		await page.getByRole('button', { name: 'Upload and preview' }).click();
+		await page.getByRole('button', { name: 'Check and import' }).waitFor();
+		expect(await page.locator('#map-cover').inputValue()).toBe('3');
+		await page.screenshot({ path: `${SCREENSHOT_DIR}/intake-mapping.png`, fullPage: true });
+		await page.getByRole('button', { name: 'Check and import' }).click();
+		await page.getByText('3 readings imported.').waitFor({ timeout: 20_000 });
+		expect(await countReadings(sequelize, { surveyId: survey.id })).toBe(3);
+		await page.screenshot({ path: `${SCREENSHOT_DIR}/intake-survey.png`, fullPage: true });
+	});
+
+	it('enters readings in the grid, refusing a bad cell as you type, at tablet width', async () => {
+		const actor = await actorFor(DEMO_USERS.surveyor);
+		const { members } = await freshSurvey(actor);
+		await page.setViewportSize({ width: 820, height: 1100 });
+		await page.goto(`${appUrl()}/members/${members[0].id}/entry`, { waitUntil: 'networkidle' });
+		await page.fill('#cell-0-2', '31.5');
+		await page.keyboard.press('Enter');
+		await page.keyboard.type('abc');
+		await page.getByText('Row 2: Cover (mm) is not a number').waitFor();
+		expect(await page.getByRole('button', { name: /Save 2 readings/ }).isDisabled()).toBe(true);
+		await page.fill('#cell-1-2', '29');
+		await page.getByRole('button', { name: 'Save 2 readings' }).click();
+		await page.getByText('2 readings saved.').waitFor();
+		expect(await countReadings(sequelize, { surveyId: members[0].surveyId })).toBe(2);
+		await page.screenshot({ path: `${SCREENSHOT_DIR}/intake-member-tablet.png`, fullPage: true });
+	});
+});
