@@ -8,6 +8,7 @@ import { QueryTypes, type Sequelize } from 'sequelize';
 import { randomBytes } from 'node:crypto';
 import { signUpNewOrganisation } from './accounts';
 import type { HttpClient } from './session';
+import { appUrl } from './env';
 
 export interface OrganisationIds {
 	assetId: number;
@@ -17,6 +18,8 @@ export interface OrganisationIds {
 	membershipId: number;
 	tokenId: number;
 	exportId: number;
+	batchId: number;
+	attachmentId: number;
 	/** A word that appears in the organisation's own asset name and nowhere else. */
 	marker: string;
 }
@@ -118,8 +121,33 @@ export async function createOtherOrganisation(sequelize: Sequelize): Promise<Oth
 	const records = await copyRecords(sequelize, membership.organisationId, marker);
 	const made = await draftAndToken(client, records.assetId);
 	const exportId = await researchExportOf(client);
+	const uploads = await uploadsTo(client, records.surveyId, marker);
 	return {
 		admin: client,
-		ids: { ...records, ...made, exportId, membershipId: membership.id, marker }
+		ids: { ...records, ...made, ...uploads, exportId, membershipId: membership.id, marker }
 	};
+}
+
+/** A reading file staged for import and an attachment, uploaded to a draft survey over HTTP. */
+export async function uploadsTo(client: HttpClient, surveyId: number, marker: string) {
+	const raw = (path: string, body: string, type: string) =>
+		fetch(new URL(path, appUrl()), {
+			method: 'POST',
+			body,
+			headers: { cookie: client.cookie, 'content-type': type, origin: new URL(appUrl()).origin }
+		});
+	const file = `Member,X (mm),Y (mm),Cover (mm)\r\nHOSTILE-${marker},0,0,41.5\r\n`;
+	const staged = await raw(`/api/v1/surveys/${surveyId}/imports?fileName=r.csv`, file, 'text/csv');
+	if (staged.status !== 201)
+		throw new Error(`upload failed: ${staged.status} ${await staged.text()}`);
+	const { batchId } = (await staged.json()) as { batchId: number };
+	const attached = await raw(
+		`/api/v1/surveys/${surveyId}/attachments?fileName=note.txt&kind=other`,
+		'a note',
+		'text/plain'
+	);
+	if (attached.status !== 201)
+		throw new Error(`attach failed: ${attached.status} ${await attached.text()}`);
+	const attachmentId = ((await attached.json()) as { attachment: { id: number } }).attachment.id;
+	return { batchId, attachmentId };
 }

@@ -6,6 +6,7 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { QueryTypes, type Sequelize } from 'sequelize';
 import { testSequelize } from '../helpers/database';
+import { appUrl } from '../helpers/env';
 import { signInAs, type HttpClient } from '../helpers/session';
 import { routeIdsWithParams } from '../helpers/routes';
 import {
@@ -17,7 +18,7 @@ import {
 } from '../helpers/otherOrganisation';
 
 type Probe = {
-	method: 'GET' | 'POST' | 'PUT' | 'PATCH' | 'DELETE' | 'FORM';
+	method: 'GET' | 'POST' | 'PUT' | 'PATCH' | 'DELETE' | 'FORM' | 'RAW';
 	path: string;
 	body?: unknown;
 };
@@ -118,7 +119,105 @@ const ORG_ROUTES: Record<string, (v: OrganisationIds, own: OrganisationIds) => P
 		{ method: 'GET', path: `/api/v1/research/exports/${v.exportId}` }
 	],
 	'/api/v1/surveys/[surveyId]/members': (v) => [
-		{ method: 'GET', path: `/api/v1/surveys/${v.surveyId}/members` }
+		{ method: 'GET', path: `/api/v1/surveys/${v.surveyId}/members` },
+		{ method: 'POST', path: `/api/v1/surveys/${v.surveyId}/members`, body: { label: 'STOLEN-4' } }
+	],
+	'/assets/[assetId]': (v) => [
+		{ method: 'GET', path: `/assets/${v.assetId}` },
+		{
+			method: 'FORM',
+			path: `/assets/${v.assetId}?/createSurvey`,
+			body: { title: 'Stolen', surveyDate: '2026-01-01' }
+		}
+	],
+	'/members/[memberId]/entry': (v) => [
+		{ method: 'GET', path: `/members/${v.memberId}/entry` },
+		{
+			method: 'FORM',
+			path: `/members/${v.memberId}/entry?/addHole`,
+			body: { label: 'H1', meterReadingMm: '40', measuredMm: '41' }
+		}
+	],
+	'/surveys/[surveyId]': (v) => [
+		{ method: 'GET', path: `/surveys/${v.surveyId}` },
+		{ method: 'FORM', path: `/surveys/${v.surveyId}?/addMember`, body: { label: 'STOLEN-1' } },
+		{ method: 'FORM', path: `/surveys/${v.surveyId}?/pasteMembers`, body: { text: 'STOLEN-2' } },
+		{ method: 'FORM', path: `/surveys/${v.surveyId}?/submit` },
+		{ method: 'FORM', path: `/surveys/${v.surveyId}?/review`, body: { decision: 'approve' } }
+	],
+	'/api/v1/assets/[assetId]': (v) => [
+		{ method: 'GET', path: `/api/v1/assets/${v.assetId}` },
+		{ method: 'PUT', path: `/api/v1/assets/${v.assetId}`, body: { name: 'Stolen asset' } }
+	],
+	'/api/v1/attachments/[attachmentId]': (v) => [
+		{ method: 'GET', path: `/api/v1/attachments/${v.attachmentId}` },
+		{ method: 'GET', path: `/api/v1/attachments/${v.attachmentId}?thumbnail=1` }
+	],
+	'/api/v1/imports/[batchId]': (v) => [{ method: 'GET', path: `/api/v1/imports/${v.batchId}` }],
+	'/api/v1/imports/[batchId]/cancel': (v) => [
+		{ method: 'POST', path: `/api/v1/imports/${v.batchId}/cancel`, body: {} }
+	],
+	'/api/v1/imports/[batchId]/rejected': (v) => [
+		{ method: 'GET', path: `/api/v1/imports/${v.batchId}/rejected` }
+	],
+	'/api/v1/imports/[batchId]/start': (v) => [
+		{
+			method: 'POST',
+			path: `/api/v1/imports/${v.batchId}/start`,
+			body: {
+				mapping: { memberLabel: 0, x: 1, y: 2, cover: 3 },
+				options: {},
+				confirmDuplicate: true
+			}
+		}
+	],
+	'/api/v1/imports/[batchId]/undo': (v) => [
+		{ method: 'POST', path: `/api/v1/imports/${v.batchId}/undo`, body: {} }
+	],
+	'/api/v1/members/[memberId]': (v) => [
+		{ method: 'GET', path: `/api/v1/members/${v.memberId}` },
+		{ method: 'PUT', path: `/api/v1/members/${v.memberId}`, body: { label: 'STOLEN' } }
+	],
+	'/api/v1/members/[memberId]/holes': (v) => [
+		{ method: 'GET', path: `/api/v1/members/${v.memberId}/holes` },
+		{
+			method: 'POST',
+			path: `/api/v1/members/${v.memberId}/holes`,
+			body: { label: 'H1', meterReadingMm: 40, measuredMm: 41 }
+		}
+	],
+	'/api/v1/surveys/[surveyId]': (v) => [
+		{ method: 'GET', path: `/api/v1/surveys/${v.surveyId}` },
+		{ method: 'PUT', path: `/api/v1/surveys/${v.surveyId}`, body: { title: 'Stolen survey' } }
+	],
+	'/api/v1/surveys/[surveyId]/attachments': (v) => [
+		{ method: 'GET', path: `/api/v1/surveys/${v.surveyId}/attachments` },
+		{
+			method: 'RAW',
+			path: `/api/v1/surveys/${v.surveyId}/attachments?fileName=x.txt&kind=other`,
+			body: 'x'
+		}
+	],
+	'/api/v1/surveys/[surveyId]/imports': (v) => [
+		{ method: 'GET', path: `/api/v1/surveys/${v.surveyId}/imports` },
+		{
+			method: 'RAW',
+			path: `/api/v1/surveys/${v.surveyId}/imports?fileName=x.csv`,
+			body: 'Member,Cover\nX,40\n'
+		}
+	],
+	'/api/v1/surveys/[surveyId]/members/bulk': (v) => [
+		{
+			method: 'POST',
+			path: `/api/v1/surveys/${v.surveyId}/members/bulk`,
+			body: { text: 'STOLEN-3' }
+		}
+	],
+	'/api/v1/surveys/[surveyId]/review': (v) => [
+		{ method: 'POST', path: `/api/v1/surveys/${v.surveyId}/review`, body: { decision: 'approve' } }
+	],
+	'/api/v1/surveys/[surveyId]/submit': (v) => [
+		{ method: 'POST', path: `/api/v1/surveys/${v.surveyId}/submit`, body: {} }
 	],
 	'/api/v1/tokens/[id]': (v) => [{ method: 'DELETE', path: `/api/v1/tokens/${v.tokenId}` }]
 };
@@ -151,8 +250,33 @@ function send(client: HttpClient, probe: Probe): Promise<Response> {
 			return client.patchJson(probe.path, probe.body);
 		case 'DELETE':
 			return client.delete(probe.path);
+		case 'RAW':
+			return fetch(new URL(probe.path, appUrl()), {
+				method: 'POST',
+				body: String(probe.body),
+				headers: {
+					cookie: client.cookie,
+					'content-type': 'text/plain',
+					origin: new URL(appUrl()).origin
+				}
+			});
 	}
 }
+
+/** Ids that exist nowhere (the largest an id parameter accepts is 4,294,967,295). */
+const NOWHERE = 4_000_000_000;
+const GHOST: OrganisationIds = {
+	assetId: NOWHERE,
+	surveyId: NOWHERE,
+	memberId: NOWHERE,
+	assessmentId: NOWHERE,
+	membershipId: NOWHERE,
+	tokenId: NOWHERE,
+	exportId: NOWHERE,
+	batchId: NOWHERE,
+	attachmentId: NOWHERE,
+	marker: 'nowhere'
+};
 
 let sequelize: Sequelize;
 let other: OtherOrganisation;
@@ -172,7 +296,14 @@ beforeAll(async () => {
 		{ replacements: ['engineer@kestrel-lane.example'], type: QueryTypes.SELECT, plain: true }
 	);
 	demoOptIn = await optInOf(1);
+	const [attachmentId] = await sequelize.query(
+		`INSERT INTO attachments (survey_id, kind, file_name, content_type, byte_size, sha256, storage_key,
+		   uploaded_by_user_id, created_at) VALUES (1, 'other', 'demo.txt', 'text/plain', 1, ?, ?, 1, NOW())`,
+		{ replacements: ['0'.repeat(64), `hostile/${Date.now()}`], type: QueryTypes.INSERT }
+	);
 	demo = {
+		attachmentId: Number(attachmentId),
+		batchId: 1,
 		assetId: 1,
 		surveyId: 1,
 		memberId: 1,
@@ -217,7 +348,9 @@ describe('the fixture is real', () => {
 				`/api/v1/assessments/${ids.assessmentId}`,
 				`/api/v1/surveys/${ids.surveyId}/members`,
 				`/api/v1/members/${ids.memberId}/readings`,
-				`/api/v1/research/exports/${ids.exportId}`
+				`/api/v1/research/exports/${ids.exportId}`,
+				`/api/v1/imports/${ids.batchId}`,
+				`/api/v1/surveys/${ids.surveyId}/attachments`
 			]) {
 				expect((await client.get(path)).status, path).toBe(200);
 			}
@@ -240,11 +373,22 @@ describe.each([
 	}
 ])('$direction', ({ attacker, victim, own }) => {
 	it.each(Object.keys(ORG_ROUTES))('%s answers 404 and shows nothing', async (route) => {
-		for (const probe of ORG_ROUTES[route](victim(), own())) {
+		const probes = ORG_ROUTES[route](victim(), own());
+		const ghosts = ORG_ROUTES[route](GHOST, own());
+		for (const [i, probe] of probes.entries()) {
+			const label = `${probe.method} ${probe.path}`;
 			const response = await send(attacker(), probe);
 			const text = await response.text();
-			expect(response.status, `${probe.method} ${probe.path}`).toBe(404);
-			expect(text, `${probe.method} ${probe.path}`).not.toContain(victim().marker);
+			expect(text, label).not.toContain(victim().marker);
+			if (probe.method === 'GET' || response.status !== 400) {
+				expect(response.status, label).toBe(404);
+				continue;
+			}
+			// A write whose body is checked before the record is looked up may answer 400, but
+			// only exactly as it answers for an id that exists nowhere: the id reveals nothing.
+			const ghost = await send(attacker(), ghosts[i]);
+			expect(ghost.status, `${label} as for an id that does not exist`).toBe(400);
+			expect(await ghost.text(), label).toBe(text);
 		}
 	});
 });
@@ -258,6 +402,20 @@ async function optInOf(assetId: number): Promise<number> {
 }
 
 describe('after the attacks', () => {
+	it('no member, survey or asset was added or renamed, and the batches are as they were', async () => {
+		const stolen = await sequelize.query(
+			`SELECT id FROM members WHERE label LIKE 'STOLEN%' UNION ALL SELECT id FROM surveys WHERE title LIKE 'Stolen%'
+			 UNION ALL SELECT id FROM assets WHERE name LIKE 'Stolen%'`,
+			{ type: QueryTypes.SELECT }
+		);
+		expect(stolen).toEqual([]);
+		const states = await sequelize.query<{ state: string }>(
+			'SELECT state FROM import_batches WHERE id IN (?, ?) ORDER BY id',
+			{ replacements: [demo.batchId, other.ids.batchId], type: QueryTypes.SELECT }
+		);
+		expect(states.map((r) => r.state)).toEqual(['completed', 'pending']);
+	});
+
 	it("the victims' research consent is as it was", async () => {
 		expect(await optInOf(1)).toBe(demoOptIn);
 		expect(await optInOf(other.ids.assetId)).toBe(0);
