@@ -1,8 +1,9 @@
 import Papa from 'papaparse';
 import { IMPORT_LIMITS } from './limits';
 
-/** A spreadsheet would run a cell starting with these as a formula (CSV injection). */
-export const FORMULA_START = /^[=+@\t\r]|^-(?![\d.])/;
+// The app's one formula guard (src/lib/csv.ts). It used to let "-" followed by a digit pass, so
+// a rejected cell such as "-2+3+cmd|' /C calc'!A0" reached the spreadsheet as a live formula.
+import { FORMULA_START } from '$lib/csv';
 
 export interface RejectionSummary {
 	code: string;
