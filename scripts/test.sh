@@ -12,7 +12,12 @@ ensure_debian_package pdftotext poppler-utils
 
 cleanup() {
 	local code=$?
-	if pid_alive "${APP_PID:-}"; then kill "$APP_PID" 2>/dev/null || true; wait "$APP_PID" 2>/dev/null || true; fi
+	if pid_alive "${APP_PID:-}"; then
+		kill "$APP_PID" 2>/dev/null || true
+		# A graceful stop takes a moment; one that does not come within 15 s is forced.
+		for _ in $(seq 1 75); do pid_alive "$APP_PID" || break; sleep 0.2; done
+		pid_alive "$APP_PID" && kill -9 "$APP_PID" 2>/dev/null || true
+	fi
 	bash scripts/services.sh stop test >/dev/null 2>&1 || true
 	bash scripts/replication.sh stop >/dev/null 2>&1 || true
 	exit "$code"

@@ -1,6 +1,7 @@
 import { json, type Handle, type HandleServerError, type ServerInit } from '@sveltejs/kit';
 import { randomUUID } from 'node:crypto';
 import { closeDb, db } from '$lib/server/db';
+import { closeStorage } from '$lib/server/storage/s3';
 import { databaseUnavailableResponse, isDatabaseUnavailable } from '$lib/server/db/unavailable';
 import { resolveAuth } from '$lib/server/auth/resolve';
 import { toApiErrorResponse } from '$lib/server/http';
@@ -94,5 +95,10 @@ export const handleError: HandleServerError = ({ error, event, status, message }
 process.on('sveltekit:shutdown', () => {
 	stopMailRetryLoop();
 	stopAuthHousekeeping();
+	closeStorage();
 	void closeDb();
+	// adapter-node has already drained the HTTP server; a socket a library keeps open (an SDK's
+	// keep-alive agent, a driver's timer) must not keep the process from ending, so exit after a
+	// short grace period whatever is left.
+	setTimeout(() => process.exit(0), 2_000).unref();
 });

@@ -45,7 +45,10 @@ export async function startBuiltApp(overrides: Record<string, string>) {
 		async stop() {
 			if (child.exitCode === null) {
 				child.kill('SIGTERM');
+				// A graceful stop that has not come within 15 s is forced: a test never hangs on it.
+				const forced = setTimeout(() => child.kill('SIGKILL'), 15_000);
 				await new Promise((r) => child.once('exit', r));
+				clearTimeout(forced);
 			}
 		}
 	};

@@ -76,3 +76,9 @@ export async function deleteObject(key: string) {
 	const { s3, bucket } = storage();
 	await s3.send(new DeleteObjectCommand({ Bucket: bucket, Key: key }));
 }
+
+/** Closes the client's pooled sockets (graceful shutdown): they would keep the process alive. */
+export function closeStorage(): void {
+	client?.s3.destroy();
+	client = null;
+}
