@@ -12,6 +12,7 @@ import {
 	User,
 	VerificationHole
 } from '../src/lib/server/db/models';
+import { rebuildCoverSets } from '../src/lib/server/readings/coverSets';
 import { generateHoles, generateReadings, specifiedCover } from './generate';
 import { SeededRandom } from './random';
 import {
@@ -37,6 +38,7 @@ const DATA_TABLES = [
 	'readings',
 	'import_progress',
 	'import_batches',
+	'member_cover_sets',
 	'members',
 	'surveys',
 	'asset_shares',
@@ -224,7 +226,28 @@ async function loadSurvey(
 			{ transaction }
 		);
 	}
-	await batch.update({ rowsTotal: readings, rowsImported: readings }, { transaction });
+	const [range] = await Reading.sequelize!.query<{ first: number; last: number }>(
+		'SELECT MIN(id) AS first, MAX(id) AS last FROM readings WHERE member_id IN (:members)',
+		{
+			type: QueryTypes.SELECT,
+			replacements: { members: memberReadings.map((m) => m.memberId) },
+			transaction
+		}
+	);
+	await batch.update(
+		{
+			rowsTotal: readings,
+			rowsImported: readings,
+			firstReadingId: range?.first ?? null,
+			lastReadingId: range?.last ?? null
+		},
+		{ transaction }
+	);
+	// The members' cover sets, as an import keeps them (src/lib/server/readings/coverSets.ts).
+	await rebuildCoverSets(
+		transaction,
+		memberReadings.map((m) => m.memberId)
+	);
 	return { readings, members: plan.members.length };
 }
 

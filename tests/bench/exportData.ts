@@ -1,3 +1,4 @@
+import { rebuildCoverSets } from '../../src/lib/server/readings/coverSets';
 import { QueryTypes, type Sequelize } from 'sequelize';
 import { createApiToken } from '../../src/lib/server/auth/api-tokens';
 import {
@@ -74,6 +75,13 @@ export async function loadBenchData(sequelize: Sequelize, readings: number): Pro
 		        20 + ((seq * 7919) % 4000) / 100, 12, 0
 		   FROM seq_1_to_${readings}`,
 		{ type: QueryTypes.INSERT, replacements: { first: firstMemberId } }
+	);
+	// Their cover sets, as an import keeps them (the statistics read these).
+	await sequelize.transaction((t) =>
+		rebuildCoverSets(
+			t,
+			members.map((m) => m.id)
+		)
 	);
 	const { secret } = await createApiToken({
 		userId: user.id,

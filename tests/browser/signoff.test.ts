@@ -1,10 +1,11 @@
 import type { Browser } from 'playwright-core';
 import { mkdirSync } from 'node:fs';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { ImportBatch, Member, Reading } from '../../src/lib/server/db';
+import { Member } from '../../src/lib/server/db';
 import { launchChromium, SCREENSHOT_DIR } from '../helpers/browser';
 import { testSequelize } from '../helpers/database';
 import { CAR_PARK, assetIdByName } from '../helpers/actors';
+import { addReadings, removeReadings } from '../helpers/readings';
 import { browserSignIn, screenshot } from '../helpers/pages';
 
 describe('signing an assessment off', () => {
@@ -35,27 +36,11 @@ describe('signing an assessment off', () => {
 		await screenshot(page, 'assessment-approved');
 
 		const member = await Member.findOne({ where: { assetId, label: 'ROOF-BAY-01' } });
-		const batch = await ImportBatch.create({
-			surveyId: member!.surveyId,
-			createdByUserId: null,
-			sourceFormat: 'manual',
-			fileName: 'later.csv',
-			fileSha256: null,
-			fileBytes: null,
-			state: 'completed'
-		});
-		await Reading.bulkCreate(
-			Array.from({ length: 40 }, (_, i) => ({
-				memberId: member!.id,
-				importBatchId: batch.id,
-				xMm: 20 * i,
-				yMm: 20,
-				coverMm: 20,
-				barDiameterMm: null,
-				barSpacingMm: null,
-				barDirection: null,
-				note: null
-			}))
+		const batchId = await addReadings(
+			member!.surveyId,
+			member!.id,
+			Array.from({ length: 40 }, (_, i) => ({ xMm: 20 * i, yMm: 20, coverMm: 20 })),
+			'later.csv'
 		);
 
 		await page.reload();
@@ -67,7 +52,7 @@ describe('signing an assessment off', () => {
 		const liveN = page.locator('[data-population="deck|XD3"] td').first();
 		await liveN.waitFor();
 		expect(Number(await liveN.textContent())).toBe(Number(deckN) + 40);
-		await Reading.destroy({ where: { importBatchId: batch.id } });
+		await removeReadings(batchId);
 		await page.context().close();
 	});
 

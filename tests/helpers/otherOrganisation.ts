@@ -4,6 +4,7 @@
  * survey, member and readings by SQL (intake's pages may not exist yet), and an assessment and
  * an API token made through the API as that admin would.
  */
+import { rebuildCoverSets } from '../../src/lib/server/readings/coverSets';
 import { QueryTypes, type Sequelize } from 'sequelize';
 import { randomBytes } from 'node:crypto';
 import { signUpNewOrganisation } from './accounts';
@@ -79,6 +80,7 @@ async function copyRecords(sequelize: Sequelize, organisationId: number, marker:
 		   FROM readings WHERE member_id = ?`,
 		{ replacements: [memberId, source.id], type: QueryTypes.INSERT }
 	);
+	await sequelize.transaction((transaction) => rebuildCoverSets(transaction, [memberId]));
 	return { assetId, surveyId, memberId };
 }
 

@@ -1,9 +1,10 @@
 import { QueryTypes, type Sequelize } from 'sequelize';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { db, closeDb, Assessment, ImportBatch, Member, Reading } from '../../src/lib/server/db';
+import { db, closeDb, Assessment, Member } from '../../src/lib/server/db';
 import { methodSchema } from '../../src/lib/server/populations';
 import { approve, saveDraft, sha256Hex } from '../../src/lib/server/assessments';
 import { CAR_PARK, ENGINEER, assetIdByName, demoActor } from '../helpers/actors';
+import { addReadings, removeReadings } from '../helpers/readings';
 
 describe('assessment sign-off', () => {
 	let sequelize: Sequelize;
@@ -35,27 +36,10 @@ describe('assessment sign-off', () => {
 		const signed = await Assessment.findByPk(draft.id);
 		expect(signed!.state).toBe('approved');
 		const deck = await Member.findOne({ where: { assetId, label: 'L2-BAY-01' } });
-		const batch = await ImportBatch.create({
-			surveyId: deck!.surveyId,
-			createdByUserId: engineer.userId,
-			sourceFormat: 'manual',
-			fileName: null,
-			fileSha256: null,
-			fileBytes: null,
-			state: 'completed'
-		});
-		await Reading.bulkCreate(
-			Array.from({ length: 50 }, (_, i) => ({
-				memberId: deck!.id,
-				importBatchId: batch.id,
-				xMm: 10 * i,
-				yMm: 10,
-				coverMm: 12,
-				barDiameterMm: null,
-				barSpacingMm: null,
-				barDirection: null,
-				note: null
-			}))
+		const batchId = await addReadings(
+			deck!.surveyId,
+			deck!.id,
+			Array.from({ length: 50 }, (_, i) => ({ xMm: 10 * i, yMm: 10, coverMm: 12 }))
 		);
 		const after = await Assessment.findByPk(draft.id);
 		expect(after!.snapshot).toBe(signed!.snapshot);
@@ -65,7 +49,7 @@ describe('assessment sign-off', () => {
 		const fresh = await save('After the extra readings');
 		const count = (text: string) => JSON.parse(text).readingCount as number;
 		expect(count(fresh.snapshot)).toBe(count(signed!.snapshot) + 50);
-		await Reading.destroy({ where: { importBatchId: batch.id } });
+		await removeReadings(batchId);
 		await fresh.destroy();
 	});
 

@@ -1,6 +1,7 @@
-import { Op, QueryTypes } from 'sequelize';
+import { Op } from 'sequelize';
 import type { z } from 'zod';
-import { db, Member, Reading, Survey, type Asset } from '../db';
+import { Member, Reading, Survey, type Asset } from '../db';
+import { readingCounts } from '../readings/coverSets';
 import { encodeCursor } from './cursor';
 import type { assetSchema, memberSchema, readingPageSchema, surveySchema } from './schemas';
 
@@ -32,12 +33,7 @@ export async function surveysOf(assetId: number): Promise<z.infer<typeof surveyS
 
 export async function membersOf(surveyId: number): Promise<z.infer<typeof memberSchema>[]> {
 	const members = await Member.findAll({ where: { surveyId }, order: [['id', 'ASC']] });
-	const counts = await db().query<{ memberId: number; n: number }>(
-		`SELECT r.member_id AS memberId, COUNT(*) AS n FROM readings r JOIN members m ON m.id = r.member_id
-		  WHERE m.survey_id = :surveyId GROUP BY r.member_id`,
-		{ type: QueryTypes.SELECT, replacements: { surveyId } }
-	);
-	const countOf = new Map(counts.map((c) => [c.memberId, Number(c.n)]));
+	const countOf = await readingCounts(members.map((m) => m.id));
 	return members.map((m) => ({
 		id: m.id,
 		surveyId: m.surveyId,

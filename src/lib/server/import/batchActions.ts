@@ -1,4 +1,6 @@
-import { ImportBatch, ImportProgress, Reading } from '../db/models';
+import { Op, QueryTypes, type Transaction } from 'sequelize';
+import { ImportBatch, ImportProgress, Member, Reading } from '../db/models';
+import { rebuildCoverSets } from '../readings/coverSets';
 import { recordAudit } from '../audit';
 import { StateError } from '../domainErrors';
 import { assertSurveyEditable } from '../intake/frozen';
@@ -20,16 +22,66 @@ export async function cancelImport(actor: Actor, batchId: number): Promise<void>
 	await requestCancel(batch.id);
 }
 
+/**
+ * Where a batch's readings are: its recorded id range (migration 009), else — a batch written
+ * before ranges were recorded — every reading of its survey's members.
+ */
+function batchReadingsWhere(batch: ImportBatch, surveyMemberIds: number[]) {
+	return batch.firstReadingId != null && batch.lastReadingId != null
+		? {
+				sql: 'id BETWEEN :first AND :last AND import_batch_id = :batchId',
+				replacements: { first: batch.firstReadingId, last: batch.lastReadingId, batchId: batch.id },
+				where: {
+					id: { [Op.between]: [batch.firstReadingId, batch.lastReadingId] },
+					importBatchId: batch.id
+				}
+			}
+		: {
+				sql: 'member_id IN (:members) AND import_batch_id = :batchId',
+				replacements: {
+					members: surveyMemberIds.length ? surveyMemberIds : [0],
+					batchId: batch.id
+				},
+				where: { memberId: surveyMemberIds, importBatchId: batch.id }
+			};
+}
+
+/** Deletes the batch's readings and rebuilds the cover sets of the members they belonged to. */
+async function deleteBatchReadings(batch: ImportBatch, transaction: Transaction): Promise<number> {
+	const sequelize = ImportBatch.sequelize!;
+	const members = await Member.findAll({
+		attributes: ['id'],
+		where: { surveyId: batch.surveyId },
+		transaction
+	});
+	const where = batchReadingsWhere(
+		batch,
+		members.map((m) => m.id)
+	);
+	const touched = await sequelize.query<{ memberId: number }>(
+		`SELECT DISTINCT member_id AS memberId FROM readings WHERE ${where.sql}`,
+		{ type: QueryTypes.SELECT, replacements: where.replacements, transaction }
+	);
+	const deleted = await Reading.destroy({ where: where.where, transaction });
+	await rebuildCoverSets(
+		transaction,
+		touched.map((t) => t.memberId)
+	);
+	return deleted;
+}
+
 /** Removes exactly the readings a completed import wrote, with an audit event, in one step. */
 export async function undoImport(actor: Actor, batchId: number): Promise<number> {
 	const { batch, survey } = await scopedImportBatch(actor, batchId, 'write');
 	assertSurveyEditable(survey);
-	if (batch.state !== 'completed') {
-		throw new StateError(`Only a completed import can be undone; this one is ${batch.state}.`);
-	}
 	const sequelize = ImportBatch.sequelize!;
 	return sequelize.transaction(async (transaction) => {
-		const deleted = await Reading.destroy({ where: { importBatchId: batch.id }, transaction });
+		// Locked and checked inside the transaction: two undos at once must not both proceed.
+		await batch.reload({ transaction, lock: transaction.LOCK.UPDATE });
+		if (batch.state !== 'completed') {
+			throw new StateError(`Only a completed import can be undone; this one is ${batch.state}.`);
+		}
+		const deleted = await deleteBatchReadings(batch, transaction);
 		await batch.update(
 			{ state: 'undone', undoneAt: new Date(), undoneByUserId: actor.userId },
 			{ transaction }

@@ -14,6 +14,7 @@ import type { ColumnMapping, ImportOptions } from './mapping';
 import { beginProgress } from './progress';
 import { previewStagedFile, type FilePreview } from './preview';
 import { runImport } from './run';
+import type { WriteMethod } from './writer';
 import type { ImportOutcome } from './finish';
 import { removeStaged, stageUpload, stagingDir } from './stage';
 
@@ -103,6 +104,8 @@ export interface StartInput {
 	confirmDuplicate: boolean;
 	saveTemplateAs: string | null;
 	headerSignature?: string;
+	/** Not from the API: the tests and the benchmark compare the two ways of writing. */
+	writeMethod?: WriteMethod;
 }
 
 /** Step 2: the import runs in the background; `done` settles when it has finished. */
@@ -139,7 +142,8 @@ export async function startImport(actor: Actor, batchId: number, input: StartInp
 		format: batch.sourceFormat === 'xlsx' ? 'xlsx' : 'csv',
 		open: () => createReadStream(path),
 		mapping: input.mapping,
-		options: input.options
+		options: input.options,
+		writeMethod: input.writeMethod
 	}).finally(() => removeStaged(path));
 	return { batchId: batch.id, done };
 }

@@ -2,6 +2,7 @@ import type { Transaction } from 'sequelize';
 import { ImportBatch } from '../db/models';
 import type { ImportState } from '../db/models/ImportBatch';
 import { recordAudit } from '../audit';
+import { mergeIntoCoverSets } from '../readings/coverSets';
 import { ImportError } from './errors';
 import type { ImportJob, ImportTally } from './run';
 
@@ -82,18 +83,25 @@ function warningsFor(job: ImportJob, tally: ImportTally): string[] {
 	return warnings;
 }
 
-/** Commits the batch with its final state and audit event, or throws the blocking problem. */
+/**
+ * Commits the batch with its final state, the members' cover sets and its audit event, or
+ * throws the blocking problem.
+ */
 export async function finishImport(
 	job: ImportJob,
 	tally: ImportTally,
-	transaction: Transaction
+	transaction: Transaction,
+	idRange: { firstReadingId: number; lastReadingId: number } | null
 ): Promise<ImportOutcome> {
 	const problem = blockingProblem(job, tally);
 	if (problem) throw problem;
 	const warnings = warningsFor(job, tally);
+	await mergeIntoCoverSets(transaction, tally.covers.sortedByMember());
 	await ImportBatch.update(
 		{
 			state: 'completed',
+			firstReadingId: idRange?.firstReadingId ?? null,
+			lastReadingId: idRange?.lastReadingId ?? null,
 			rowsTotal: tally.rowsRead,
 			rowsImported: tally.rowsWritten,
 			rowsRejected: tally.rejected.count,

@@ -13,8 +13,10 @@ export const IMPORT_LIMITS = {
 	maxCompressionRatio: 200,
 	defaultCoverMaxMm: 300,
 	widenedCoverMaxMm: 1000,
-	/** Rows per INSERT batch sent to MariaDB inside the import's one transaction. */
+	/** Rows per INSERT batch (connector batch()) inside the import's one transaction. */
 	insertChunkRows: 10_000,
+	/** Rows per LOAD DATA chunk file (about 2 MB of text). */
+	loadDataChunkRows: 50_000,
 	/** Rejected rows kept for the downloadable CSV (the file itself still holds every row). */
 	maxRejectedRowsKept: 100_000,
 	progressIntervalMs: 500,

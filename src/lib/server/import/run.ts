@@ -11,7 +11,8 @@ import { RejectedRows } from './rejected';
 import { csvRecordBatches, xlsxRecordBatches } from './sources';
 import type { SourceFormat } from './sniff';
 import { createRowValidator, labelKey } from './validateRow';
-import { connectionOf, insertReadings, readingParams } from './writer';
+import { CoverCollector } from '../readings/coverSetCodec';
+import { chooseWriteMethod, connectionOf, ReadingWriter, type WriteMethod } from './writer';
 import { finishImport, type ImportOutcome } from './finish';
 
 export interface ImportJob {
@@ -26,6 +27,8 @@ export interface ImportJob {
 	options: ImportOptions;
 	/** Reading flags for every row (READING_FLAGS.manual for the entry grid). */
 	flags?: number;
+	/** How rows reach the table; chosen from the server's settings when absent (tests set it). */
+	writeMethod?: WriteMethod;
 }
 
 export async function memberIndex(surveyId: number): Promise<Map<string, number>> {
@@ -38,6 +41,8 @@ export interface ImportTally extends ProgressCounts {
 	rejected: RejectedRows;
 	headers: string[];
 	smallCovers: number;
+	/** The covers written, by member, for the members' cover sets. */
+	covers: CoverCollector;
 }
 
 function recordBatches(job: ImportJob, tally: ImportTally): AsyncGenerator<string[][]> {
@@ -59,26 +64,20 @@ function isBlank(cells: string[]): boolean {
 
 /**
  * Streams the file through validation into the readings table inside `transaction`, with one
- * INSERT batch in flight while the next is parsed. Throws ImportError('cancelled') on a cancel.
+ * chunk being written while the next is parsed. Throws ImportError('cancelled') on a cancel.
  */
-async function streamRows(job: ImportJob, transaction: Transaction, tally: ImportTally) {
+async function streamRows(
+	job: ImportJob,
+	writer: ReadingWriter,
+	tally: ImportTally,
+	connectionId?: number
+) {
 	const validate = createRowValidator(job.mapping, job.options, await memberIndex(job.surveyId));
 	const duplicates = new DuplicateFinder();
-	const connection = connectionOf(transaction);
-	const connectionId = connection.threadId ?? undefined;
 	const rejectAll = job.options.failingRows === 'reject-file';
-	let chunk: unknown[][] = [];
-	let inFlight: Promise<void> = Promise.resolve();
 	let lastTick = Date.now();
 	let index = -1; // among non-blank records, as detection counts them
 	let recordNumber = 0; // every record, so row numbers match the file's lines
-	const flush = async () => {
-		await inFlight;
-		const rows = chunk;
-		chunk = [];
-		inFlight = insertReadings(connection, rows).then(() => void (tally.rowsWritten += rows.length));
-		inFlight.catch(() => undefined); // awaited below; this only silences the early rejection
-	};
 	for await (const batch of recordBatches(job, tally))
 		for (const cells of batch) {
 			const rowNumber = ++recordNumber;
@@ -103,8 +102,12 @@ async function streamRows(job: ImportJob, transaction: Transaction, tally: Impor
 				} else {
 					if (result.reading.coverMm < 4) tally.smallCovers++;
 					if (!(rejectAll && tally.rejected.count > 0)) {
-						chunk.push(readingParams(result.reading, job.batchId, job.flags ?? 0));
-						if (chunk.length >= IMPORT_LIMITS.insertChunkRows) await flush();
+						tally.covers.add(result.reading.memberId, result.reading.coverMm);
+						const sending = writer.add(result.reading);
+						if (sending) {
+							await sending;
+							tally.rowsWritten = writer.rowsWritten;
+						}
 					}
 				}
 			}
@@ -119,8 +122,6 @@ async function streamRows(job: ImportJob, transaction: Transaction, tally: Impor
 				}
 			}
 		}
-	await flush();
-	await inFlight;
 }
 
 /**
@@ -136,16 +137,31 @@ export async function runImport(job: ImportJob): Promise<ImportOutcome> {
 		bytesRead: 0,
 		rejected: new RejectedRows(),
 		headers: [],
-		smallCovers: 0
+		smallCovers: 0,
+		covers: new CoverCollector()
 	};
 	await ImportBatch.update({ state: 'running' }, { where: { id: job.batchId } });
 	let transaction: Transaction | null = null;
+	let writer: ReadingWriter | null = null;
 	try {
 		transaction = await sequelize.transaction();
-		await tickProgress(job.batchId, tally, connectionOf(transaction).threadId ?? undefined);
-		await streamRows(job, transaction, tally);
-		return await finishImport(job, tally, transaction);
+		const connection = connectionOf(transaction);
+		const method = job.writeMethod ?? (await chooseWriteMethod(connection));
+		writer = new ReadingWriter(
+			connection,
+			method,
+			job.batchId,
+			job.flags ?? 0,
+			method === 'load-data' ? IMPORT_LIMITS.loadDataChunkRows : IMPORT_LIMITS.insertChunkRows
+		);
+		const connectionId = connection.threadId ?? undefined;
+		await tickProgress(job.batchId, tally, connectionId);
+		await streamRows(job, writer, tally, connectionId);
+		const idRange = await writer.finish();
+		tally.rowsWritten = writer.rowsWritten;
+		return await finishImport(job, tally, transaction, idRange);
 	} catch (err) {
+		await writer?.abort();
 		if (transaction && !(transaction as unknown as { finished?: string }).finished) {
 			await transaction.rollback().catch(() => undefined);
 		}

@@ -1,4 +1,5 @@
-import { QueryTypes, type Transaction } from 'sequelize';
+import type { Transaction } from 'sequelize';
+import { readingCounts } from '../readings/coverSets';
 import { Member } from '../db/models';
 import { recordAudit } from '../audit';
 import { InputError } from '../domainErrors';
@@ -22,11 +23,7 @@ export interface MemberSummary {
 export async function listMembers(actor: Actor, surveyId: number): Promise<MemberSummary[]> {
 	await scopedSurvey(actor, surveyId, 'read');
 	const members = await Member.findAll({ where: { surveyId }, order: [['label', 'ASC']] });
-	const counts = await Member.sequelize!.query<{ memberId: number; n: number }>(
-		'SELECT r.member_id AS memberId, COUNT(*) AS n FROM readings r JOIN members m ON m.id = r.member_id WHERE m.survey_id = ? GROUP BY r.member_id',
-		{ replacements: [surveyId], type: QueryTypes.SELECT }
-	);
-	const byId = new Map(counts.map((c) => [c.memberId, Number(c.n)]));
+	const byId = await readingCounts(members.map((m) => m.id));
 	return members.map((m) => ({
 		id: m.id,
 		label: m.label,

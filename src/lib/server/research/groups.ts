@@ -1,4 +1,4 @@
-import { QueryTypes, type Sequelize } from 'sequelize';
+import { readCoverSets } from '../readings/coverSets';
 import type { GroupKey } from './filter';
 import type { SelectedMember } from './members';
 import type { ResearchMember } from './schemas';
@@ -43,34 +43,21 @@ function add(group: GroupValues, member: ResearchMember, coverMm: number): void 
 	group.assetRefs.add(member.assetRef);
 }
 
-/** Covers per query: bounds the objects the connector makes at once, however big a member is. */
-const COVERS_PER_QUERY = 20_000;
+/** Members whose cover sets are read at once: bounds memory however big the selection is. */
+const MEMBERS_PER_READ = 200;
 
-/**
- * One member's covers, a page at a time in index order (keyset on cover, id over the readings'
- * (member, cover) covering index), so no page sorts and memory holds one page of rows.
- */
-async function* memberCovers(sequelize: Sequelize, memberId: number): AsyncGenerator<number[]> {
-	let after = { coverMm: -Infinity, id: 0 };
-	for (;;) {
-		const rows = await sequelize.query<{ id: number; coverMm: number }>(
-			`SELECT id, cover_mm AS coverMm FROM readings
-			  WHERE member_id = :memberId AND (cover_mm > :cover OR (cover_mm = :cover AND id > :id))
-			  ORDER BY cover_mm, id LIMIT :limit`,
-			{
-				type: QueryTypes.SELECT,
-				replacements: {
-					memberId,
-					cover: Number.isFinite(after.coverMm) ? after.coverMm : -1e308,
-					id: after.id,
-					limit: COVERS_PER_QUERY
-				}
-			}
-		);
-		if (rows.length === 0) return;
-		yield rows.map((r) => r.coverMm);
-		after = rows[rows.length - 1];
-		if (rows.length < COVERS_PER_QUERY) return;
+/** The selection's members with their covers, a few hundred members at a time. */
+async function* membersWithCovers(
+	members: ReadonlyMap<number, SelectedMember>
+): AsyncGenerator<[SelectedMember, Float64Array]> {
+	const ids = [...members.keys()];
+	for (let i = 0; i < ids.length; i += MEMBERS_PER_READ) {
+		const part = ids.slice(i, i + MEMBERS_PER_READ);
+		const covers = await readCoverSets(part);
+		for (const id of part) {
+			const memberCovers = covers.get(id);
+			if (memberCovers) yield [members.get(id)!, memberCovers];
+		}
 	}
 }
 
@@ -79,22 +66,19 @@ async function* memberCovers(sequelize: Sequelize, memberId: number): AsyncGener
  * by member. Groups come back sorted by their key, for a stable order.
  */
 export async function gatherGroups(
-	sequelize: Sequelize,
 	members: ReadonlyMap<number, SelectedMember>,
 	groupBy: readonly GroupKey[]
 ): Promise<{ all: GroupValues; groups: GroupValues[] }> {
 	const all = emptyGroup({});
 	const byKey = new Map<string, GroupValues>();
-	for (const { id, public: member } of members.values()) {
+	for await (const [{ public: member }, covers] of membersWithCovers(members)) {
 		const key = Object.fromEntries(groupBy.map((k) => [k, KEY_OF[k](member)]));
 		const name = JSON.stringify(key);
 		let group = byKey.get(name);
 		if (!group) byKey.set(name, (group = emptyGroup(key)));
-		for await (const covers of memberCovers(sequelize, id)) {
-			for (const coverMm of covers) {
-				add(all, member, coverMm);
-				add(group, member, coverMm);
-			}
+		for (const coverMm of covers) {
+			add(all, member, coverMm);
+			add(group, member, coverMm);
 		}
 	}
 	const groups = [...byKey.entries()]

@@ -55,7 +55,7 @@ export async function researchStatistics(
 	options: StatisticsOptions
 ): Promise<ResearchStatistics> {
 	const members = await selectedMembers(sequelize, filter, pseudonymMaker(idSecret));
-	const { all, groups } = await gatherGroups(sequelize, members, options.groupBy);
+	const { all, groups } = await gatherGroups(members, options.groupBy);
 	return {
 		engineVersion: ENGINE_VERSION,
 		filter,

@@ -5,7 +5,8 @@
 import { createHash } from 'node:crypto';
 import { error } from '@sveltejs/kit';
 import type { Transaction } from 'sequelize';
-import { db, Assessment, AssessmentRisk, Member, Reading } from '$lib/server/db';
+import { db, Assessment, AssessmentRisk, Member } from '$lib/server/db';
+import { readCoverSets } from '$lib/server/readings/coverSets';
 import { recordAudit } from '$lib/server/audit';
 import type { Actor } from '$lib/server/policy';
 import { visibleAsset } from './access';
@@ -13,25 +14,27 @@ import { buildAnnex, ReadingsChangedError, type MemberData, type RiskAnnex } fro
 import type { DurabilityParameters } from './parameters';
 import { fromSnapshot, type SnapshotLike } from './source';
 
-/** Every member's covers and grid extent, in one query each. */
+/** Every member's covers (from the cover sets) and grid extent. */
 export async function memberData(memberIds: readonly number[]): Promise<Map<number, MemberData>> {
 	const ids = [...new Set(memberIds)];
-	const [members, readings] = await Promise.all([
+	const [members, covers] = await Promise.all([
 		Member.findAll({
 			attributes: ['id', 'gridWidthMm', 'gridHeightMm'],
 			where: { id: ids },
 			raw: true
 		}),
-		Reading.findAll({ attributes: ['memberId', 'coverMm'], where: { memberId: ids }, raw: true })
+		readCoverSets(ids)
 	]);
-	const out = new Map<number, MemberData>(
+	return new Map<number, MemberData>(
 		members.map((m) => [
 			m.id,
-			{ coversMm: [], gridWidthMm: m.gridWidthMm, gridHeightMm: m.gridHeightMm }
+			{
+				coversMm: Array.from(covers.get(m.id) ?? []),
+				gridWidthMm: m.gridWidthMm,
+				gridHeightMm: m.gridHeightMm
+			}
 		])
 	);
-	for (const r of readings) out.get(r.memberId)?.coversMm.push(Number(r.coverMm));
-	return out;
 }
 
 export async function annexFor(

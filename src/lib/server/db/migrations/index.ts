@@ -6,6 +6,7 @@ import { assessmentFreeze } from './005-assessment-freeze';
 import { assessmentRisk } from './006-assessment-risk';
 import { apiRateLimits } from './007-api-rate-limits';
 import { intakeProgress } from './008-intake-progress';
+import { coverSets } from './009-cover-sets';
 import type { Migration } from './types';
 
 /**
@@ -20,5 +21,6 @@ export const migrations: Migration[] = [
 	assessmentFreeze,
 	assessmentRisk,
 	apiRateLimits,
-	intakeProgress
+	intakeProgress,
+	coverSets
 ];

@@ -36,6 +36,9 @@ export class ImportBatch extends Model<
 	declare finishedAt: CreationOptional<Date | null>;
 	declare undoneAt: CreationOptional<Date | null>;
 	declare undoneByUserId: CreationOptional<number | null>;
+	/** The range of reading ids this batch wrote (undo deletes within it; migration 009). */
+	declare firstReadingId: CreationOptional<number | null>;
+	declare lastReadingId: CreationOptional<number | null>;
 	declare createdAt: CreationOptional<Date>;
 
 	static initModel(sequelize: Sequelize) {
@@ -66,6 +69,8 @@ export class ImportBatch extends Model<
 				finishedAt: { type: DataTypes.DATE(3), allowNull: true },
 				undoneAt: { type: DataTypes.DATE(3), allowNull: true },
 				undoneByUserId: { type: DataTypes.INTEGER.UNSIGNED, allowNull: true },
+				firstReadingId: { type: DataTypes.BIGINT.UNSIGNED, allowNull: true },
+				lastReadingId: { type: DataTypes.BIGINT.UNSIGNED, allowNull: true },
 				createdAt: DataTypes.DATE
 			},
 			{ sequelize, tableName: 'import_batches', updatedAt: false }

@@ -12,6 +12,7 @@ import { ImportProgress } from './ImportProgress';
 import { Invitation } from './Invitation';
 import { MailMessage } from './MailMessage';
 import { Member } from './Member';
+import { MemberCoverSet } from './MemberCoverSet';
 import { Membership } from './Membership';
 import { Organisation } from './Organisation';
 import { PasswordReset } from './PasswordReset';
@@ -38,6 +39,7 @@ export {
 	Invitation,
 	MailMessage,
 	Member,
+	MemberCoverSet,
 	Membership,
 	Organisation,
 	PasswordReset,
@@ -65,6 +67,7 @@ const allModels = [
 	Invitation,
 	MailMessage,
 	Member,
+	MemberCoverSet,
 	Membership,
 	Organisation,
 	PasswordReset,

@@ -1,0 +1,35 @@
+import {
+	DataTypes,
+	Model,
+	type CreationOptional,
+	type InferAttributes,
+	type InferCreationAttributes,
+	type Sequelize
+} from 'sequelize';
+
+/**
+ * A member's covers, sorted, kept beside its readings (migration 009). Written only through
+ * src/lib/server/readings/coverSets.ts, which keeps it in step with the readings.
+ */
+export class MemberCoverSet extends Model<
+	InferAttributes<MemberCoverSet>,
+	InferCreationAttributes<MemberCoverSet>
+> {
+	declare memberId: number;
+	declare readingCount: number;
+	/** IEEE 754 doubles, little-endian (readings/coverSetCodec.ts). */
+	declare coversMm: Buffer;
+	declare updatedAt: CreationOptional<Date>;
+
+	static initModel(sequelize: Sequelize) {
+		MemberCoverSet.init(
+			{
+				memberId: { type: DataTypes.INTEGER.UNSIGNED, primaryKey: true },
+				readingCount: { type: DataTypes.INTEGER.UNSIGNED, allowNull: false },
+				coversMm: { type: DataTypes.BLOB('long'), allowNull: false },
+				updatedAt: DataTypes.DATE
+			},
+			{ sequelize, tableName: 'member_cover_sets', createdAt: false }
+		);
+	}
+}
