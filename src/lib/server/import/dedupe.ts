@@ -3,7 +3,7 @@ import type { ValidReading } from './validateRow';
 const scratch = new Float64Array(1);
 const scratchWords = new Uint32Array(scratch.buffer);
 
-/** Mixes a 32-bit word into a hash (the murmur3 finaliser's multiply-rotate step). */
+/** Mixes a 32-bit word into a hash (the murmur3 body's multiply-rotate step). */
 function mix(hash: number, word: number): number {
 	let k = Math.imul(word, 0xcc9e2d51);
 	k = (k << 15) | (k >>> 17);
@@ -12,27 +12,46 @@ function mix(hash: number, word: number): number {
 	return (Math.imul(hash, 5) + 0xe6546b64) | 0;
 }
 
-function mixNumber(hash: number, value: number | null): number {
-	if (value === null) return mix(hash, 0x9e3779b9);
+/**
+ * Two independent 32-bit hashes of a reading in one pass over its fields: every word goes into
+ * both, the second after a different scramble. Module-level state and plain functions, so a row
+ * allocates nothing (a million rows otherwise make a million closures for the collector).
+ */
+let high = 0;
+let low = 0;
+
+function word(w: number): void {
+	high = mix(high, w);
+	low = mix(low, w ^ 0x9e3779b9);
+}
+
+function numberWords(value: number | null): void {
+	if (value === null) return word(0x7ff80001);
 	scratch[0] = value;
-	return mix(mix(hash, scratchWords[0]), scratchWords[1]);
+	word(scratchWords[0]);
+	word(scratchWords[1]);
 }
 
-function mixText(hash: number, value: string | null): number {
-	if (value === null) return mix(hash, 0x85ebca6b);
-	for (let i = 0; i < value.length; i++) hash = mix(hash, value.charCodeAt(i));
-	return mix(hash, value.length);
+function textWords(value: string | null): void {
+	if (value === null) return word(0x85ebca6b);
+	for (let i = 0; i < value.length; i++) word(value.charCodeAt(i));
+	word(value.length);
 }
 
-function hashReading(r: ValidReading, seed: number): number {
-	let h = mix(seed, r.memberId);
-	h = mixNumber(h, r.xMm);
-	h = mixNumber(h, r.yMm);
-	h = mixNumber(h, r.coverMm);
-	h = mixNumber(h, r.barDiameterMm);
-	h = mixNumber(h, r.barSpacingMm);
-	h = mixText(h, r.barDirection);
-	return mixText(h, r.note) >>> 0;
+/** Hashes `r` into `high` and `low`. */
+function hashReading(r: ValidReading): void {
+	high = 0x2545f491;
+	low = 0x68e31da4;
+	word(r.memberId);
+	numberWords(r.xMm);
+	numberWords(r.yMm);
+	numberWords(r.coverMm);
+	numberWords(r.barDiameterMm);
+	numberWords(r.barSpacingMm);
+	textWords(r.barDirection);
+	textWords(r.note);
+	high >>>= 0;
+	low >>>= 0;
 }
 
 /**
@@ -52,8 +71,7 @@ export class DuplicateFinder {
 
 	/** The row number of an earlier identical row, or undefined (and remembers this one). */
 	check(reading: ValidReading, rowNumber: number): number | undefined {
-		const high = hashReading(reading, 0x2545f491);
-		const low = hashReading(reading, 0x68e31da4);
+		hashReading(reading);
 		const found = this.find(high, low);
 		if (this.rows[found] !== 0) return this.rows[found];
 		this.high[found] = high;
