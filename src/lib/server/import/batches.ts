@@ -128,8 +128,10 @@ export async function startImport(actor: Actor, batchId: number, input: StartInp
 	if (input.saveTemplateAs && input.headerSignature) {
 		await saveTemplate(actor, input.saveTemplateAs, input.headerSignature, input);
 	}
-	await batch.update({ mapping: input.mapping, options: input.options, state: 'running' });
+	// Progress first: a running batch always has a heartbeat, so a process that dies between
+	// these two lines leaves nothing that the sweep for abandoned imports cannot see.
 	await beginProgress(batch.id, batch.fileBytes ?? 0);
+	await batch.update({ mapping: input.mapping, options: input.options, state: 'running' });
 	const path = stagedPathOf(batch.id);
 	const done: Promise<ImportOutcome> = runImport({
 		batchId: batch.id,
