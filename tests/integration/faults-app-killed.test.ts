@@ -1,7 +1,9 @@
+import { existsSync } from 'node:fs';
 import { QueryTypes, type Sequelize } from 'sequelize';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { AuditEvent, ImportBatch, ImportProgress } from '../../src/lib/server/db/models';
 import { failAbandonedImports } from '../../src/lib/server/import/progress';
+import { stagedPathOf } from '../../src/lib/server/import/stage';
 import { actorFor, countReadings, freshSurvey, testSequelize } from '../helpers/intake';
 import { startBuiltApp } from '../helpers/server';
 import { signInAs, type HttpClient } from '../helpers/session';
@@ -120,8 +122,9 @@ describe('when an app process is killed mid-import', () => {
 			async () => !(await connectionOpen(sequelize, Number(progress.connectionId))),
 			30_000
 		);
-		// Nobody has looked since: the batch still says running.
+		// Nobody has looked since: the batch still says running, its upload still staged.
 		expect((await ImportBatch.findByPk(batchId))!.state).toBe('running');
+		expect(existsSync(stagedPathOf(batchId))).toBe(true);
 
 		const restarted = await start();
 		// No request touches the import: the app's start-up alone must settle it, promptly.
@@ -134,6 +137,7 @@ describe('when an app process is killed mid-import', () => {
 			/\d+ import\(s\) left running by an ended process failed/.test(restarted.output())
 		);
 		expect(await countReadings(sequelize, { batchId })).toBe(0);
+		expect(existsSync(stagedPathOf(batchId))).toBe(false);
 		const events = await AuditEvent.findAll({
 			where: { subjectType: 'import_batch', subjectId: String(batchId) }
 		});

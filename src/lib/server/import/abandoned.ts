@@ -3,6 +3,7 @@ import { ImportBatch } from '../db/models';
 import { recordAudit } from '../audit';
 import { isDatabaseUnavailable } from '../db/unavailable';
 import { IMPORT_LIMITS } from './limits';
+import { removeStaged, stagedPathOf } from './stage';
 
 /** A running batch as the sweep sees it. */
 export interface RunningImport {
@@ -117,7 +118,10 @@ export async function failAbandonedImports(): Promise<number> {
 	const nowMs = Date.now();
 	let failed = 0;
 	for (const run of running.filter((r) => isAbandoned(r, open, nowMs))) {
-		if (await failAbandoned(run)) failed++;
+		if (!(await failAbandoned(run))) continue;
+		failed++;
+		// Its upload waits in the staging folder for an end that never came.
+		await removeStaged(stagedPathOf(run.batchId));
 	}
 	return failed;
 }

@@ -1,6 +1,5 @@
 import { createReadStream } from 'node:fs';
 import { rename } from 'node:fs/promises';
-import { join } from 'node:path';
 import type { Readable } from 'node:stream';
 import { Op } from 'sequelize';
 import { ColumnTemplate, ImportBatch, Survey } from '../db/models';
@@ -15,9 +14,10 @@ import { beginProgress } from './progress';
 import { previewStagedFile, type FilePreview } from './preview';
 import { runImport } from './run';
 import type { ImportOutcome } from './finish';
-import { removeStaged, stageUpload, stagingDir } from './stage';
+import { removeStaged, stagedPathOf, stageUpload } from './stage';
 
-export const stagedPathOf = (batchId: number) => join(stagingDir(), `batch-${batchId}.upload`);
+// Defined beside the staging code (the abandoned-import sweep needs it too); callers keep this path.
+export { stagedPathOf };
 
 export interface DuplicateImport {
 	batchId: number;
