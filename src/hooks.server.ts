@@ -9,6 +9,7 @@ import { limitApiRate } from '$lib/server/api/rateLimit';
 import { lockedMessage } from '$lib/server/auth/throttle-rules';
 import { startAuthHousekeeping, stopAuthHousekeeping } from '$lib/server/auth/housekeeping';
 import { startMailRetryLoop, stopMailRetryLoop } from '$lib/server/mail/retry';
+import { failAbandonedImportsAtStart } from '$lib/server/import/abandoned';
 
 const SECURITY_HEADERS: Record<string, string> = {
 	'x-content-type-options': 'nosniff',
@@ -21,12 +22,14 @@ const SECURITY_HEADERS: Record<string, string> = {
 /**
  * Once per process, before the first request: bind the models to the one Sequelize instance
  * (model calls made before `db()` would fail), start the mail retry loop and the hourly sweep
- * of expired sessions and stale throttle counters.
+ * of expired sessions and stale throttle counters, and fail the imports a process that was
+ * killed or crashed left running (this one, if it is a restart).
  */
 export const init: ServerInit = () => {
 	db();
 	startMailRetryLoop();
 	startAuthHousekeeping();
+	failAbandonedImportsAtStart();
 };
 
 export const handle: Handle = async ({ event, resolve }) => {

@@ -42,8 +42,15 @@ export async function startBuiltApp(overrides: Record<string, string>) {
 		/** The app's process id, to read its memory from /proc. */
 		pid: child.pid!,
 		output: () => output,
+		/** Ends the process at once with `signal` (SIGKILL: no shutdown code runs), as a crash would. */
+		async kill(signal: NodeJS.Signals = 'SIGKILL') {
+			if (child.exitCode !== null || child.signalCode !== null) return;
+			const exited = new Promise((r) => child.once('exit', r));
+			child.kill(signal);
+			await exited;
+		},
 		async stop() {
-			if (child.exitCode === null) {
+			if (child.exitCode === null && child.signalCode === null) {
 				child.kill('SIGTERM');
 				// A graceful stop that has not come within 15 s is forced: a test never hangs on it.
 				const forced = setTimeout(() => child.kill('SIGKILL'), 15_000);

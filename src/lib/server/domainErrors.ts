@@ -35,3 +35,13 @@ export class InputError extends Error {
 		this.name = 'InputError';
 	}
 }
+
+/** Object storage did not answer (refused, timed out, or a 5xx): the request is a plain 503. */
+export class StorageUnavailableError extends Error {
+	constructor() {
+		super(
+			'File storage cannot be reached right now, so the file was not saved and nothing was recorded. Try again in a few minutes.'
+		);
+		this.name = 'StorageUnavailableError';
+	}
+}

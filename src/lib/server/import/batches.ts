@@ -1,6 +1,5 @@
 import { createReadStream } from 'node:fs';
 import { rename } from 'node:fs/promises';
-import { join } from 'node:path';
 import type { Readable } from 'node:stream';
 import { Op } from 'sequelize';
 import { ColumnTemplate, ImportBatch, Survey } from '../db/models';
@@ -16,9 +15,10 @@ import { previewStagedFile, type FilePreview } from './preview';
 import { runImport } from './run';
 import type { WriteMethod } from './writer';
 import type { ImportOutcome } from './finish';
-import { removeStaged, stageUpload, stagingDir } from './stage';
+import { removeStaged, stagedPathOf, stageUpload } from './stage';
 
-export const stagedPathOf = (batchId: number) => join(stagingDir(), `batch-${batchId}.upload`);
+// Defined beside the staging code (the abandoned-import sweep needs it too); callers keep this path.
+export { stagedPathOf };
 
 export interface DuplicateImport {
 	batchId: number;
@@ -131,8 +131,10 @@ export async function startImport(actor: Actor, batchId: number, input: StartInp
 	if (input.saveTemplateAs && input.headerSignature) {
 		await saveTemplate(actor, input.saveTemplateAs, input.headerSignature, input);
 	}
-	await batch.update({ mapping: input.mapping, options: input.options, state: 'running' });
+	// Progress first: a running batch always has a heartbeat, so a process that dies between
+	// these two lines leaves nothing that the sweep for abandoned imports cannot see.
 	await beginProgress(batch.id, batch.fileBytes ?? 0);
+	await batch.update({ mapping: input.mapping, options: input.options, state: 'running' });
 	const path = stagedPathOf(batch.id);
 	const done: Promise<ImportOutcome> = runImport({
 		batchId: batch.id,

@@ -19,6 +19,9 @@ export function stagingDir(): string {
 	return process.env.IMPORT_STAGING_DIR || join(tmpdir(), 'fractile-imports');
 }
 
+/** Where a batch's file waits from its upload to the end of its import. */
+export const stagedPathOf = (batchId: number) => join(stagingDir(), `batch-${batchId}.upload`);
+
 const megabytes = (bytes: number) => `${Math.round(bytes / 1024 / 1024)} MB`;
 
 /**

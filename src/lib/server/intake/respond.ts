@@ -1,6 +1,12 @@
 import { isHttpError, isRedirect } from '@sveltejs/kit';
 import { apiError } from '../http';
-import { InputError, NotFoundError, ReadOnlyError, StateError } from '../domainErrors';
+import {
+	InputError,
+	NotFoundError,
+	ReadOnlyError,
+	StateError,
+	StorageUnavailableError
+} from '../domainErrors';
 import { ImportError } from '../import/errors';
 
 /** Turns the data layer's expected errors into the API's error shape; rethrows the rest. */
@@ -13,6 +19,7 @@ export function toApiError(err: unknown): never {
 		apiError(400, 'invalid_input', err.message, Object.keys(err.fieldErrors)[0]);
 	}
 	if (err instanceof ImportError) apiError(err.status, err.code, err.message);
+	if (err instanceof StorageUnavailableError) apiError(503, 'storage_unavailable', err.message);
 	throw err;
 }
 

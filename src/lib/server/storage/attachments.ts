@@ -84,10 +84,12 @@ export async function uploadAttachment(
 			});
 		}
 		const storageKey = `attachments/${survey.id}/${randomUUID()}`;
+		// The thumbnail is made before anything is stored: the gap between the two objects, where
+		// storage going away would strand the first, stays as short as the network allows.
+		const thumb = IMAGE_TYPES.has(contentType) ? await thumbnail(staged.path) : null;
 		await putObject(storageKey, createReadStream(staged.path), contentType, staged.bytes);
 		keys.push(storageKey);
 		let thumbnailKey: string | null = null;
-		const thumb = IMAGE_TYPES.has(contentType) ? await thumbnail(staged.path) : null;
 		if (thumb) {
 			thumbnailKey = `${storageKey}.thumb.jpg`;
 			await putObject(thumbnailKey, thumb, 'image/jpeg', thumb.length);
@@ -124,11 +126,22 @@ export async function uploadAttachment(
 			return attachment;
 		});
 	} catch (err) {
-		await Promise.all(keys.map((k) => deleteObject(k).catch(() => undefined)));
+		await removeObjects(keys);
 		throw err;
 	} finally {
 		await removeStaged(staged.path);
 	}
+}
+
+/** Removes what a failed upload stored; an object storage would not let go of is logged. */
+async function removeObjects(keys: string[]): Promise<void> {
+	await Promise.all(
+		keys.map((key) =>
+			deleteObject(key).catch((err) =>
+				console.error(`object ${key} was left in storage by a failed upload:`, err.message)
+			)
+		)
+	);
 }
 
 export async function scopedAttachment(actor: Actor, attachmentId: number) {

@@ -6,6 +6,8 @@ import {
 } from '@aws-sdk/client-s3';
 import type { Readable } from 'node:stream';
 import { z } from 'zod';
+import { StorageUnavailableError } from '../domainErrors';
+import { isStorageUnreachable } from './unreachable';
 
 /** Object storage settings: any S3-compatible service; the s3rver fake in development/tests. */
 const storageEnvSchema = z.object({
@@ -13,7 +15,10 @@ const storageEnvSchema = z.object({
 	S3_REGION: z.string().min(1).default('us-east-1'),
 	S3_BUCKET: z.string().min(1, 'S3_BUCKET is required'),
 	S3_ACCESS_KEY_ID: z.string().min(1, 'S3_ACCESS_KEY_ID is required'),
-	S3_SECRET_ACCESS_KEY: z.string().min(1, 'S3_SECRET_ACCESS_KEY is required')
+	S3_SECRET_ACCESS_KEY: z.string().min(1, 'S3_SECRET_ACCESS_KEY is required'),
+	// docs/scaling.md, "Timeouts": why these values.
+	S3_CONNECT_TIMEOUT_MS: z.coerce.number().int().min(100).default(3_000),
+	S3_REQUEST_TIMEOUT_MS: z.coerce.number().int().min(100).default(20_000)
 });
 
 let client: { s3: S3Client; bucket: string } | null = null;
@@ -38,6 +43,18 @@ function storage() {
 				// several S3-compatible services store that framing as the object's bytes.
 				requestChecksumCalculation: 'WHEN_REQUIRED',
 				responseChecksumValidation: 'WHEN_REQUIRED',
+				// Every wait bounded, so storage that is down or hung is a prompt 503, not a held
+				// request: the SDK's defaults wait for ever on a connect or an answer.
+				requestHandler: {
+					connectionTimeout: env.S3_CONNECT_TIMEOUT_MS,
+					requestTimeout: env.S3_REQUEST_TIMEOUT_MS,
+					throwOnRequestTimeout: true,
+					// No bytes either way for this long while a download streams: the service is stuck.
+					socketTimeout: env.S3_REQUEST_TIMEOUT_MS
+				},
+				// One retry for a passing fault, not the default two, so the worst wait stays near two
+				// request timeouts. Streamed bodies (uploads) are never retried by the SDK.
+				maxAttempts: 2,
 				credentials: {
 					accessKeyId: env.S3_ACCESS_KEY_ID,
 					secretAccessKey: env.S3_SECRET_ACCESS_KEY
@@ -48,6 +65,21 @@ function storage() {
 	return client;
 }
 
+/** Runs one storage call; an outage becomes StorageUnavailableError, logged for operators. */
+async function call<T>(operation: string, key: string, request: () => Promise<T>): Promise<T> {
+	try {
+		return await request();
+	} catch (err) {
+		if (!isStorageUnreachable(err)) throw err;
+		const e = err as { name?: string; code?: string; message?: string };
+		console.warn(
+			`object storage unavailable (${operation} ${key}): ${e.code ?? e.name} ${e.message ?? ''}`
+		);
+		// No `cause`: the socket error's code would make handleError take it for the database.
+		throw new StorageUnavailableError();
+	}
+}
+
 export async function putObject(
 	key: string,
 	body: Buffer | Readable,
@@ -55,26 +87,30 @@ export async function putObject(
 	bytes: number
 ) {
 	const { s3, bucket } = storage();
-	await s3.send(
-		new PutObjectCommand({
-			Bucket: bucket,
-			Key: key,
-			Body: body,
-			ContentType: contentType,
-			ContentLength: bytes
-		})
+	await call('PUT', key, () =>
+		s3.send(
+			new PutObjectCommand({
+				Bucket: bucket,
+				Key: key,
+				Body: body,
+				ContentType: contentType,
+				ContentLength: bytes
+			})
+		)
 	);
 }
 
 export async function getObject(key: string) {
 	const { s3, bucket } = storage();
-	const result = await s3.send(new GetObjectCommand({ Bucket: bucket, Key: key }));
+	const result = await call('GET', key, () =>
+		s3.send(new GetObjectCommand({ Bucket: bucket, Key: key }))
+	);
 	return { body: result.Body as Readable, bytes: result.ContentLength ?? null };
 }
 
 export async function deleteObject(key: string) {
 	const { s3, bucket } = storage();
-	await s3.send(new DeleteObjectCommand({ Bucket: bucket, Key: key }));
+	await call('DELETE', key, () => s3.send(new DeleteObjectCommand({ Bucket: bucket, Key: key })));
 }
 
 /** Closes the client's pooled sockets (graceful shutdown): they would keep the process alive. */

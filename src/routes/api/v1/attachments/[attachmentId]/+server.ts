@@ -11,7 +11,9 @@ export const GET: RequestHandler = async ({ locals, params, url }) => {
 	const actor = authorize(locals, 'attachment:read');
 	const attachment = await api(() => scopedAttachment(actor, idParam(params.attachmentId)));
 	const wantThumb = url.searchParams.get('thumbnail') === '1' && attachment.thumbnailKey;
-	const object = await getObject(wantThumb ? attachment.thumbnailKey! : attachment.storageKey);
+	const object = await api(() =>
+		getObject(wantThumb ? attachment.thumbnailKey! : attachment.storageKey)
+	);
 	const isImage = attachment.contentType.startsWith('image/');
 	return new Response(Readable.toWeb(object.body) as ReadableStream, {
 		headers: {
