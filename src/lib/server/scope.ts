@@ -1,6 +1,6 @@
 import { error } from '@sveltejs/kit';
 import { Op, type Transaction, type WhereOptions } from 'sequelize';
-import { Asset, AssetShare, ImportBatch, Member, Survey } from './db/models';
+import { Asset, AssetShare, ImportBatch, Member, Survey, VerificationHole } from './db/models';
 import { NotFoundError, ReadOnlyError } from './domainErrors';
 import type { Actor } from './policy';
 
@@ -62,13 +62,38 @@ export async function scopedSurvey(
 	return { survey, asset };
 }
 
-export async function scopedMember(actor: Actor, memberId: number, access: Access) {
-	const member = Number.isSafeInteger(memberId) ? await Member.findByPk(memberId) : null;
+export async function scopedMember(
+	actor: Actor,
+	memberId: number,
+	access: Access,
+	transaction?: Transaction
+) {
+	const member = Number.isSafeInteger(memberId)
+		? await Member.findByPk(memberId, { transaction })
+		: null;
 	if (!member) throw new NotFoundError('The member');
-	const { survey, asset } = await scopedSurvey(actor, member.surveyId, access).catch((err) => {
-		throw err instanceof NotFoundError ? new NotFoundError('The member') : err;
-	});
+	const { survey, asset } = await scopedSurvey(actor, member.surveyId, access, transaction).catch(
+		(err) => {
+			throw err instanceof NotFoundError ? new NotFoundError('The member') : err;
+		}
+	);
 	return { member, survey, asset };
+}
+
+export async function scopedHole(
+	actor: Actor,
+	holeId: number,
+	access: Access,
+	transaction?: Transaction
+) {
+	const hole = Number.isSafeInteger(holeId)
+		? await VerificationHole.findByPk(holeId, { transaction })
+		: null;
+	if (!hole) throw new NotFoundError('The hole');
+	const scoped = await scopedMember(actor, hole.memberId, access, transaction).catch((err) => {
+		throw err instanceof NotFoundError ? new NotFoundError('The hole') : err;
+	});
+	return { hole, ...scoped };
 }
 
 export async function scopedImportBatch(actor: Actor, batchId: number, access: Access) {
