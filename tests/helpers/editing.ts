@@ -1,7 +1,24 @@
+import type { Sequelize } from 'sequelize';
+import { afterAll, beforeAll } from 'vitest';
 import { AuditEvent, VerificationHole } from '../../src/lib/server/db/models';
 import type { Actor } from '../../src/lib/server/policy';
-import { freshSurvey, otherOrganisation } from './intake';
-import type { HttpClient } from './session';
+import { actorFor, freshSurvey, otherOrganisation, testSequelize } from './intake';
+import { DEMO_USERS, signInAs, type HttpClient } from './session';
+
+/**
+ * For a describe block: the demo surveyor signed in over HTTP and as an actor for fixtures, and
+ * the models on the test database; filled in before the first test, closed after the last.
+ */
+export function asDemoSurveyor() {
+	const session = {} as { sequelize: Sequelize; actor: Actor; surveyor: HttpClient };
+	beforeAll(async () => {
+		session.sequelize = testSequelize();
+		session.actor = await actorFor(DEMO_USERS.surveyor);
+		session.surveyor = await signInAs('surveyor');
+	});
+	afterAll(() => session.sequelize.close());
+	return session;
+}
 
 /**
  * A fresh draft survey of `actor`'s organisation on its own asset, with two members and one

@@ -3,13 +3,16 @@
  * built app and the real database: validated, asked of the policy, frozen with their survey,
  * another organisation's hole 404, every change an audit event.
  */
-import type { Sequelize } from 'sequelize';
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { describe, expect, it } from 'vitest';
 import { VerificationHole } from '../../../src/lib/server/db/models';
-import type { Actor } from '../../../src/lib/server/policy';
-import { actorFor, testSequelize } from '../../helpers/intake';
-import { auditOf, editableRecords, foreignRecords, submitSurvey } from '../../helpers/editing';
-import { anonymousClient, DEMO_USERS, signInAs, type HttpClient } from '../../helpers/session';
+import {
+	asDemoSurveyor,
+	auditOf,
+	editableRecords,
+	foreignRecords,
+	submitSurvey
+} from '../../helpers/editing';
+import { anonymousClient, signInAs } from '../../helpers/session';
 
 const CORRECTED = {
 	label: 'H1',
@@ -23,21 +26,11 @@ const CORRECTED = {
 };
 
 describe('/api/v1/holes/:id (the built app, the real database)', () => {
-	let sequelize: Sequelize;
-	let actor: Actor;
-	let surveyor: HttpClient;
-	beforeAll(async () => {
-		sequelize = testSequelize();
-		actor = await actorFor(DEMO_USERS.surveyor);
-		surveyor = await signInAs('surveyor');
-	});
-	afterAll(async () => {
-		await sequelize.close();
-	});
+	const session = asDemoSurveyor();
 
 	it('corrects a hole and logs each changed value, old and new', async () => {
-		const { hole, member } = await editableRecords(actor);
-		const response = await surveyor.putJson(`/api/v1/holes/${hole.id}`, CORRECTED);
+		const { hole, member } = await editableRecords(session.actor);
+		const response = await session.surveyor.putJson(`/api/v1/holes/${hole.id}`, CORRECTED);
 		expect(response.status).toBe(200);
 		expect((await response.json()).hole).toMatchObject({ id: hole.id, measuredCoverMm: 34.5 });
 		await hole.reload();
@@ -52,12 +45,14 @@ describe('/api/v1/holes/:id (the built app, the real database)', () => {
 			}
 		});
 		// The same values again change nothing, and so log nothing.
-		expect((await surveyor.putJson(`/api/v1/holes/${hole.id}`, CORRECTED)).status).toBe(200);
+		expect((await session.surveyor.putJson(`/api/v1/holes/${hole.id}`, CORRECTED)).status).toBe(
+			200
+		);
 		expect(await auditOf('hole.updated', 'member', member.id)).toHaveLength(1);
 	});
 
 	it('answers a bad value or a taken label 400 naming the field, and changes nothing', async () => {
-		const { hole, member } = await editableRecords(actor);
+		const { hole, member } = await editableRecords(session.actor);
 		await VerificationHole.create({
 			memberId: member.id,
 			label: 'H2',
@@ -68,7 +63,7 @@ describe('/api/v1/holes/:id (the built app, the real database)', () => {
 			barDiameterMm: null,
 			method: null
 		});
-		const negative = await surveyor.putJson(`/api/v1/holes/${hole.id}`, {
+		const negative = await session.surveyor.putJson(`/api/v1/holes/${hole.id}`, {
 			...CORRECTED,
 			measuredCoverMm: -4
 		});
@@ -80,7 +75,10 @@ describe('/api/v1/holes/:id (the built app, the real database)', () => {
 				field: 'measuredCoverMm'
 			}
 		});
-		const taken = await surveyor.putJson(`/api/v1/holes/${hole.id}`, { ...CORRECTED, label: 'h2' });
+		const taken = await session.surveyor.putJson(`/api/v1/holes/${hole.id}`, {
+			...CORRECTED,
+			label: 'h2'
+		});
 		expect(taken.status).toBe(400);
 		expect((await taken.json()).error).toMatchObject({
 			message: 'Hole "h2" is already recorded on this member.',
@@ -92,8 +90,8 @@ describe('/api/v1/holes/:id (the built app, the real database)', () => {
 	});
 
 	it('deletes a hole (204), logs what it held, and then answers 404', async () => {
-		const { hole, member } = await editableRecords(actor);
-		const deleted = await surveyor.delete(`/api/v1/holes/${hole.id}`);
+		const { hole, member } = await editableRecords(session.actor);
+		const deleted = await session.surveyor.delete(`/api/v1/holes/${hole.id}`);
 		expect(deleted.status).toBe(204);
 		expect(await VerificationHole.findByPk(hole.id)).toBeNull();
 		const [event] = await auditOf('hole.deleted', 'member', member.id);
@@ -103,19 +101,19 @@ describe('/api/v1/holes/:id (the built app, the real database)', () => {
 			meterReadingMm: 31,
 			measuredCoverMm: 33
 		});
-		expect((await surveyor.delete(`/api/v1/holes/${hole.id}`)).status).toBe(404);
-		expect((await surveyor.get(`/api/v1/holes/${hole.id}`)).status).toBe(404);
+		expect((await session.surveyor.delete(`/api/v1/holes/${hole.id}`)).status).toBe(404);
+		expect((await session.surveyor.get(`/api/v1/holes/${hole.id}`)).status).toBe(404);
 	});
 
 	it('refuses to change or delete a hole of a submitted survey (409), which keeps it', async () => {
-		const { hole, survey } = await editableRecords(actor);
-		await submitSurvey(surveyor, survey.id);
-		const put = await surveyor.putJson(`/api/v1/holes/${hole.id}`, CORRECTED);
+		const { hole, survey } = await editableRecords(session.actor);
+		await submitSurvey(session.surveyor, survey.id);
+		const put = await session.surveyor.putJson(`/api/v1/holes/${hole.id}`, CORRECTED);
 		expect(put.status).toBe(409);
 		expect((await put.json()).error.message).toBe(
 			'The survey is submitted: its readings are frozen. An engineer can return it for changes.'
 		);
-		expect((await surveyor.delete(`/api/v1/holes/${hole.id}`)).status).toBe(409);
+		expect((await session.surveyor.delete(`/api/v1/holes/${hole.id}`)).status).toBe(409);
 		await hole.reload();
 		expect(hole.measuredCoverMm).toBe(33);
 	});
@@ -123,15 +121,15 @@ describe('/api/v1/holes/:id (the built app, the real database)', () => {
 	it("answers another organisation's hole 404 to read, change or delete, and leaves it", async () => {
 		const { hole } = await foreignRecords();
 		const path = `/api/v1/holes/${hole.id}`;
-		expect((await surveyor.get(path)).status).toBe(404);
-		expect((await surveyor.putJson(path, CORRECTED)).status).toBe(404);
-		expect((await surveyor.delete(path)).status).toBe(404);
+		expect((await session.surveyor.get(path)).status).toBe(404);
+		expect((await session.surveyor.putJson(path, CORRECTED)).status).toBe(404);
+		expect((await session.surveyor.delete(path)).status).toBe(404);
 		await hole.reload();
 		expect(hole.measuredCoverMm).toBe(33);
 	});
 
 	it('refuses a role without hole:write (403) and anyone signed out (401)', async () => {
-		const { hole } = await editableRecords(actor);
+		const { hole } = await editableRecords(session.actor);
 		const owner = await signInAs('owner');
 		expect((await owner.putJson(`/api/v1/holes/${hole.id}`, CORRECTED)).status).toBe(403);
 		expect((await owner.delete(`/api/v1/holes/${hole.id}`)).status).toBe(403);

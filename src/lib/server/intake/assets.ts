@@ -3,7 +3,7 @@ import { recordAudit } from '../audit';
 import type { AssetInput } from '$lib/intake/schemas';
 import type { Actor } from '../policy';
 import { readableAssetsWhere, scopedAsset } from '../scope';
-import { auditChanges, saveChanges } from './changes';
+import { saveAudited } from './changes';
 
 export interface AssetSummary {
 	id: number;
@@ -68,9 +68,7 @@ export async function updateAsset(
 	const sequelize = Asset.sequelize!;
 	return sequelize.transaction(async (transaction) => {
 		const asset = await scopedAsset(actor, assetId, 'write', transaction);
-		const changes = await saveChanges(asset, input, transaction);
 		const subject = { type: 'asset' as const, id: asset.id, detail: { name: asset.name } };
-		await auditChanges(actor, 'asset.updated', subject, changes, transaction);
-		return asset;
+		return saveAudited(actor, 'asset.updated', asset, input, subject, transaction);
 	});
 }

@@ -3,7 +3,7 @@ import { recordAudit } from '../audit';
 import type { Actor } from '../policy';
 
 /** Each changed field's value before and after an edit, as the audit log keeps it. */
-export type FieldChanges = Record<string, { from: unknown; to: unknown }>;
+type FieldChanges = Record<string, { from: unknown; to: unknown }>;
 
 /** Long notes are cut in the audit detail; the record itself keeps them whole. */
 const AUDIT_TEXT_MAX = 200;
@@ -18,7 +18,7 @@ function forAudit(value: unknown): unknown {
  * Sets `input` on `record` and saves the fields that differ (Sequelize compares each with the
  * value read), returning what changed, old and new. An edit that changes nothing writes nothing.
  */
-export async function saveChanges<M extends Model>(
+async function saveChanges<M extends Model>(
 	record: M,
 	input: Partial<Attributes<M>>,
 	transaction: Transaction
@@ -41,7 +41,7 @@ export interface ChangeSubject {
 }
 
 /** The audit event of an edit, with its changes; none when nothing changed. */
-export async function auditChanges(
+async function auditChanges(
 	actor: Actor,
 	action: string,
 	subject: ChangeSubject,
@@ -60,4 +60,18 @@ export async function auditChanges(
 		},
 		transaction
 	);
+}
+
+/** Saves an edit and logs it in the same transaction: both happen, or neither. */
+export async function saveAudited<M extends Model>(
+	actor: Actor,
+	action: string,
+	record: M,
+	input: Partial<Attributes<M>>,
+	subject: ChangeSubject,
+	transaction: Transaction
+): Promise<M> {
+	const changes = await saveChanges(record, input, transaction);
+	await auditChanges(actor, action, subject, changes, transaction);
+	return record;
 }

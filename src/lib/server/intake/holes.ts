@@ -6,7 +6,7 @@ import type { HoleInput } from '$lib/intake/schemas';
 import type { Actor } from '../policy';
 import { scopedHole, scopedMember } from '../scope';
 import { assertSurveyEditableLocked } from './frozen';
-import { auditChanges, saveChanges } from './changes';
+import { saveAudited } from './changes';
 
 export async function listHoles(actor: Actor, memberId: number) {
 	await scopedMember(actor, memberId, 'read');
@@ -71,14 +71,9 @@ export async function updateHole(actor: Actor, holeId: number, input: HoleInput)
 		const { hole, survey } = await scopedHole(actor, holeId, 'write', transaction);
 		await assertSurveyEditableLocked(survey, transaction);
 		await assertLabelFree(hole.memberId, input.label, hole.id, transaction);
-		const changes = await saveChanges(hole, input, transaction);
-		const subject = {
-			type: 'member' as const,
-			id: hole.memberId,
-			detail: { holeId: hole.id, label: hole.label }
-		};
-		await auditChanges(actor, 'hole.updated', subject, changes, transaction);
-		return hole;
+		const detail = { holeId: hole.id, label: hole.label };
+		const subject = { type: 'member' as const, id: hole.memberId, detail };
+		return saveAudited(actor, 'hole.updated', hole, input, subject, transaction);
 	});
 }
 

@@ -6,7 +6,7 @@ import { memberSchema, type MemberInput } from '$lib/intake/schemas';
 import type { Actor } from '../policy';
 import { scopedMember, scopedSurvey } from '../scope';
 import { assertSurveyEditable, assertSurveyEditableLocked } from './frozen';
-import { auditChanges, saveChanges } from './changes';
+import { saveAudited } from './changes';
 import { labelKey } from '../import/validateRow';
 
 export interface MemberSummary {
@@ -129,14 +129,9 @@ export async function updateMember(
 				label: ['Already used by another member of this survey.']
 			});
 		}
-		const changes = await saveChanges(member, input, transaction);
-		const subject = {
-			type: 'member' as const,
-			id: member.id,
-			detail: { surveyId: survey.id, label: member.label }
-		};
-		await auditChanges(actor, 'member.updated', subject, changes, transaction);
-		return member;
+		const detail = { surveyId: survey.id, label: member.label };
+		const subject = { type: 'member' as const, id: member.id, detail };
+		return saveAudited(actor, 'member.updated', member, input, subject, transaction);
 	});
 }
 

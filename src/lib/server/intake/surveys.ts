@@ -7,7 +7,7 @@ import type { SurveyInput } from '$lib/intake/schemas';
 import type { Actor } from '../policy';
 import { scopedAsset, scopedSurvey } from '../scope';
 import { assertSurveyEditableLocked } from './frozen';
-import { auditChanges, saveChanges } from './changes';
+import { saveAudited } from './changes';
 
 export async function listSurveys(actor: Actor, assetId: number) {
 	await scopedAsset(actor, assetId, 'read');
@@ -56,10 +56,8 @@ export async function updateSurvey(actor: Actor, surveyId: number, input: Survey
 	return Survey.sequelize!.transaction(async (transaction) => {
 		const { survey } = await scopedSurvey(actor, surveyId, 'write', transaction);
 		await assertSurveyEditableLocked(survey, transaction);
-		const changes = await saveChanges(survey, input, transaction);
 		const subject = { type: 'survey' as const, id: survey.id, detail: { title: survey.title } };
-		await auditChanges(actor, 'survey.updated', subject, changes, transaction);
-		return survey;
+		return saveAudited(actor, 'survey.updated', survey, input, subject, transaction);
 	});
 }
 
