@@ -23,6 +23,28 @@ type Probe = {
 	body?: unknown;
 };
 
+/** Bodies each edit's schema accepts, so that an attack gets past validation to the lookup. */
+const VALID = {
+	asset: {
+		name: 'Stolen asset',
+		designCode: 'EN 1992-1-1',
+		unitSystem: 'mm',
+		designServiceLifeYears: '50'
+	},
+	survey: { title: 'Stolen survey', surveyDate: '2026-01-01' },
+	member: {
+		label: 'STOLEN-5',
+		memberType: 'slab',
+		face: 'top',
+		exposureClass: 'XC3',
+		requirementSource: 'EN 1992-1-1',
+		cMinMm: '25',
+		cNomMm: '35',
+		deltaCDevMm: '10'
+	},
+	hole: { label: 'STOLEN-H', meterReadingMm: '40', measuredCoverMm: '41' }
+};
+
 /** For each route with an organisation's id: the requests an attacker would try with a victim's ids. */
 const ORG_ROUTES: Record<string, (v: OrganisationIds, own: OrganisationIds) => Probe[]> = {
 	'/assessments/[id]': (v) => [
@@ -39,6 +61,23 @@ const ORG_ROUTES: Record<string, (v: OrganisationIds, own: OrganisationIds) => P
 	],
 	'/assets/[assetId]/populations/detail': (v) => [
 		{ method: 'GET', path: `/assets/${v.assetId}/populations/detail?type=deck&exposure=XD3` }
+	],
+	'/assets/[assetId]/edit': (v) => [
+		{ method: 'GET', path: `/assets/${v.assetId}/edit` },
+		{ method: 'FORM', path: `/assets/${v.assetId}/edit?/save`, body: VALID.asset }
+	],
+	'/surveys/[surveyId]/edit': (v) => [
+		{ method: 'GET', path: `/surveys/${v.surveyId}/edit` },
+		{ method: 'FORM', path: `/surveys/${v.surveyId}/edit?/save`, body: VALID.survey }
+	],
+	'/members/[memberId]/edit': (v) => [
+		{ method: 'GET', path: `/members/${v.memberId}/edit` },
+		{ method: 'FORM', path: `/members/${v.memberId}/edit?/save`, body: VALID.member }
+	],
+	'/holes/[holeId]/edit': (v) => [
+		{ method: 'GET', path: `/holes/${v.holeId}/edit` },
+		{ method: 'FORM', path: `/holes/${v.holeId}/edit?/save`, body: VALID.hole },
+		{ method: 'FORM', path: `/holes/${v.holeId}/edit?/delete` }
 	],
 	'/api/v1/holes/[holeId]': (v) => [
 		{ method: 'GET', path: `/api/v1/holes/${v.holeId}` },
