@@ -6,6 +6,29 @@ import { launchChromium, SCREENSHOT_DIR } from '../helpers/browser';
 import { appUrl } from '../helpers/env';
 import { actorFor, countReadings, freshSurvey, testSequelize } from '../helpers/intake';
 import { DEMO_PASSWORD, DEMO_USERS } from '../helpers/session';
+import { screenshot } from '../helpers/pages';
+import { Member } from '../../src/lib/server/db/models';
+
+/** Opens a fresh draft member's edit page, at `width` px, from its survey's member list. */
+async function openMemberEdit(page: Page, width: number, height: number) {
+	const { survey, members } = await freshSurvey(await actorFor(DEMO_USERS.surveyor), ['D-01']);
+	await page.setViewportSize({ width, height });
+	await page.goto(`${appUrl()}/surveys/${survey.id}`, { waitUntil: 'networkidle' });
+	await Promise.all([
+		page.waitForURL(`**/members/${members[0].id}/edit`),
+		page.getByRole('link', { name: 'Edit member D-01' }).click()
+	]);
+	await page.waitForLoadState('networkidle');
+	return members[0];
+}
+
+/** Saves the form and waits for the member's entry page it sends the browser to. */
+async function save(page: Page, memberId: number) {
+	await Promise.all([
+		page.waitForURL(`**/members/${memberId}/entry`),
+		page.getByRole('button', { name: 'Save member' }).click()
+	]);
+}
 
 describe('intake pages in chromium (the built app)', () => {
 	let browser: Browser;
@@ -69,5 +92,31 @@ describe('intake pages in chromium (the built app)', () => {
 		await page.getByText('2 readings saved.').waitFor();
 		expect(await countReadings(sequelize, { surveyId: members[0].surveyId })).toBe(2);
 		await page.screenshot({ path: `${SCREENSHOT_DIR}/intake-member-tablet.png`, fullPage: true });
+	});
+
+	it('at 1280 px: a new c_min typed and saved is what the member shows', async () => {
+		const member = await openMemberEdit(page, 1280, 900);
+		expect(await page.inputValue('#field-cMinMm')).toBe('25');
+		await page.fill('#field-cMinMm', '30');
+		await screenshot(page, 'edit-member-desktop');
+		await save(page, member.id);
+		await page.getByText('30 / 35 mm').waitFor();
+		expect((await member.reload()).cMinMm).toBe(30);
+		await screenshot(page, 'edit-member-saved-desktop');
+	});
+
+	it('at tablet width: the EN suggestion for XD1 fills c_min and c_nom, and saving keeps them', async () => {
+		const member = await openMemberEdit(page, 820, 1180);
+		await page.fill('#field-exposureClass', 'XD1');
+		await page.getByRole('button', { name: /Suggest c_min and c_nom/ }).click();
+		// EN 1992-1-1 Table 4.4N, structural class S4: XD1 → c_min,dur 35 mm; c_nom = c_min + Δc_dev.
+		await page.getByText(/4\.4N/).waitFor();
+		expect(await page.inputValue('#field-cMinMm')).toBe('35');
+		expect(await page.inputValue('#field-cNomMm')).toBe('45');
+		await screenshot(page, 'edit-member-tablet');
+		await save(page, member.id);
+		await page.getByText('35 / 45 mm').waitFor();
+		await member.reload();
+		expect([member.exposureClass, member.cMinMm, member.cNomMm]).toEqual(['XD1', 35, 45]);
 	});
 });

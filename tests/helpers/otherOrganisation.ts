@@ -1,8 +1,8 @@
 /**
  * A second organisation with records of its own, for the cross-organisation attacks: signed up
  * through the real form (its creator is admin), then given a copy of one demo member's asset,
- * survey, member and readings by SQL (intake's pages may not exist yet), and an assessment and
- * an API token made through the API as that admin would.
+ * survey, member and readings by SQL (intake's pages may not exist yet) and a verification hole,
+ * and an assessment and an API token made through the API as that admin would.
  */
 import { rebuildCoverSets } from '../../src/lib/server/readings/coverSets';
 import { QueryTypes, type Sequelize } from 'sequelize';
@@ -15,6 +15,7 @@ export interface OrganisationIds {
 	assetId: number;
 	surveyId: number;
 	memberId: number;
+	holeId: number;
 	assessmentId: number;
 	membershipId: number;
 	tokenId: number;
@@ -38,7 +39,7 @@ const insert = async (sequelize: Sequelize, sql: string, replacements: unknown[]
 	return Number(id);
 };
 
-/** Copies asset → survey → first member → its readings into `organisationId`. */
+/** Copies asset → survey → first member → its readings into `organisationId`, with a hole. */
 async function copyRecords(sequelize: Sequelize, organisationId: number, marker: string) {
 	const assetId = await insert(
 		sequelize,
@@ -81,7 +82,13 @@ async function copyRecords(sequelize: Sequelize, organisationId: number, marker:
 		{ replacements: [memberId, source.id], type: QueryTypes.INSERT }
 	);
 	await sequelize.transaction((transaction) => rebuildCoverSets(transaction, [memberId]));
-	return { assetId, surveyId, memberId };
+	const holeId = await insert(
+		sequelize,
+		`INSERT INTO verification_holes (member_id, label, x_mm, y_mm, meter_reading_mm,
+		   measured_cover_mm, method, created_at) VALUES (?, 'H1', 0, 0, 40, 41.5, 'drilled', NOW())`,
+		[memberId]
+	);
+	return { assetId, surveyId, memberId, holeId };
 }
 
 /** A draft assessment of `assetId` and an API token, both made over HTTP by `client`. */

@@ -23,6 +23,28 @@ type Probe = {
 	body?: unknown;
 };
 
+/** Bodies each edit's schema accepts, so that an attack gets past validation to the lookup. */
+const VALID = {
+	asset: {
+		name: 'Stolen asset',
+		designCode: 'EN 1992-1-1',
+		unitSystem: 'mm',
+		designServiceLifeYears: '50'
+	},
+	survey: { title: 'Stolen survey', surveyDate: '2026-01-01' },
+	member: {
+		label: 'STOLEN-5',
+		memberType: 'slab',
+		face: 'top',
+		exposureClass: 'XC3',
+		requirementSource: 'EN 1992-1-1',
+		cMinMm: '25',
+		cNomMm: '35',
+		deltaCDevMm: '10'
+	},
+	hole: { label: 'STOLEN-H', meterReadingMm: '40', measuredCoverMm: '41' }
+};
+
 /** For each route with an organisation's id: the requests an attacker would try with a victim's ids. */
 const ORG_ROUTES: Record<string, (v: OrganisationIds, own: OrganisationIds) => Probe[]> = {
 	'/assessments/[id]': (v) => [
@@ -39,6 +61,32 @@ const ORG_ROUTES: Record<string, (v: OrganisationIds, own: OrganisationIds) => P
 	],
 	'/assets/[assetId]/populations/detail': (v) => [
 		{ method: 'GET', path: `/assets/${v.assetId}/populations/detail?type=deck&exposure=XD3` }
+	],
+	'/assets/[assetId]/edit': (v) => [
+		{ method: 'GET', path: `/assets/${v.assetId}/edit` },
+		{ method: 'FORM', path: `/assets/${v.assetId}/edit?/save`, body: VALID.asset }
+	],
+	'/surveys/[surveyId]/edit': (v) => [
+		{ method: 'GET', path: `/surveys/${v.surveyId}/edit` },
+		{ method: 'FORM', path: `/surveys/${v.surveyId}/edit?/save`, body: VALID.survey }
+	],
+	'/members/[memberId]/edit': (v) => [
+		{ method: 'GET', path: `/members/${v.memberId}/edit` },
+		{ method: 'FORM', path: `/members/${v.memberId}/edit?/save`, body: VALID.member }
+	],
+	'/holes/[holeId]/edit': (v) => [
+		{ method: 'GET', path: `/holes/${v.holeId}/edit` },
+		{ method: 'FORM', path: `/holes/${v.holeId}/edit?/save`, body: VALID.hole },
+		{ method: 'FORM', path: `/holes/${v.holeId}/edit?/delete` }
+	],
+	'/api/v1/holes/[holeId]': (v) => [
+		{ method: 'GET', path: `/api/v1/holes/${v.holeId}` },
+		{
+			method: 'PUT',
+			path: `/api/v1/holes/${v.holeId}`,
+			body: { label: 'STOLEN-H', meterReadingMm: 40, measuredCoverMm: 41 }
+		},
+		{ method: 'DELETE', path: `/api/v1/holes/${v.holeId}` }
 	],
 	'/members/[memberId]': (v) => [{ method: 'GET', path: `/members/${v.memberId}` }],
 	'/organisation/members/[id]': (v) => [
@@ -269,6 +317,7 @@ const GHOST: OrganisationIds = {
 	assetId: NOWHERE,
 	surveyId: NOWHERE,
 	memberId: NOWHERE,
+	holeId: NOWHERE,
 	assessmentId: NOWHERE,
 	membershipId: NOWHERE,
 	tokenId: NOWHERE,
@@ -296,6 +345,10 @@ beforeAll(async () => {
 		{ replacements: ['engineer@kestrel-lane.example'], type: QueryTypes.SELECT, plain: true }
 	);
 	demoOptIn = await optInOf(1);
+	const hole = await sequelize.query<{ id: number }>(
+		'SELECT id FROM verification_holes WHERE member_id = 1 ORDER BY id LIMIT 1',
+		{ type: QueryTypes.SELECT, plain: true }
+	);
 	const [attachmentId] = await sequelize.query(
 		`INSERT INTO attachments (survey_id, kind, file_name, content_type, byte_size, sha256, storage_key,
 		   uploaded_by_user_id, created_at) VALUES (1, 'other', 'demo.txt', 'text/plain', 1, ?, ?, 1, NOW())`,
@@ -307,6 +360,7 @@ beforeAll(async () => {
 		assetId: 1,
 		surveyId: 1,
 		memberId: 1,
+		holeId: hole!.id,
 		membershipId: membership!.id,
 		...made,
 		exportId,
@@ -348,6 +402,7 @@ describe('the fixture is real', () => {
 				`/api/v1/assessments/${ids.assessmentId}`,
 				`/api/v1/surveys/${ids.surveyId}/members`,
 				`/api/v1/members/${ids.memberId}/readings`,
+				`/api/v1/holes/${ids.holeId}`,
 				`/api/v1/research/exports/${ids.exportId}`,
 				`/api/v1/imports/${ids.batchId}`,
 				`/api/v1/surveys/${ids.surveyId}/attachments`
@@ -402,10 +457,11 @@ async function optInOf(assetId: number): Promise<number> {
 }
 
 describe('after the attacks', () => {
-	it('no member, survey or asset was added or renamed, and the batches are as they were', async () => {
+	it('no member, survey, asset or hole was added or renamed, and the batches are as they were', async () => {
 		const stolen = await sequelize.query(
 			`SELECT id FROM members WHERE label LIKE 'STOLEN%' UNION ALL SELECT id FROM surveys WHERE title LIKE 'Stolen%'
-			 UNION ALL SELECT id FROM assets WHERE name LIKE 'Stolen%'`,
+			 UNION ALL SELECT id FROM assets WHERE name LIKE 'Stolen%'
+			 UNION ALL SELECT id FROM verification_holes WHERE label LIKE 'STOLEN%'`,
 			{ type: QueryTypes.SELECT }
 		);
 		expect(stolen).toEqual([]);
@@ -414,6 +470,14 @@ describe('after the attacks', () => {
 			{ replacements: [demo.batchId, other.ids.batchId], type: QueryTypes.SELECT }
 		);
 		expect(states.map((r) => r.state)).toEqual(['completed', 'pending']);
+	});
+
+	it("the victims' holes are still there", async () => {
+		const holes = await sequelize.query('SELECT id FROM verification_holes WHERE id IN (?, ?)', {
+			replacements: [demo.holeId, other.ids.holeId],
+			type: QueryTypes.SELECT
+		});
+		expect(holes).toHaveLength(2);
 	});
 
 	it("the victims' research consent is as it was", async () => {

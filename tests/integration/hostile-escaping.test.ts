@@ -55,8 +55,11 @@ afterAll(async () => {
 });
 
 const pages = () => {
-	const { assetId, memberId, membershipId } = org.ids;
+	const { assetId, surveyId, memberId, membershipId } = org.ids;
 	return [
+		`/assets/${assetId}/edit`,
+		`/surveys/${surveyId}/edit`,
+		`/members/${memberId}/edit`,
 		'/dashboard',
 		'/account',
 		'/account/tokens',

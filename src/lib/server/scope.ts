@@ -1,6 +1,6 @@
 import { error } from '@sveltejs/kit';
-import { Op, type Transaction, type WhereOptions } from 'sequelize';
-import { Asset, AssetShare, ImportBatch, Member, Survey } from './db/models';
+import { Op, type Model, type ModelStatic, type Transaction, type WhereOptions } from 'sequelize';
+import { Asset, AssetShare, ImportBatch, Member, Survey, VerificationHole } from './db/models';
 import { NotFoundError, ReadOnlyError } from './domainErrors';
 import type { Actor } from './policy';
 
@@ -10,6 +10,18 @@ import type { Actor } from './policy';
  * asset. Anything else does not exist for them: NotFoundError, which routes answer with 404.
  */
 export type Access = 'read' | 'write';
+
+/** The record with this id, or null; an id no integer column could hold finds nothing. */
+function byId<M extends Model>(model: ModelStatic<M>, id: number, transaction?: Transaction) {
+	return Number.isSafeInteger(id) ? model.findByPk(id, { transaction }) : Promise.resolve(null);
+}
+
+/** A parent's "not found" said of the record asked for, so that the message names it. */
+const notFoundAs =
+	(what: string) =>
+	(err: unknown): never => {
+		throw err instanceof NotFoundError ? new NotFoundError(what) : err;
+	};
 
 export async function sharedAssetIds(organisationId: number): Promise<number[]> {
 	const shares = await AssetShare.findAll({ where: { organisationId }, attributes: ['assetId'] });
@@ -30,9 +42,7 @@ export async function scopedAsset(
 	access: Access,
 	transaction?: Transaction
 ): Promise<Asset> {
-	const asset = Number.isSafeInteger(assetId)
-		? await Asset.findByPk(assetId, { transaction })
-		: null;
+	const asset = await byId(Asset, assetId, transaction);
 	if (!asset) throw new NotFoundError('The asset');
 	if (asset.organisationId === actor.organisationId) return asset;
 	const share = await AssetShare.findOne({
@@ -52,31 +62,48 @@ export async function scopedSurvey(
 	access: Access,
 	transaction?: Transaction
 ): Promise<{ survey: Survey; asset: Asset }> {
-	const survey = Number.isSafeInteger(surveyId)
-		? await Survey.findByPk(surveyId, { transaction })
-		: null;
+	const survey = await byId(Survey, surveyId, transaction);
 	if (!survey) throw new NotFoundError('The survey');
-	const asset = await scopedAsset(actor, survey.assetId, access, transaction).catch((err) => {
-		throw err instanceof NotFoundError ? new NotFoundError('The survey') : err;
-	});
+	const asset = await scopedAsset(actor, survey.assetId, access, transaction).catch(
+		notFoundAs('The survey')
+	);
 	return { survey, asset };
 }
 
-export async function scopedMember(actor: Actor, memberId: number, access: Access) {
-	const member = Number.isSafeInteger(memberId) ? await Member.findByPk(memberId) : null;
+export async function scopedMember(
+	actor: Actor,
+	memberId: number,
+	access: Access,
+	transaction?: Transaction
+) {
+	const member = await byId(Member, memberId, transaction);
 	if (!member) throw new NotFoundError('The member');
-	const { survey, asset } = await scopedSurvey(actor, member.surveyId, access).catch((err) => {
-		throw err instanceof NotFoundError ? new NotFoundError('The member') : err;
-	});
+	const { survey, asset } = await scopedSurvey(actor, member.surveyId, access, transaction).catch(
+		notFoundAs('The member')
+	);
 	return { member, survey, asset };
 }
 
+export async function scopedHole(
+	actor: Actor,
+	holeId: number,
+	access: Access,
+	transaction?: Transaction
+) {
+	const hole = await byId(VerificationHole, holeId, transaction);
+	if (!hole) throw new NotFoundError('The hole');
+	const scoped = await scopedMember(actor, hole.memberId, access, transaction).catch(
+		notFoundAs('The hole')
+	);
+	return { hole, ...scoped };
+}
+
 export async function scopedImportBatch(actor: Actor, batchId: number, access: Access) {
-	const batch = Number.isSafeInteger(batchId) ? await ImportBatch.findByPk(batchId) : null;
+	const batch = await byId(ImportBatch, batchId);
 	if (!batch) throw new NotFoundError('The import');
-	const { survey, asset } = await scopedSurvey(actor, batch.surveyId, access).catch((err) => {
-		throw err instanceof NotFoundError ? new NotFoundError('The import') : err;
-	});
+	const { survey, asset } = await scopedSurvey(actor, batch.surveyId, access).catch(
+		notFoundAs('The import')
+	);
 	return { batch, survey, asset };
 }
 

@@ -3,6 +3,7 @@ import { recordAudit } from '../audit';
 import type { AssetInput } from '$lib/intake/schemas';
 import type { Actor } from '../policy';
 import { readableAssetsWhere, scopedAsset } from '../scope';
+import { saveAudited } from './changes';
 
 export interface AssetSummary {
 	id: number;
@@ -67,18 +68,7 @@ export async function updateAsset(
 	const sequelize = Asset.sequelize!;
 	return sequelize.transaction(async (transaction) => {
 		const asset = await scopedAsset(actor, assetId, 'write', transaction);
-		await asset.update(input, { transaction });
-		await recordAudit(
-			{
-				action: 'asset.updated',
-				organisationId: actor.organisationId,
-				userId: actor.userId,
-				subjectType: 'asset',
-				subjectId: asset.id,
-				detail: { fields: Object.keys(input) }
-			},
-			transaction
-		);
-		return asset;
+		const subject = { type: 'asset' as const, id: asset.id, detail: { name: asset.name } };
+		return saveAudited(actor, 'asset.updated', asset, input, subject, transaction);
 	});
 }

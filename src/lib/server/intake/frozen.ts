@@ -1,10 +1,29 @@
+import type { Transaction } from 'sequelize';
 import type { Survey } from '../db/models';
 import { StateError } from '../domainErrors';
 
+/** Why a survey may not be changed, or null: a submitted or approved survey is frozen. */
+export function frozenReason(survey: Pick<Survey, 'status'>): string | null {
+	if (survey.status !== 'submitted' && survey.status !== 'approved') return null;
+	const next = survey.status === 'submitted' ? ' An engineer can return it for changes.' : '';
+	return `The survey is ${survey.status}: its readings are frozen.${next}`;
+}
+
 /** A submitted or approved survey's readings, members and holes are frozen. */
 export function assertSurveyEditable(survey: Pick<Survey, 'status'>): void {
-	if (survey.status === 'submitted' || survey.status === 'approved') {
-		const next = survey.status === 'submitted' ? ' An engineer can return it for changes.' : '';
-		throw new StateError(`The survey is ${survey.status}: its readings are frozen.${next}`);
-	}
+	const reason = frozenReason(survey);
+	if (reason) throw new StateError(reason);
+}
+
+/**
+ * The same check inside the writer's transaction, on the survey row read again under a lock:
+ * a submit (which takes the row FOR UPDATE) either waits for this change or is seen by it, so
+ * no edit lands on a survey that was frozen between the page's check and the write.
+ */
+export async function assertSurveyEditableLocked(
+	survey: Survey,
+	transaction: Transaction
+): Promise<void> {
+	await survey.reload({ transaction, lock: transaction.LOCK.UPDATE });
+	assertSurveyEditable(survey);
 }

@@ -6,7 +6,8 @@ import { InputError } from '../domainErrors';
 import { memberSchema, type MemberInput } from '$lib/intake/schemas';
 import type { Actor } from '../policy';
 import { scopedMember, scopedSurvey } from '../scope';
-import { assertSurveyEditable } from './frozen';
+import { assertSurveyEditable, assertSurveyEditableLocked } from './frozen';
+import { saveAudited } from './changes';
 import { labelKey } from '../import/validateRow';
 
 export interface MemberSummary {
@@ -112,21 +113,22 @@ export async function updateMember(
 	memberId: number,
 	input: MemberInput
 ): Promise<Member> {
-	const { member, survey } = await scopedMember(actor, memberId, 'write');
-	assertSurveyEditable(survey);
 	return Member.sequelize!.transaction(async (transaction) => {
+		const { member, survey } = await scopedMember(actor, memberId, 'write', transaction);
+		await assertSurveyEditableLocked(survey, transaction);
+		// The unique index ignores case, as this lookup does: "m-01" clashes with "M-01".
 		const clash = await Member.findOne({
 			where: { surveyId: survey.id, label: input.label },
 			transaction
 		});
 		if (clash && clash.id !== member.id) {
 			throw new InputError(`Label "${input.label}" is already used in this survey.`, {
-				label: ['Already used.']
+				label: ['Already used by another member of this survey.']
 			});
 		}
-		await member.update(input, { transaction });
-		await auditMembers(actor, 'member.updated', survey.id, [member.label], transaction);
-		return member;
+		const detail = { surveyId: survey.id, label: member.label };
+		const subject = { type: 'member' as const, id: member.id, detail };
+		return saveAudited(actor, 'member.updated', member, input, subject, transaction);
 	});
 }
 

@@ -1,5 +1,7 @@
-import { error, type ActionFailure } from '@sveltejs/kit';
-import { formMessage, type FormFailure } from '../forms';
+import { error, redirect, type ActionFailure, type RequestEvent } from '@sveltejs/kit';
+import type { z } from 'zod';
+import { formMessage, parseForm, type FormFailure } from '../forms';
+import { authorize, type Action, type Actor } from '../policy';
 import { InputError, NotFoundError, ReadOnlyError, StateError } from '../domainErrors';
 import { ImportError } from '../import/errors';
 
@@ -34,4 +36,30 @@ export async function actOr<T>(
 		}
 		throw err;
 	}
+}
+
+/**
+ * A form action that saves a record and sends the browser on (303), written once: the policy
+ * for `action`, the form validated with `schema` (a 400 naming each bad field, values echoed),
+ * then `work` on the path's ids, whose expected failures come back to the form (see actOr).
+ */
+export function savingAction<S extends z.ZodType, T, P extends Partial<Record<string, string>>>(
+	action: Action,
+	schema: S,
+	work: (actor: Actor, input: z.infer<S>, params: P) => Promise<T>,
+	next: (saved: T) => string
+) {
+	return async ({
+		locals,
+		request,
+		params
+	}: Pick<RequestEvent<P>, 'locals' | 'request' | 'params'>) => {
+		const actor = authorize(locals, action);
+		const parsed = await parseForm(request, schema);
+		if (!parsed.ok) return parsed.failure;
+		// The redirect is thrown inside actOr, which passes on what it does not expect.
+		return actOr(parsed.form, async () => {
+			redirect(303, next(await work(actor, parsed.data, params)));
+		});
+	};
 }

@@ -6,7 +6,8 @@ import { StateError } from '../domainErrors';
 import type { SurveyInput } from '$lib/intake/schemas';
 import type { Actor } from '../policy';
 import { scopedAsset, scopedSurvey } from '../scope';
-import { assertSurveyEditable } from './frozen';
+import { assertSurveyEditableLocked } from './frozen';
+import { saveAudited } from './changes';
 
 export async function listSurveys(actor: Actor, assetId: number) {
 	await scopedAsset(actor, assetId, 'read');
@@ -54,10 +55,9 @@ export async function createSurvey(actor: Actor, assetId: number, input: SurveyI
 export async function updateSurvey(actor: Actor, surveyId: number, input: SurveyInput) {
 	return Survey.sequelize!.transaction(async (transaction) => {
 		const { survey } = await scopedSurvey(actor, surveyId, 'write', transaction);
-		assertSurveyEditable(survey);
-		await survey.update(input, { transaction });
-		await audit(actor, 'survey.updated', survey, { fields: Object.keys(input) }, transaction);
-		return survey;
+		await assertSurveyEditableLocked(survey, transaction);
+		const subject = { type: 'survey' as const, id: survey.id, detail: { title: survey.title } };
+		return saveAudited(actor, 'survey.updated', survey, input, subject, transaction);
 	});
 }
 

@@ -1,11 +1,9 @@
-import { redirect } from '@sveltejs/kit';
 import type { Actions, PageServerLoad } from './$types';
-import { authorize, can } from '$lib/server/policy';
+import { can } from '$lib/server/policy';
 import { pageActor } from '$lib/server/guard';
-import { parseForm } from '$lib/server/forms';
 import { surveySchema } from '$lib/intake/schemas';
 import { createSurvey, listSurveys } from '$lib/server/intake/surveys';
-import { actOr, loadOr404 } from '$lib/server/intake/pages';
+import { loadOr404, savingAction } from '$lib/server/intake/pages';
 import { idParam } from '$lib/server/intake/respond';
 import { scopedAsset } from '$lib/server/scope';
 
@@ -23,19 +21,17 @@ export const load: PageServerLoad = async (event) => {
 			surveyDate: s.surveyDate,
 			status: s.status
 		})),
-		canCreateSurvey: own && can(actor.role, 'survey:create')
+		canCreateSurvey: own && can(actor.role, 'survey:create'),
+		canEdit: own && can(actor.role, 'asset:write')
 	};
 };
 
 export const actions = {
-	createSurvey: async ({ locals, request, params }) => {
-		const actor = authorize(locals, 'survey:create');
-		const parsed = await parseForm(request, surveySchema);
-		if (!parsed.ok) return parsed.failure;
-		const survey = await actOr(parsed.form, () =>
-			createSurvey(actor, idParam(params.assetId), parsed.data)
-		);
-		if (!('id' in survey)) return survey;
-		redirect(303, `/surveys/${survey.id}`);
-	}
+	createSurvey: savingAction(
+		'survey:create',
+		surveySchema,
+		(actor, input, params: { assetId: string }) =>
+			createSurvey(actor, idParam(params.assetId), input),
+		(survey) => `/surveys/${survey.id}`
+	)
 } satisfies Actions;

@@ -37,6 +37,7 @@ export const load: PageServerLoad = async (event) => {
 		})),
 		maxImportMb: IMPORT_LIMITS.maxFileBytes / 1024 / 1024,
 		can: {
+			editSurvey: editable && can(actor.role, 'survey:edit'),
 			editMembers: editable && can(actor.role, 'member:write'),
 			importReadings: editable && can(actor.role, 'reading:import'),
 			upload: editable && can(actor.role, 'attachment:upload'),

@@ -24,6 +24,7 @@ export const load: PageServerLoad = async (event) => {
 		holes: holes.map((h) => h.get({ plain: true })),
 		can: {
 			enter: editable && can(actor.role, 'reading:edit'),
+			editMember: editable && can(actor.role, 'member:write'),
 			holes: editable && can(actor.role, 'hole:write')
 		}
 	};

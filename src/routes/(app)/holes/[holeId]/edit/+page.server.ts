@@ -1,0 +1,38 @@
+import { z } from 'zod';
+import type { Actions, PageServerLoad } from './$types';
+import { pageActor } from '$lib/server/guard';
+import { holeSchema } from '$lib/intake/schemas';
+import { formValuesOf } from '$lib/intake/formValues';
+import { deleteHole, updateHole } from '$lib/server/intake/holes';
+import { frozenReason } from '$lib/server/intake/frozen';
+import { loadOr404, savingAction } from '$lib/server/intake/pages';
+import { idParam } from '$lib/server/intake/respond';
+import { scopedHole } from '$lib/server/scope';
+
+/** A verification hole to correct or delete, while its survey is a draft or returned. */
+export const load: PageServerLoad = async (event) => {
+	const actor = pageActor(event, 'hole:write');
+	const holeId = idParam(event.params.holeId);
+	const { hole, member, survey } = await loadOr404(() => scopedHole(actor, holeId, 'write'));
+	return {
+		hole: { id: hole.id, label: hole.label },
+		member: { id: member.id, label: member.label },
+		values: formValuesOf(hole.get({ plain: true }), holeSchema),
+		frozen: frozenReason(survey)
+	};
+};
+
+export const actions = {
+	save: savingAction(
+		'hole:write',
+		holeSchema,
+		(actor, input, params: { holeId: string }) => updateHole(actor, idParam(params.holeId), input),
+		(hole) => `/members/${hole.memberId}/entry`
+	),
+	delete: savingAction(
+		'hole:write',
+		z.object({}),
+		(actor, _input, params: { holeId: string }) => deleteHole(actor, idParam(params.holeId)),
+		(deleted) => `/members/${deleted.memberId}/entry`
+	)
+} satisfies Actions;

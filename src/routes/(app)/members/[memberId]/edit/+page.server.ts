@@ -1,0 +1,32 @@
+import type { Actions, PageServerLoad } from './$types';
+import { pageActor } from '$lib/server/guard';
+import { memberSchema } from '$lib/intake/schemas';
+import { formValuesOf } from '$lib/intake/formValues';
+import { updateMember } from '$lib/server/intake/members';
+import { frozenReason } from '$lib/server/intake/frozen';
+import { loadOr404, savingAction } from '$lib/server/intake/pages';
+import { idParam } from '$lib/server/intake/respond';
+import { scopedMember } from '$lib/server/scope';
+
+/** Every specified value of a member, editable while its survey is a draft or returned. */
+export const load: PageServerLoad = async (event) => {
+	const actor = pageActor(event, 'member:write');
+	const memberId = idParam(event.params.memberId);
+	const { member, survey, asset } = await loadOr404(() => scopedMember(actor, memberId, 'write'));
+	return {
+		member: { id: member.id, label: member.label },
+		designCode: asset.designCode,
+		values: formValuesOf(member.get({ plain: true }), memberSchema),
+		frozen: frozenReason(survey)
+	};
+};
+
+export const actions = {
+	save: savingAction(
+		'member:write',
+		memberSchema,
+		(actor, input, params: { memberId: string }) =>
+			updateMember(actor, idParam(params.memberId), input),
+		(member) => `/members/${member.id}/entry`
+	)
+} satisfies Actions;

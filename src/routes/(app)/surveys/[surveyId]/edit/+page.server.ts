@@ -1,0 +1,31 @@
+import type { Actions, PageServerLoad } from './$types';
+import { pageActor } from '$lib/server/guard';
+import { surveySchema } from '$lib/intake/schemas';
+import { formValuesOf } from '$lib/intake/formValues';
+import { updateSurvey } from '$lib/server/intake/surveys';
+import { frozenReason } from '$lib/server/intake/frozen';
+import { loadOr404, savingAction } from '$lib/server/intake/pages';
+import { idParam } from '$lib/server/intake/respond';
+import { scopedSurvey } from '$lib/server/scope';
+
+/** A survey's details (title, date, meter), editable while it is a draft or returned. */
+export const load: PageServerLoad = async (event) => {
+	const actor = pageActor(event, 'survey:edit');
+	const surveyId = idParam(event.params.surveyId);
+	const { survey } = await loadOr404(() => scopedSurvey(actor, surveyId, 'write'));
+	return {
+		survey: { id: survey.id, title: survey.title },
+		values: formValuesOf(survey.get({ plain: true }), surveySchema),
+		frozen: frozenReason(survey)
+	};
+};
+
+export const actions = {
+	save: savingAction(
+		'survey:edit',
+		surveySchema,
+		(actor, input, params: { surveyId: string }) =>
+			updateSurvey(actor, idParam(params.surveyId), input),
+		(survey) => `/surveys/${survey.id}`
+	)
+} satisfies Actions;
