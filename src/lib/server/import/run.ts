@@ -189,7 +189,9 @@ async function failImport(
 	err: unknown
 ): Promise<ImportOutcome> {
 	const { message, state } = messageFor(err);
-	await ImportBatch.update(
+	// Only while still running: another process's sweep may already have failed this batch
+	// (its connection was killed), and one audit event is enough.
+	const [updated] = await ImportBatch.update(
 		{
 			state,
 			errorMessage: message.slice(0, 1000),
@@ -199,8 +201,11 @@ async function failImport(
 			rejectedRowsCsv: tally.rejected.toCsv(tally.headers),
 			finishedAt: new Date()
 		},
-		{ where: { id: job.batchId } }
+		{ where: { id: job.batchId, state: 'running' } }
 	);
+	if (updated === 0) {
+		return { state, message, rowsImported: 0, rowsRejected: tally.rejected.count, warnings: [] };
+	}
 	await recordAudit({
 		action: `import.${state}`,
 		organisationId: job.organisationId,
