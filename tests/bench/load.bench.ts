@@ -1,14 +1,15 @@
 /**
  * `npm run bench:load` (scripts/bench-load.sh starts the built app): mixed load on loopback with
  * autocannon — the population overview (API and page), a population detail and sign-in, each
- * its share of the simulated users, all at once, at 20 and then 50 concurrent users for
+ * its share of the simulated users, all at once, with a 100,000-row import through the import
+ * API started alongside (tests/bench/loadImport.ts), at 20 and then 50 concurrent users for
  * BENCH_SECONDS (20 s) each. Prints throughput, p50/p95/p99 and errors per part as a Markdown
  * table for docs/performance.md. It measures; it asserts nothing about time.
  */
 import autocannon from 'autocannon';
 import { loadTestEnv } from '../helpers/env';
 import { DEMO_PASSWORD, DEMO_USERS, signInAs } from '../helpers/session';
-import { importScenario, type ImportRun } from './loadImport';
+import { importScenario, prepareImportSurvey, type ImportRun } from './loadImport';
 
 loadTestEnv();
 const APP = process.env.APP_URL ?? process.env.ORIGIN!;
@@ -99,10 +100,11 @@ async function runPart(part: Part, connections: number, cookie: string): Promise
 	};
 }
 
-async function mixed(users: number, cookie: string, withImport: boolean) {
+/** Every part at once, and one 100,000-row import started with them. */
+async function mixed(users: number, cookie: string, importSurveyId: number) {
 	const counts = PARTS.map((p) => Math.max(1, Math.round(users * p.share)));
 	const load = Promise.all(PARTS.map((p, i) => runPart(p, counts[i], cookie)));
-	const imported: ImportRun | null = withImport ? await importScenario(APP, cookie) : null;
+	const imported: ImportRun = await importScenario(APP, { cookie }, importSurveyId, users);
 	return { figures: await load, imported };
 }
 
@@ -121,14 +123,15 @@ function table(rows: Figures[]): string {
 
 async function main() {
 	const engineer = await signInAs('engineer', APP);
+	const importSurveyId = await prepareImportSurvey(APP, engineer);
 	for (const users of [20, 50]) {
-		const { figures, imported } = await mixed(users, engineer.cookie, users === 20);
+		const { figures, imported } = await mixed(users, engineer.cookie, importSurveyId);
 		const total = figures.reduce((s, r) => s + r.perSecond, 0);
 		console.log(
 			`\n### ${users} concurrent users, ${SECONDS} s (total ${total.toFixed(1)} req/s)\n`
 		);
 		console.log(table(figures));
-		if (imported) console.log(`\n${imported.summary}`);
+		console.log(`\n${imported.summary}`);
 	}
 }
 
