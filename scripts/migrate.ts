@@ -5,7 +5,11 @@ import { loadProjectEnv } from './env';
 
 loadProjectEnv();
 const command = process.argv[2] ?? 'up';
-const sequelize = createSequelize(readDatabaseSettings(process.env));
+// A migration may rebuild a table of millions of readings: minutes, not the app's 30 s per query.
+const sequelize = createSequelize({
+	...readDatabaseSettings(process.env),
+	DB_QUERY_TIMEOUT_MS: Number(process.env.MIGRATION_QUERY_TIMEOUT_MS ?? 3_600_000)
+});
 const migrator = createMigrator(sequelize);
 
 try {

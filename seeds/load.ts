@@ -12,6 +12,7 @@ import {
 	User,
 	VerificationHole
 } from '../src/lib/server/db/models';
+import { READING_INSERT_FIELDS } from '../src/lib/server/db/models/Reading';
 import { rebuildCoverSets } from '../src/lib/server/readings/coverSets';
 import { generateHoles, generateReadings, specifiedCover } from './generate';
 import { SeededRandom } from './random';
@@ -208,7 +209,12 @@ async function loadSurvey(
 			const chunk = rows
 				.slice(start, start + 5000)
 				.map((r) => ({ ...r, memberId: member.id, importBatchId: batch.id, note: null }));
-			await Reading.bulkCreate(chunk, { transaction, validate: false, hooks: false });
+			await Reading.bulkCreate(chunk, {
+				transaction,
+				validate: false,
+				hooks: false,
+				fields: [...READING_INSERT_FIELDS]
+			});
 		}
 		readings += rows.length;
 	}

@@ -5,6 +5,7 @@
  */
 import { QueryTypes } from 'sequelize';
 import { ImportBatch, Reading } from '../../src/lib/server/db/models';
+import { READING_INSERT_FIELDS } from '../../src/lib/server/db/models/Reading';
 import { rebuildCoverSets } from '../../src/lib/server/readings/coverSets';
 
 export interface TestReading {
@@ -46,7 +47,7 @@ export async function addReadings(
 				barDirection: null,
 				note: null
 			})),
-			{ transaction }
+			{ transaction, fields: [...READING_INSERT_FIELDS] }
 		);
 		const [range] = await sequelize.query<{ first: number; last: number }>(
 			'SELECT MIN(id) AS first, MAX(id) AS last FROM readings WHERE member_id = ? AND import_batch_id = ?',

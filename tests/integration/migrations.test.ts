@@ -1,4 +1,6 @@
+import { QueryTypes } from 'sequelize';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { decodeCovers } from '../../src/lib/server/readings/coverSetCodec';
 import { createMigrator } from '../../src/lib/server/db/migrator';
 import { migrations } from '../../src/lib/server/db/migrations';
 import { scratchDatabase } from '../helpers/database';
@@ -52,5 +54,85 @@ describe('migrations on a fresh database', () => {
 			expect(reverted.name).toBe(migrations[i].name);
 		}
 		expect(await migrator.executed()).toHaveLength(0);
+	});
+});
+
+describe('migration 009 on a database that already holds readings', () => {
+	let scratch: Awaited<ReturnType<typeof scratchDatabase>>;
+	beforeAll(async () => {
+		scratch = await scratchDatabase('migration_009');
+	});
+	afterAll(async () => {
+		await scratch.drop();
+	});
+
+	const covers = [31.5, 28, 0.1 + 0.2, 45, 28];
+
+	it('keeps every reading, fills the cover sets and batch ranges, and reverts', async () => {
+		const migrator = createMigrator(scratch.sequelize);
+		await migrator.up({ to: '008-intake-progress' });
+		const q = async (sql: string, replacements: unknown[] = []) =>
+			(await scratch.sequelize.query(sql, { replacements, type: QueryTypes.INSERT }))[0] as number;
+		const org = await q(
+			"INSERT INTO organisations (name, slug, created_at, updated_at) VALUES ('Scratch', 'scratch', NOW(), NOW())"
+		);
+		const asset = await q(
+			"INSERT INTO assets (organisation_id, name, design_code, design_service_life_years, created_at, updated_at) VALUES (?, 'A', 'EN 1992-1-1', 50, NOW(), NOW())",
+			[org]
+		);
+		const survey = await q(
+			"INSERT INTO surveys (asset_id, title, survey_date, created_at, updated_at) VALUES (?, 'S', '2025-01-01', NOW(), NOW())",
+			[asset]
+		);
+		const member = await q(
+			"INSERT INTO members (survey_id, asset_id, label, member_type, face, exposure_class, requirement_source, c_min_mm, c_nom_mm, delta_c_dev_mm, created_at, updated_at) VALUES (?, ?, 'M1', 'slab', 'top', 'XC3', 'EN 1992-1-1', 25, 35, 10, NOW(), NOW())",
+			[survey, asset]
+		);
+		const batch = await q(
+			"INSERT INTO import_batches (survey_id, source_format, state, created_at) VALUES (?, 'csv', 'completed', NOW())",
+			[survey]
+		);
+		for (const cover of covers)
+			await q('INSERT INTO readings (member_id, import_batch_id, cover_mm) VALUES (?, ?, ?)', [
+				member,
+				batch,
+				cover
+			]);
+
+		await migrator.up();
+		const select = <T extends object>(sql: string) =>
+			scratch.sequelize.query<T>(sql, { type: QueryTypes.SELECT });
+		const [set] = await select<{ n: number; covers: Buffer }>(
+			'SELECT reading_count AS n, covers_mm AS covers FROM member_cover_sets'
+		);
+		expect(Number(set.n)).toBe(5);
+		expect(Array.from(decodeCovers(set.covers))).toEqual([...covers].sort((a, b) => a - b));
+		const [range] = await select<{ first: number; last: number }>(
+			'SELECT first_reading_id AS first, last_reading_id AS last FROM import_batches'
+		);
+		expect([Number(range.first), Number(range.last)]).toEqual([1, 5]);
+		// A reading written after the migration takes the next id from the sequence.
+		await q('INSERT INTO readings (member_id, cover_mm) VALUES (?, 40)', [member]);
+		const ids = await select<{ id: number }>('SELECT id FROM readings ORDER BY id');
+		expect(ids.map((r) => Number(r.id))).toEqual([1, 2, 3, 4, 5, 6]);
+		const keys = await select<{ Key_name: string; Column_name: string }>(
+			'SHOW INDEX FROM readings'
+		);
+		expect(keys.map((k) => `${k.Key_name}.${k.Column_name}`)).toEqual([
+			'PRIMARY.member_id',
+			'PRIMARY.id'
+		]);
+
+		await migrator.down();
+		const back = await select<{ Key_name: string }>('SHOW INDEX FROM readings');
+		expect(new Set(back.map((k) => k.Key_name))).toEqual(
+			new Set(['PRIMARY', 'readings_member_cover', 'readings_import_batch_id'])
+		);
+		await q('INSERT INTO readings (member_id, cover_mm) VALUES (?, 41)', [member]);
+		const after = await select<{ id: number; cover: number }>(
+			'SELECT id, cover_mm AS cover FROM readings ORDER BY id'
+		);
+		expect(after.map((r) => Number(r.id))).toEqual([1, 2, 3, 4, 5, 6, 7]);
+		expect(after.map((r) => Number(r.cover))).toEqual([...covers, 40, 41]);
 	});
 });

@@ -23,27 +23,26 @@ export async function cancelImport(actor: Actor, batchId: number): Promise<void>
 }
 
 /**
- * Where a batch's readings are: its recorded id range (migration 009), else — a batch written
- * before ranges were recorded — every reading of its survey's members.
+ * Where a batch's readings are: among its survey's members (the leading part of the readings'
+ * primary key) and, when the batch recorded it (migration 009), within its range of ids.
  */
 function batchReadingsWhere(batch: ImportBatch, surveyMemberIds: number[]) {
-	return batch.firstReadingId != null && batch.lastReadingId != null
-		? {
-				sql: 'id BETWEEN :first AND :last AND import_batch_id = :batchId',
-				replacements: { first: batch.firstReadingId, last: batch.lastReadingId, batchId: batch.id },
-				where: {
-					id: { [Op.between]: [batch.firstReadingId, batch.lastReadingId] },
-					importBatchId: batch.id
-				}
-			}
-		: {
-				sql: 'member_id IN (:members) AND import_batch_id = :batchId',
-				replacements: {
-					members: surveyMemberIds.length ? surveyMemberIds : [0],
-					batchId: batch.id
-				},
-				where: { memberId: surveyMemberIds, importBatchId: batch.id }
-			};
+	const members = surveyMemberIds.length ? surveyMemberIds : [0];
+	const ranged = batch.firstReadingId != null && batch.lastReadingId != null;
+	return {
+		sql: `member_id IN (:members) AND import_batch_id = :batchId${ranged ? ' AND id BETWEEN :first AND :last' : ''}`,
+		replacements: {
+			members,
+			batchId: batch.id,
+			first: batch.firstReadingId,
+			last: batch.lastReadingId
+		},
+		where: {
+			memberId: members,
+			importBatchId: batch.id,
+			...(ranged ? { id: { [Op.between]: [batch.firstReadingId!, batch.lastReadingId!] } } : {})
+		}
+	};
 }
 
 /** Deletes the batch's readings and rebuilds the cover sets of the members they belonged to. */

@@ -56,7 +56,7 @@ function hashReading(r: ValidReading): void {
 
 /**
  * Finds rows that repeat an earlier row exactly (same member, position, cover, bar, note).
- * Keeps a 64-bit hash and a row number per row in typed arrays (12 bytes a row, open
+ * Keeps a 64-bit hash and a row number per row in one typed array (12 bytes a row, open
  * addressing), not the rows: a million rows cost about 24 MB. Our own because no package we
  * use offers a compact seen-set. A false match needs a 64-bit collision (odds about n²/2^65,
  * 3e-8 for a million rows), and such a row would still be listed in the rejected rows with its
@@ -65,43 +65,41 @@ function hashReading(r: ValidReading): void {
 export class DuplicateFinder {
 	private capacity = 1 << 16;
 	private size = 0;
-	private high = new Uint32Array(this.capacity);
-	private low = new Uint32Array(this.capacity);
-	private rows = new Int32Array(this.capacity); // row number, 0 = empty slot
+	/** Slot i holds [high, low, row number] at 3i (row 0 = empty): one cache line a probe. */
+	private slots = new Uint32Array(this.capacity * 3);
 
 	/** The row number of an earlier identical row, or undefined (and remembers this one). */
 	check(reading: ValidReading, rowNumber: number): number | undefined {
 		hashReading(reading);
-		const found = this.find(high, low);
-		if (this.rows[found] !== 0) return this.rows[found];
-		this.high[found] = high;
-		this.low[found] = low;
-		this.rows[found] = rowNumber;
+		const at = this.find(this.slots, this.capacity, high, low);
+		if (this.slots[at + 2] !== 0) return this.slots[at + 2];
+		this.slots[at] = high;
+		this.slots[at + 1] = low;
+		this.slots[at + 2] = rowNumber;
 		if (++this.size * 2 > this.capacity) this.grow();
 		return undefined;
 	}
 
-	private find(high: number, low: number): number {
-		const mask = this.capacity - 1;
-		let slot = high & mask;
-		while (this.rows[slot] !== 0 && (this.high[slot] !== high || this.low[slot] !== low)) {
-			slot = (slot + 1) & mask;
+	/** The index of the hash's slot in `slots`, or of the empty slot where it belongs. */
+	private find(slots: Uint32Array, capacity: number, h: number, l: number): number {
+		const mask = capacity - 1;
+		let at = (h & mask) * 3;
+		while (slots[at + 2] !== 0 && (slots[at] !== h || slots[at + 1] !== l)) {
+			at = at + 3 === capacity * 3 ? 0 : at + 3;
 		}
-		return slot;
+		return at;
 	}
 
 	private grow(): void {
-		const [high, low, rows] = [this.high, this.low, this.rows];
+		const old = this.slots;
 		this.capacity *= 2;
-		this.high = new Uint32Array(this.capacity);
-		this.low = new Uint32Array(this.capacity);
-		this.rows = new Int32Array(this.capacity);
-		for (let i = 0; i < rows.length; i++) {
-			if (rows[i] === 0) continue;
-			const slot = this.find(high[i], low[i]);
-			this.high[slot] = high[i];
-			this.low[slot] = low[i];
-			this.rows[slot] = rows[i];
+		this.slots = new Uint32Array(this.capacity * 3);
+		for (let i = 0; i < old.length; i += 3) {
+			if (old[i + 2] === 0) continue;
+			const at = this.find(this.slots, this.capacity, old[i], old[i + 1]);
+			this.slots[at] = old[i];
+			this.slots[at + 1] = old[i + 1];
+			this.slots[at + 2] = old[i + 2];
 		}
 	}
 }

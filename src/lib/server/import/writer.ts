@@ -73,7 +73,7 @@ export class ReadingWriter {
 		await this.flush();
 		await this.inFlight;
 		if (this.rowsWritten === 0 || this.idFloor === null) return null;
-		return { firstReadingId: this.idFloor + 1, lastReadingId: await this.maxReadingId() };
+		return { firstReadingId: this.idFloor + 1, lastReadingId: (await this.nextReadingId()) - 1 };
 	}
 
 	/**
@@ -91,8 +91,9 @@ export class ReadingWriter {
 		await this.inFlight;
 		const count = this.text.rows + this.params.length;
 		if (count === 0) return;
-		// Every id this import gets is above the largest id there before its first chunk.
-		this.idFloor ??= await this.maxReadingId();
+		// The sequence hands ids out in increasing order, so every id this import gets lies
+		// between one drawn before its first chunk and one drawn after its last.
+		this.idFloor ??= await this.nextReadingId();
 		const write = this.method === 'load-data' ? this.loadChunk(this.text.take()) : this.bulkChunk();
 		this.params = [];
 		this.inFlight = write.then((result) => this.check(result, count));
@@ -133,11 +134,12 @@ export class ReadingWriter {
 		return { affectedRows: result.affectedRows, warningStatus: result.warningStatus ?? 0 };
 	}
 
-	private async maxReadingId(): Promise<number> {
-		const [row] = (await this.connection.query('SELECT MAX(id) AS id FROM readings')) as {
-			id: number | bigint | null;
+	/** A value drawn from the sequence behind readings.id (migration 009). */
+	private async nextReadingId(): Promise<number> {
+		const [row] = (await this.connection.query('SELECT NEXT VALUE FOR reading_ids AS id')) as {
+			id: number | bigint;
 		}[];
-		return Number(row?.id ?? 0);
+		return Number(row.id);
 	}
 }
 

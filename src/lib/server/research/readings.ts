@@ -4,7 +4,8 @@ import type { SelectedMember } from './members';
 import type { ResearchReading } from './schemas';
 
 /**
- * Opted-in readings in id order, a batch at a time (keyset pagination: `r.id > last`), so an
+ * Opted-in readings in member order, then id order within a member — the readings' primary key
+ * (member_id, id) — a batch at a time (keyset pagination: after this member and id), so an
  * export of any size holds one batch in memory. The note column is never selected.
  */
 interface ReadingRow {
@@ -20,41 +21,68 @@ interface ReadingRow {
 
 export const DEFAULT_BATCH_ROWS = 5000;
 
-export interface ReadingBatch {
-	rows: ResearchReading[];
-	/** Database id of the last reading read: the next batch starts after it. */
-	lastId: number | null;
+/** Where a batch starts: after this reading of this member (0, 0 before the first). */
+export interface ReadingPosition {
+	memberId: number;
+	id: number;
 }
 
-/** One batch after `afterId`, up to `untilId` (a snapshot bound, so a long export is stable). */
+export const START: ReadingPosition = { memberId: 0, id: 0 };
+
+export interface ReadingBatch {
+	rows: ResearchReading[];
+	/** The last reading read: the next batch starts after it; null when there was none. */
+	last: ReadingPosition | null;
+}
+
+/** Members asked for at once after the current one (bounds the IN list). */
+const MEMBERS_PER_QUERY = 500;
+
+const COLUMNS = `r.id, r.member_id AS memberId, r.x_mm AS xMm, r.y_mm AS yMm, r.cover_mm AS coverMm,
+		        r.bar_diameter_mm AS barDiameterMm, r.bar_spacing_mm AS barSpacingMm, r.flags`;
+
+/**
+ * Up to `limit` readings after `after`, with ids up to `untilId` (a snapshot bound, so a long
+ * export is stable). Each query is a range of the primary key read in order and stopped at the
+ * limit: the rest of the current member, then the following members a few hundred at a time.
+ */
 export async function readingBatch(
 	sequelize: Sequelize,
 	members: ReadonlyMap<number, SelectedMember>,
-	afterId: number,
+	after: ReadingPosition,
 	limit: number,
 	untilId: number = Number.MAX_SAFE_INTEGER
 ): Promise<ReadingBatch> {
-	if (members.size === 0) return { rows: [], lastId: null };
-	// No joins here: the members are already selected, so the batch is a range of the primary
-	// key read in order and stopped at the limit. (Joined to surveys and assets, MariaDB used a
-	// join buffer and sorted every later reading for each batch, making an export quadratic.)
-	const rows = await sequelize.query<ReadingRow>(
-		`SELECT r.id, r.member_id AS memberId, r.x_mm AS xMm, r.y_mm AS yMm, r.cover_mm AS coverMm,
-		        r.bar_diameter_mm AS barDiameterMm, r.bar_spacing_mm AS barSpacingMm, r.flags
-		   FROM readings r FORCE INDEX (PRIMARY)
-		  WHERE r.id > :afterId AND r.id <= :untilId AND r.member_id IN (:memberIds)
-		  ORDER BY r.id LIMIT :limit`,
-		{
-			type: QueryTypes.SELECT,
-			replacements: { afterId, untilId, limit, memberIds: [...members.keys()] }
-		}
-	);
+	const ids = [...members.keys()].sort((a, b) => a - b);
+	const rows: ReadingRow[] = [];
+	const select = (where: string, replacements: object, n: number) =>
+		sequelize.query<ReadingRow>(
+			`SELECT ${COLUMNS} FROM readings r WHERE ${where} AND r.id <= :untilId
+			  ORDER BY r.member_id, r.id LIMIT :n`,
+			{ type: QueryTypes.SELECT, replacements: { ...replacements, untilId, n } }
+		);
+	if (members.has(after.memberId)) {
+		rows.push(
+			...(await select(
+				'r.member_id = :m AND r.id > :id',
+				{ m: after.memberId, id: after.id },
+				limit
+			))
+		);
+	}
+	let next = ids.findIndex((id) => id > after.memberId);
+	while (next >= 0 && next < ids.length && rows.length < limit) {
+		const part = ids.slice(next, next + MEMBERS_PER_QUERY);
+		rows.push(...(await select('r.member_id IN (:part)', { part }, limit - rows.length)));
+		next += part.length;
+	}
 	const out: ResearchReading[] = [];
 	for (const row of rows) {
 		const member = members.get(row.memberId);
 		if (member) out.push(toResearchReading(row, member));
 	}
-	return { rows: out, lastId: rows.length ? rows[rows.length - 1].id : null };
+	const last = rows.at(-1);
+	return { rows: out, last: last ? { memberId: last.memberId, id: Number(last.id) } : null };
 }
 
 /** Every batch of the selection up to the newest reading at the time of the call. */
@@ -64,21 +92,26 @@ export async function* readingBatches(
 	batchRows = DEFAULT_BATCH_ROWS
 ): AsyncGenerator<ResearchReading[]> {
 	const untilId = await newestReadingId(sequelize);
-	let afterId = 0;
+	let after = START;
 	for (;;) {
-		const batch = await readingBatch(sequelize, members, afterId, batchRows, untilId);
-		if (batch.lastId === null) return;
-		afterId = batch.lastId;
+		const batch = await readingBatch(sequelize, members, after, batchRows, untilId);
+		if (batch.last === null) return;
+		after = batch.last;
 		if (batch.rows.length) yield batch.rows;
 	}
 }
 
+/**
+ * A bound above every reading id handed out so far: the sequence behind readings.id
+ * (migration 009) gives ids in increasing order, so one drawn now exceeds them all.
+ */
 export async function newestReadingId(sequelize: Sequelize): Promise<number> {
-	const row = await sequelize.query<{ id: number | null }>('SELECT MAX(id) AS id FROM readings', {
+	const row = await sequelize.query<{ id: number }>('SELECT NEXT VALUE FOR reading_ids AS id', {
 		type: QueryTypes.SELECT,
-		plain: true
+		plain: true,
+		useMaster: true
 	});
-	return Number(row?.id ?? 0);
+	return Number(row!.id) - 1;
 }
 
 function toResearchReading(row: ReadingRow, member: SelectedMember): ResearchReading {

@@ -5,14 +5,16 @@ import type { Migration } from './types';
 
 /**
  * Readings become cheap to write and populations cheap to read (docs/performance.md, issues 5
- * and 6). Measured with LOAD DATA of a million readings: each secondary index on readings cost
- * 2.5–4.5 s and the import batch's foreign key about 1 s, so:
- * - the (member_id, cover_mm) index goes: a member's covers now live, sorted, in one
- *   member_cover_sets row kept in step by every write (src/lib/server/readings/coverSets.ts);
- *   a plain (member_id) index stays for the member's foreign key and its cover map;
+ * and 6). Measured with LOAD DATA of a million readings on this layout's predecessor: each
+ * secondary index on readings cost 2.5–4.5 s and the import batch's foreign key about 1 s, so:
+ * - readings are stored clustered by member: primary key (member_id, id), and no secondary
+ *   index at all (one B-tree to write per reading). The id is still unique and increasing, from
+ *   the sequence reading_ids (InnoDB lets an AUTO_INCREMENT column only lead an index);
+ * - a member's covers also live, sorted, in one member_cover_sets row kept in step by every
+ *   write (src/lib/server/readings/coverSets.ts), which the population pages read;
  * - readings.import_batch_id keeps its value but loses its index and foreign key: a batch
- *   records the range of reading ids it wrote (first/last_reading_id), which is what undo reads,
- *   and a trigger refuses to delete a batch whose readings are still there.
+ *   records the range of reading ids it wrote (first/last_reading_id), which undo reads within
+ *   the survey's members, and a trigger refuses to delete a batch whose readings remain.
  */
 
 const FIND_BATCH_FOREIGN_KEY = `SELECT CONSTRAINT_NAME AS name FROM information_schema.KEY_COLUMN_USAGE
@@ -22,11 +24,14 @@ const FIND_BATCH_FOREIGN_KEY = `SELECT CONSTRAINT_NAME AS name FROM information_
 const KEEP_BATCH_READINGS = `CREATE TRIGGER import_batches_keep_readings BEFORE DELETE ON import_batches FOR EACH ROW
  BEGIN
    IF OLD.first_reading_id IS NOT NULL AND EXISTS (
-       SELECT 1 FROM readings
-        WHERE id BETWEEN OLD.first_reading_id AND OLD.last_reading_id AND import_batch_id = OLD.id) THEN
+       SELECT 1 FROM members m JOIN readings r ON r.member_id = m.id
+        WHERE m.survey_id = OLD.survey_id AND r.id BETWEEN OLD.first_reading_id AND OLD.last_reading_id
+          AND r.import_batch_id = OLD.id) THEN
      SIGNAL SQLSTATE '45000' SET MESSAGE_TEXT = 'an import batch whose readings remain cannot be deleted; undo it first';
    END IF;
  END`;
+
+const raw = { type: QueryTypes.RAW };
 
 /** Fills member_cover_sets from the readings already there, a few members at a time. */
 async function fillCoverSets(sequelize: Sequelize) {
@@ -50,6 +55,13 @@ async function fillCoverSets(sequelize: Sequelize) {
 			);
 		}
 	}
+}
+
+async function nextReadingId(sequelize: Sequelize): Promise<number> {
+	const [row] = await sequelize.query<{ id: number | null }>('SELECT MAX(id) AS id FROM readings', {
+		type: QueryTypes.SELECT
+	});
+	return Number(row?.id ?? 0) + 1;
 }
 
 export const coverSets: Migration = {
@@ -86,38 +98,47 @@ export const coverSets: Migration = {
 			    SET b.first_reading_id = r.lo, b.last_reading_id = r.hi`,
 			{ type: QueryTypes.UPDATE }
 		);
-		await qi.addIndex('readings', ['member_id'], { name: 'readings_member' });
+		// CACHE: ids are handed out from memory, a thousand at a time, in increasing order.
+		await sequelize.query(
+			`CREATE SEQUENCE reading_ids START WITH ${await nextReadingId(sequelize)} INCREMENT BY 1 CACHE 1000`,
+			raw
+		);
 		const [foreignKey] = await sequelize.query<{ name: string }>(FIND_BATCH_FOREIGN_KEY, {
 			type: QueryTypes.SELECT
 		});
-		if (foreignKey) await qi.removeConstraint('readings', foreignKey.name);
-		await qi.removeIndex('readings', 'readings_import_batch_id');
-		await qi.removeIndex('readings', 'readings_member_cover');
+		if (foreignKey)
+			await sequelize.query(`ALTER TABLE readings DROP FOREIGN KEY \`${foreignKey.name}\``, raw);
+		// One rebuild of the table: the member's foreign key moves onto the new primary key.
+		await sequelize.query(
+			`ALTER TABLE readings
+			   MODIFY id BIGINT UNSIGNED NOT NULL DEFAULT (NEXT VALUE FOR reading_ids),
+			   DROP PRIMARY KEY, ADD PRIMARY KEY (member_id, id),
+			   DROP INDEX readings_member_cover, DROP INDEX readings_import_batch_id`,
+			raw
+		);
 		await fillCoverSets(sequelize);
-		await sequelize.query(KEEP_BATCH_READINGS, { type: QueryTypes.RAW });
+		await sequelize.query(KEEP_BATCH_READINGS, raw);
 	},
 	async down({ context: qi }) {
 		const sequelize = qi.sequelize;
-		await sequelize.query('DROP TRIGGER IF EXISTS import_batches_keep_readings', {
-			type: QueryTypes.RAW
-		});
+		await sequelize.query('DROP TRIGGER IF EXISTS import_batches_keep_readings', raw);
 		// The foreign key comes back, so readings of a batch deleted meanwhile lose the link first.
 		await sequelize.query(
 			`UPDATE readings r LEFT JOIN import_batches b ON b.id = r.import_batch_id
 			    SET r.import_batch_id = NULL WHERE r.import_batch_id IS NOT NULL AND b.id IS NULL`,
 			{ type: QueryTypes.UPDATE }
 		);
-		await qi.addIndex('readings', ['import_batch_id'], { name: 'readings_import_batch_id' });
-		await qi.addConstraint('readings', {
-			type: 'foreign key',
-			fields: ['import_batch_id'],
-			name: 'readings_import_batch_fk',
-			references: { table: 'import_batches', field: 'id' },
-			onDelete: 'SET NULL',
-			onUpdate: 'CASCADE'
-		});
-		await qi.addIndex('readings', ['member_id', 'cover_mm'], { name: 'readings_member_cover' });
-		await qi.removeIndex('readings', 'readings_member');
+		await sequelize.query(
+			`ALTER TABLE readings
+			   DROP PRIMARY KEY, ADD PRIMARY KEY (id),
+			   MODIFY id BIGINT UNSIGNED NOT NULL AUTO_INCREMENT,
+			   ADD INDEX readings_member_cover (member_id, cover_mm),
+			   ADD INDEX readings_import_batch_id (import_batch_id),
+			   ADD CONSTRAINT readings_import_batch_fk FOREIGN KEY (import_batch_id)
+			     REFERENCES import_batches (id) ON DELETE SET NULL ON UPDATE CASCADE`,
+			raw
+		);
+		await sequelize.query('DROP SEQUENCE IF EXISTS reading_ids', raw);
 		await qi.removeColumn('import_batches', 'last_reading_id');
 		await qi.removeColumn('import_batches', 'first_reading_id');
 		await qi.dropTable('member_cover_sets');

@@ -17,6 +17,20 @@ export const READING_FLAGS = {
 	outOfRange: 4
 } as const;
 
+/** Every column an insert names: the id is left to its sequence default (migration 009). */
+export const READING_INSERT_FIELDS = [
+	'memberId',
+	'importBatchId',
+	'xMm',
+	'yMm',
+	'coverMm',
+	'barDiameterMm',
+	'barSpacingMm',
+	'barDirection',
+	'flags',
+	'note'
+] as const;
+
 /** One cover reading over one located bar, in mm, on the member's x–y grid. */
 export class Reading extends Model<InferAttributes<Reading>, InferCreationAttributes<Reading>> {
 	declare id: CreationOptional<number>;
@@ -34,8 +48,11 @@ export class Reading extends Model<InferAttributes<Reading>, InferCreationAttrib
 	static initModel(sequelize: Sequelize) {
 		Reading.init(
 			{
+				// Stored clustered by member, primary key (member_id, id); the id comes from the
+				// sequence reading_ids as the column's default (migration 009), so inserts leave it
+				// out: bulkCreate(rows, { fields: READING_INSERT_FIELDS }).
 				id: { type: DataTypes.BIGINT.UNSIGNED, autoIncrement: true, primaryKey: true },
-				memberId: { type: DataTypes.INTEGER.UNSIGNED, allowNull: false },
+				memberId: { type: DataTypes.INTEGER.UNSIGNED, allowNull: false, primaryKey: true },
 				importBatchId: { type: DataTypes.INTEGER.UNSIGNED, allowNull: true },
 				xMm: { type: DataTypes.DOUBLE, allowNull: true },
 				yMm: { type: DataTypes.DOUBLE, allowNull: true },

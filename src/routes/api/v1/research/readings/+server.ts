@@ -6,6 +6,7 @@ import { parseInput } from '$lib/server/api/request';
 import { researchContext } from '$lib/server/research/context';
 import { researchReadingPage } from '$lib/server/research/pages';
 import { filterOf } from '$lib/server/research/requests';
+import { START } from '$lib/server/research/readings';
 
 export const GET: RequestHandler = async ({ locals, url }) => {
 	authorize(locals, 'research:read');
@@ -15,5 +16,6 @@ export const GET: RequestHandler = async ({ locals, url }) => {
 		limit: url.searchParams.get('limit') ?? undefined
 	});
 	const { sequelize, idSecret } = researchContext();
-	return json(await researchReadingPage(sequelize, idSecret, filter, page.cursor ?? 0, page.limit));
+	const after = page.cursor ? { memberId: page.cursor.member, id: page.cursor.after } : START;
+	return json(await researchReadingPage(sequelize, idSecret, filter, after, page.limit));
 };

@@ -17,7 +17,7 @@ export const GET: RequestHandler = async ({ locals, params, url }) => {
 	const { memberId } = parseInput(z.object({ memberId: idParam('member') }), params);
 	const { cursor, limit } = parseInput(pageQuerySchema, queryObject(url));
 	const member = await visibleMember(actor, memberId);
-	return json(await readingPage(member.id, cursor ?? 0, limit));
+	return json(await readingPage(member.id, cursor?.after ?? 0, limit));
 };
 
 export const POST: RequestHandler = async ({ locals, params, request }) => {
