@@ -142,7 +142,9 @@ export async function startImport(actor: Actor, batchId: number, input: StartInp
 		organisationId: actor.organisationId,
 		userId: actor.userId,
 		format: batch.sourceFormat === 'xlsx' ? 'xlsx' : 'csv',
-		open: () => createReadStream(path),
+		// 16 kB reads: parsed batches stay small and die young (64 kB batches waited long enough
+		// to be promoted, and the peak memory of a million-row import was ~30 MB higher).
+		open: () => createReadStream(path, { highWaterMark: 16 * 1024 }),
 		mapping: input.mapping,
 		options: input.options,
 		writeMethod: input.writeMethod
