@@ -65,7 +65,9 @@ export class ReadingWriter {
 	add(reading: ValidReading): Promise<void> | undefined {
 		if (this.method === 'load-data') this.text.append(tsvLine(reading));
 		else this.params.push(bulkParams(reading, this.batchId, this.flags));
-		return this.text.rows + this.params.length >= this.chunkRows ? this.flush() : undefined;
+		// The first chunk is a fifth of the others, so the database starts writing sooner.
+		const size = this.idFloor === null ? Math.ceil(this.chunkRows / 5) : this.chunkRows;
+		return this.text.rows + this.params.length >= size ? this.flush() : undefined;
 	}
 
 	/** Writes what is left and waits for every chunk; answers the range of ids written. */
