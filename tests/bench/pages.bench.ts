@@ -102,6 +102,10 @@ it('measures the population pages', { timeout: 600_000 }, async () => {
 	console.log(
 		`overview, 1,000,000 readings in 100 groups: median ${median(overview).toFixed(0)} ms (runs ${overview.map((x) => x.toFixed(0)).join(', ')})`
 	);
+	// Where the overview's time goes: gathering (members and cover sets) apart from the engine.
+	const { gatherGroups } = await import('../../src/lib/server/populations/groups');
+	const gathering = await time(() => gatherGroups({ assetId }, 'none'));
+	console.log(`  of which gathering the covers: median ${median(gathering).toFixed(0)} ms`);
 	// 100,000 readings in one population: the deck members of ten classes moved into one.
 	await sequelize.query(
 		"UPDATE members SET exposure_class = 'BIG' WHERE asset_id = ? AND member_type = 'deck' AND exposure_class IN (?)",

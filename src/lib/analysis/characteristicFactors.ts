@@ -18,15 +18,30 @@ export function predictionFactor(n: number, p = 0.05): number {
 	return jStat.studentt.inv(1 - p, n - 1) * Math.sqrt(1 + 1 / n);
 }
 
+/** Factors already found, by n, p and γ: an overview asks for the same few many times. */
+const toleranceFactors = new Map<string, number>();
+const MAX_REMEMBERED_FACTORS = 1000;
+
 /**
  * One-sided tolerance factor k such that x̄ − k·s lies below at least 1 − p of the population
  * with confidence γ (ISO 16269-6; NIST/SEMATECH e-Handbook §7.2.6.3):
  * k = t'⁻¹(γ; ν = n − 1, δ = z(1 − p)·√n)/√n, the noncentral t quantile found numerically.
- * Dimensionless. Cost ≈ 10 noncentral t CDFs. Needs 2 readings.
+ * Dimensionless. Cost ≈ 10 noncentral t CDFs the first time for given n, p, γ; remembered
+ * after that (a pure function of the three). Needs 2 readings.
  * @example toleranceFactor(10, 0.05, 0.95) // 2.911
  */
 export function toleranceFactor(n: number, p = 0.05, confidence = 0.95): number {
 	requireReadings('toleranceFactor', n, 2);
+	const key = `${n}|${p}|${confidence}`;
+	const known = toleranceFactors.get(key);
+	if (known !== undefined) return known;
+	const k = solveToleranceFactor(n, p, confidence);
+	if (toleranceFactors.size >= MAX_REMEMBERED_FACTORS) toleranceFactors.clear();
+	toleranceFactors.set(key, k);
+	return k;
+}
+
+function solveToleranceFactor(n: number, p: number, confidence: number): number {
 	const dof = n - 1;
 	const ncp = normalQuantile(1 - p) * Math.sqrt(n);
 	const spread = Math.sqrt(1 + (ncp * ncp) / (2 * dof));

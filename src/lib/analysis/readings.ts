@@ -13,18 +13,22 @@ export function requireReadings(name: string, count: number, minimum: number): v
  * Copy readings into a new Float64Array sorted ascending (numeric sort, no comparator).
  *
  * Definition: the order statistics x(1) ≤ … ≤ x(n) of the readings. Units are kept (mm).
- * Cost: O(n log n) once; every later step takes the sorted array and does not sort again.
- * The caller's array is never changed. Throws on a reading that is not a finite number.
+ * Cost: O(n log n) once, O(n) when the readings come already in order (the population pages
+ * pass members' stored cover sets merged in order); every later step takes the sorted array
+ * and does not sort again. The caller's array is never changed. Throws on a reading that is
+ * not a finite number.
  * @example toSortedCovers([50, 40, 45]) // Float64Array [40, 45, 50]
  */
 export function toSortedCovers(coversMm: readonly number[] | Float64Array): Float64Array {
 	const sorted = Float64Array.from(coversMm);
+	let ascending = true;
 	for (let i = 0; i < sorted.length; i++) {
 		if (!Number.isFinite(sorted[i])) {
 			throw new Error(`reading ${i + 1} is not a finite number`);
 		}
+		if (i > 0 && sorted[i] < sorted[i - 1]) ascending = false;
 	}
-	return sorted.sort();
+	return ascending ? sorted : sorted.sort();
 }
 
 /**

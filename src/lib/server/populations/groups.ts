@@ -1,9 +1,10 @@
 /**
  * Members grouped into populations, and each population's covers gathered into one
- * Float64Array, in member order (the engine sorts them).
+ * Float64Array, ascending.
  */
 import { coversByMember, membersInScope, type MemberFilter, type MemberSpec } from './gather';
 import type { Split } from './query';
+import { mergeSorted } from '$lib/server/readings/coverSetCodec';
 
 export interface PopulationKey {
 	memberType: string;
@@ -52,16 +53,20 @@ function groupMembers(members: MemberSpec[], split: Split) {
 	return [...groups.entries()].sort(([a], [b]) => a.localeCompare(b));
 }
 
-/** One array of the members' covers, in member order. */
+/**
+ * One ascending array of the members' covers (each member's cover set is stored sorted), merged
+ * pairwise: O(n log k) for k members, and the engine then needs no sort of its own.
+ */
 function joinCovers(parts: (Float64Array | undefined)[]): Float64Array {
-	const joined = new Float64Array(parts.reduce((n, p) => n + (p?.length ?? 0), 0));
-	let offset = 0;
-	for (const part of parts) {
-		if (!part) continue;
-		joined.set(part, offset);
-		offset += part.length;
+	let runs = parts.filter((p): p is Float64Array => p !== undefined);
+	if (runs.length === 0) return new Float64Array(0);
+	while (runs.length > 1) {
+		const merged: Float64Array[] = [];
+		for (let i = 0; i < runs.length; i += 2)
+			merged.push(i + 1 < runs.length ? mergeSorted(runs[i], runs[i + 1]) : runs[i]);
+		runs = merged;
 	}
-	return joined;
+	return runs[0];
 }
 
 /**
