@@ -60,6 +60,9 @@ describe('one-sided tolerance factors (NIST/SEMATECH e-Handbook §7.2.6.3; ISO 1
 		[1000000, 1.647379132021708]
 	])('n = %i matches scipy 1.10.1 nct.ppf (%f) to 1e-6', (n, k) => {
 		expect(Math.abs(toleranceFactor(n, 0.05, 0.95) - k)).toBeLessThan(1e-6);
+		// Asked again, the remembered factor is the same number, and a different γ is not it.
+		expect(toleranceFactor(n, 0.05, 0.95)).toBe(toleranceFactor(n, 0.05, 0.95));
+		expect(toleranceFactor(n, 0.05, 0.9)).toBeLessThan(toleranceFactor(n, 0.05, 0.95));
 	});
 	it.each([
 		[4.68, 9, 5.201946750976984, 0.3252627802089437],

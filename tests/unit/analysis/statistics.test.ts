@@ -57,6 +57,13 @@ describe('describe', () => {
 		toSortedCovers(raw);
 		expect(raw).toEqual([3, 1, 2]);
 	});
+	it('returns a copy of input already in order, and sorts input with one step out of order', () => {
+		const inOrder = Float64Array.of(1, 2, 2, 5);
+		const copy = toSortedCovers(inOrder);
+		expect(copy).not.toBe(inOrder);
+		expect(Array.from(copy)).toEqual([1, 2, 2, 5]);
+		expect(Array.from(toSortedCovers(Float64Array.of(1, 2, 5, 4)))).toEqual([1, 2, 4, 5]);
+	});
 });
 
 describe('error function and normal distribution (Abramowitz & Stegun)', () => {
