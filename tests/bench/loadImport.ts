@@ -20,7 +20,10 @@ function csvText(run: number): string {
 	const lines = ['Member,X (mm),Y (mm),Cover (mm)'];
 	for (let i = 0; i < ROWS; i++) {
 		const cover = (20 + ((i * 7919 + run) % 400) / 10).toFixed(1);
-		lines.push(`LB-${1 + (i % MEMBERS)},${(Math.floor(i / MEMBERS) % 500) * 10},${run},${cover}`);
+		// (member, x, y) unique within a run and across runs: no row repeats another.
+		const x = (Math.floor(i / MEMBERS) % 500) * 10;
+		const y = Math.floor(i / (MEMBERS * 500)) * 10 + run * 1000;
+		lines.push(`LB-${1 + (i % MEMBERS)},${x},${y},${cover}`);
 	}
 	return lines.join('\n') + '\n';
 }

@@ -5,6 +5,7 @@ import jStat from 'jstat';
 import { noncentralTCdf } from './noncentralT';
 import { normalCdf, normalQuantile } from './normalDistribution';
 import { requireReadings } from './readings';
+import { remember } from './remember';
 import { solveMonotone } from './solve';
 
 /**
@@ -18,10 +19,6 @@ export function predictionFactor(n: number, p = 0.05): number {
 	return jStat.studentt.inv(1 - p, n - 1) * Math.sqrt(1 + 1 / n);
 }
 
-/** Factors already found, by n, p and γ: an overview asks for the same few many times. */
-const toleranceFactors = new Map<string, number>();
-const MAX_REMEMBERED_FACTORS = 1000;
-
 /**
  * One-sided tolerance factor k such that x̄ − k·s lies below at least 1 − p of the population
  * with confidence γ (ISO 16269-6; NIST/SEMATECH e-Handbook §7.2.6.3):
@@ -32,14 +29,10 @@ const MAX_REMEMBERED_FACTORS = 1000;
  */
 export function toleranceFactor(n: number, p = 0.05, confidence = 0.95): number {
 	requireReadings('toleranceFactor', n, 2);
-	const key = `${n}|${p}|${confidence}`;
-	const known = toleranceFactors.get(key);
-	if (known !== undefined) return known;
-	const k = solveToleranceFactor(n, p, confidence);
-	if (toleranceFactors.size >= MAX_REMEMBERED_FACTORS) toleranceFactors.clear();
-	toleranceFactors.set(key, k);
-	return k;
+	return rememberedToleranceFactor(n, p, confidence);
 }
+
+const rememberedToleranceFactor = remember(solveToleranceFactor);
 
 function solveToleranceFactor(n: number, p: number, confidence: number): number {
 	const dof = n - 1;
@@ -59,7 +52,8 @@ function solveToleranceFactor(n: number, p: number, confidence: number): number 
  * Upper confidence bound on the fraction of a normal population below a limit L, from x̄, s, n
  * (the variables method, ISO 3951 / ISO 16269-6 logic): with t = √n·(x̄ − L)/s, find δ_L such
  * that P(T'(ν, δ_L) ≤ t) = γ; then p_U = Φ(−δ_L/√n). Dimensionless fraction.
- * Cost ≈ 10 noncentral t CDFs. Needs 2 readings.
+ * Cost ≈ 10 noncentral t CDFs the first time for given arguments, remembered after that.
+ * Needs 2 readings.
  * @example fractionBelowUpperBound(62.195, 9.9676, 200, 45, 0.95) // ≈ 0.07
  */
 export function fractionBelowUpperBound(
@@ -70,6 +64,18 @@ export function fractionBelowUpperBound(
 	confidence = 0.95
 ): number {
 	requireReadings('fractionBelowUpperBound', n, 2);
+	return rememberedUpperBound(meanValue, sdValue, n, limit, confidence);
+}
+
+const rememberedUpperBound = remember(solveUpperBound);
+
+function solveUpperBound(
+	meanValue: number,
+	sdValue: number,
+	n: number,
+	limit: number,
+	confidence: number
+): number {
 	if (!(sdValue > 0)) return meanValue >= limit ? 0 : 1;
 	const dof = n - 1;
 	const t = (Math.sqrt(n) * (meanValue - limit)) / sdValue;
