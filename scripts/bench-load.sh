@@ -22,7 +22,7 @@ npx tsx scripts/migrate.ts up >/dev/null
 npx tsx scripts/seed.ts --reset >/dev/null
 say "building the app"
 npx vite build >"$LOCAL_DIR/build-bench.log" 2>&1 || { tail -30 "$LOCAL_DIR/build-bench.log"; die "build failed"; }
-WEB_CONCURRENCY="${WEB_CONCURRENCY:-2}" node --env-file="$ROOT/.env.test" scripts/serve.mjs >"$LOCAL_DIR/app-bench.log" 2>&1 &
+WEB_CONCURRENCY="${WEB_CONCURRENCY:-1}" node --env-file="$ROOT/.env.test" scripts/serve.mjs >"$LOCAL_DIR/app-bench.log" 2>&1 &
 APP_PID=$!
 wait_for_port "$PORT" "the built app"
 export APP_URL="$ORIGIN" BENCH_APP_PID="$APP_PID"
