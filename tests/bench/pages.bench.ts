@@ -94,7 +94,10 @@ it('measures the population pages', { timeout: 600_000 }, async () => {
 		}
 		return out;
 	}
+	// The first view of this data, before the engine has remembered any of its solver results.
+	const coldStart = performance.now();
 	const check = await populationOverview({ assetId, split: 'none', choice });
+	console.log(`overview, first view (cold): ${(performance.now() - coldStart).toFixed(0)} ms`);
 	const total = check.populations.reduce((s, p) => s + (p.assessment?.description.n ?? 0), 0);
 	if (check.populations.length !== 100 || total !== 1_000_000)
 		throw new Error(`bench data wrong: ${check.populations.length} groups, ${total} readings`);
