@@ -9,6 +9,7 @@ import {
 } from '../../../src/lib/server/db/models';
 import { setConsent } from '../../../src/lib/server/research/consent';
 import { startReadingsExport } from '../../../src/lib/server/research/exportStream';
+import { batchSql } from '../../../src/lib/server/research/readings';
 import { researchFilterSchema, type ResearchFilter } from '../../../src/lib/server/research/filter';
 import {
 	researchReadingSchema,
@@ -137,5 +138,28 @@ describe('research export (service layer, real MariaDB)', () => {
 		expect(lines[0]).toBe(Object.keys(researchReadingSchema.shape).join(','));
 		const rows = await exportRows(researchFilterSchema.parse({ memberType: ['column'] }));
 		expect(lines.length - 1).toBe(rows.length);
+	});
+
+	it('reads each batch as a range of the primary key in key order, without a filesort', async () => {
+		const members = await sequelize.query<{ id: number }>('SELECT id FROM members LIMIT 20', {
+			type: QueryTypes.SELECT
+		});
+		for (const where of ['r.member_id = :m AND r.id > :id', 'r.member_id IN (:part)']) {
+			const [plan] = await sequelize.query<{ key: string; Extra: string }>(
+				`EXPLAIN ${batchSql(where)}`,
+				{
+					type: QueryTypes.SELECT,
+					replacements: {
+						m: members[0].id,
+						id: 0,
+						part: members.map((m) => m.id),
+						untilId: Number.MAX_SAFE_INTEGER,
+						n: 5000
+					}
+				}
+			);
+			expect(plan.key).toBe('PRIMARY');
+			expect(plan.Extra).not.toContain('filesort');
+		}
 	});
 });

@@ -42,6 +42,16 @@ const COLUMNS = `r.id, r.member_id AS memberId, r.x_mm AS xMm, r.y_mm AS yMm, r.
 		        r.bar_diameter_mm AS barDiameterMm, r.bar_spacing_mm AS barSpacingMm, r.flags`;
 
 /**
+ * One batch's query: a range of the primary key, read in key order and stopped at the limit —
+ * no filesort (EXPLAIN in tests/integration/research/export.test.ts), or an export would sort
+ * every later reading for each batch.
+ */
+export function batchSql(where: string): string {
+	return `SELECT ${COLUMNS} FROM readings r WHERE ${where} AND r.id <= :untilId
+	  ORDER BY r.member_id, r.id LIMIT :n`;
+}
+
+/**
  * Up to `limit` readings after `after`, with ids up to `untilId` (a snapshot bound, so a long
  * export is stable). Each query is a range of the primary key read in order and stopped at the
  * limit: the rest of the current member, then the following members a few hundred at a time.
@@ -56,11 +66,10 @@ export async function readingBatch(
 	const ids = [...members.keys()].sort((a, b) => a - b);
 	const rows: ReadingRow[] = [];
 	const select = (where: string, replacements: object, n: number) =>
-		sequelize.query<ReadingRow>(
-			`SELECT ${COLUMNS} FROM readings r WHERE ${where} AND r.id <= :untilId
-			  ORDER BY r.member_id, r.id LIMIT :n`,
-			{ type: QueryTypes.SELECT, replacements: { ...replacements, untilId, n } }
-		);
+		sequelize.query<ReadingRow>(batchSql(where), {
+			type: QueryTypes.SELECT,
+			replacements: { ...replacements, untilId, n }
+		});
 	if (members.has(after.memberId)) {
 		rows.push(
 			...(await select(
