@@ -37,6 +37,9 @@ write_app_env() {
 	env_default "$ENV_FILE" S3_ACCESS_KEY_ID S3RVER
 	env_default "$ENV_FILE" S3_SECRET_ACCESS_KEY S3RVER
 	env_default "$ENV_FILE" BODY_SIZE_LIMIT 64M
+	# A staging folder per instance: batch ids are per database, so two checkouts (or dev and
+	# test) sharing the OS temp folder would overwrite each other's batch-<id>.upload files.
+	env_default "$ENV_FILE" IMPORT_STAGING_DIR "$LOCAL_DIR/imports$SUFFIX"
 	# adapter-node's HTTP timeouts, in seconds (docs/scaling.md, "Timeouts").
 	env_default "$ENV_FILE" KEEP_ALIVE_TIMEOUT 65
 	env_default "$ENV_FILE" HEADERS_TIMEOUT 66

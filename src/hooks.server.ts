@@ -10,6 +10,10 @@ import { lockedMessage } from '$lib/server/auth/throttle-rules';
 import { startAuthHousekeeping, stopAuthHousekeeping } from '$lib/server/auth/housekeeping';
 import { startMailRetryLoop, stopMailRetryLoop } from '$lib/server/mail/retry';
 import { failAbandonedImportsAtStart } from '$lib/server/import/abandoned';
+import {
+	startStagingHousekeeping,
+	stopStagingHousekeeping
+} from '$lib/server/import/stagingHousekeeping';
 
 const SECURITY_HEADERS: Record<string, string> = {
 	'x-content-type-options': 'nosniff',
@@ -22,14 +26,16 @@ const SECURITY_HEADERS: Record<string, string> = {
 /**
  * Once per process, before the first request: bind the models to the one Sequelize instance
  * (model calls made before `db()` would fail), start the mail retry loop and the hourly sweep
- * of expired sessions and stale throttle counters, and fail the imports a process that was
- * killed or crashed left running (this one, if it is a restart).
+ * of expired sessions and stale throttle counters, fail the imports a process that was
+ * killed or crashed left running (this one, if it is a restart), and clear this machine's
+ * staging folder of uploads left over.
  */
 export const init: ServerInit = () => {
 	db();
 	startMailRetryLoop();
 	startAuthHousekeeping();
 	failAbandonedImportsAtStart();
+	startStagingHousekeeping();
 };
 
 export const handle: Handle = async ({ event, resolve }) => {
@@ -98,6 +104,7 @@ export const handleError: HandleServerError = ({ error, event, status, message }
 process.on('sveltekit:shutdown', () => {
 	stopMailRetryLoop();
 	stopAuthHousekeeping();
+	stopStagingHousekeeping();
 	closeStorage();
 	void closeDb();
 	// adapter-node has already drained the HTTP server; a socket a library keeps open (an SDK's

@@ -7,6 +7,30 @@ import { ListObjectsV2Command, S3Client } from '@aws-sdk/client-s3';
 import { freePort } from './server';
 import { until } from './until';
 
+/** Every object key under `prefix` in the bucket at `endpoint` (the suite's fake unless told). */
+export async function storedKeys(
+	prefix: string,
+	endpoint = process.env.S3_ENDPOINT
+): Promise<string[]> {
+	const client = new S3Client({
+		endpoint,
+		region: process.env.S3_REGION ?? 'us-east-1',
+		forcePathStyle: true,
+		credentials: {
+			accessKeyId: process.env.S3_ACCESS_KEY_ID ?? 'S3RVER',
+			secretAccessKey: process.env.S3_SECRET_ACCESS_KEY ?? 'S3RVER'
+		}
+	});
+	try {
+		const listed = await client.send(
+			new ListObjectsV2Command({ Bucket: process.env.S3_BUCKET ?? 'fractile', Prefix: prefix })
+		);
+		return (listed.Contents ?? []).map((o) => o.Key!).sort();
+	} finally {
+		client.destroy();
+	}
+}
+
 function answers(port: number): Promise<boolean> {
 	return new Promise((resolve) => {
 		const socket = connect(port, '127.0.0.1');
@@ -28,17 +52,7 @@ export async function ownStorageFake() {
 	const port = await freePort();
 	const dir = await mkdtemp(join(tmpdir(), 'fractile-s3-fault-'));
 	const endpoint = `http://127.0.0.1:${port}`;
-	const bucket = process.env.S3_BUCKET ?? 'fractile';
 	let child: ChildProcess | null = null;
-	const client = new S3Client({
-		endpoint,
-		region: process.env.S3_REGION ?? 'us-east-1',
-		forcePathStyle: true,
-		credentials: {
-			accessKeyId: process.env.S3_ACCESS_KEY_ID ?? 'S3RVER',
-			secretAccessKey: process.env.S3_SECRET_ACCESS_KEY ?? 'S3RVER'
-		}
-	});
 	return {
 		endpoint,
 		async start(): Promise<void> {
@@ -59,15 +73,9 @@ export async function ownStorageFake() {
 			clearTimeout(forced);
 		},
 		/** Every object key under `prefix`, as the fake holds them. */
-		async keys(prefix: string): Promise<string[]> {
-			const listed = await client.send(
-				new ListObjectsV2Command({ Bucket: bucket, Prefix: prefix })
-			);
-			return (listed.Contents ?? []).map((o) => o.Key!).sort();
-		},
+		keys: (prefix: string) => storedKeys(prefix, endpoint),
 		async remove(): Promise<void> {
 			await this.stop();
-			client.destroy();
 			await rm(dir, { recursive: true, force: true });
 		}
 	};

@@ -7,6 +7,7 @@ import { stagedPathOf } from '../../src/lib/server/import/stage';
 import { actorFor, countReadings, freshSurvey, testSequelize } from '../helpers/intake';
 import { startBuiltApp } from '../helpers/server';
 import { signInAs, type HttpClient } from '../helpers/session';
+import { storedKeys } from '../helpers/storageFake';
 import { until } from '../helpers/until';
 
 type App = Awaited<ReturnType<typeof startBuiltApp>>;
@@ -122,9 +123,11 @@ describe('when an app process is killed mid-import', () => {
 			async () => !(await connectionOpen(sequelize, Number(progress.connectionId))),
 			30_000
 		);
-		// Nobody has looked since: the batch still says running, its upload still staged.
+		// Nobody has looked since: the batch still says running, its upload still staged and stored.
+		const storedCopy = `imports/batch-${batchId}.upload`;
 		expect((await ImportBatch.findByPk(batchId))!.state).toBe('running');
 		expect(existsSync(stagedPathOf(batchId))).toBe(true);
+		expect(await storedKeys(storedCopy)).toEqual([storedCopy]);
 
 		const restarted = await start();
 		// No request touches the import: the app's start-up alone must settle it, promptly.
@@ -138,6 +141,7 @@ describe('when an app process is killed mid-import', () => {
 		);
 		expect(await countReadings(sequelize, { batchId })).toBe(0);
 		expect(existsSync(stagedPathOf(batchId))).toBe(false);
+		expect(await storedKeys(storedCopy)).toEqual([]);
 		const events = await AuditEvent.findAll({
 			where: { subjectType: 'import_batch', subjectId: String(batchId) }
 		});

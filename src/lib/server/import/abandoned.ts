@@ -3,7 +3,7 @@ import { ImportBatch } from '../db/models';
 import { recordAudit } from '../audit';
 import { isDatabaseUnavailable } from '../db/unavailable';
 import { IMPORT_LIMITS } from './limits';
-import { removeStaged, stagedPathOf } from './stage';
+import { removeStagedCopies } from './stagedCopies';
 
 /** A running batch as the sweep sees it. */
 export interface RunningImport {
@@ -120,8 +120,8 @@ export async function failAbandonedImports(): Promise<number> {
 	for (const run of running.filter((r) => isAbandoned(r, open, nowMs))) {
 		if (!(await failAbandoned(run))) continue;
 		failed++;
-		// Its upload waits in the staging folder for an end that never came.
-		await removeStaged(stagedPathOf(run.batchId));
+		// Its upload waits, here and in object storage, for an end that never came.
+		await removeStagedCopies(run.batchId);
 	}
 	return failed;
 }

@@ -6,16 +6,15 @@ import { StateError } from '../domainErrors';
 import { assertSurveyEditable } from '../intake/frozen';
 import type { Actor } from '../policy';
 import { scopedImportBatch, scopedSurvey } from '../scope';
-import { stagedPathOf } from './batches';
 import { failAbandonedImports, requestCancel } from './progress';
-import { removeStaged } from './stage';
+import { removeStagedCopies } from './stagedCopies';
 
 /** Cancels a pending import at once, or asks a running one to stop (it rolls back). */
 export async function cancelImport(actor: Actor, batchId: number): Promise<void> {
 	const { batch } = await scopedImportBatch(actor, batchId, 'write');
 	if (batch.state === 'pending') {
 		await batch.update({ state: 'cancelled', finishedAt: new Date() });
-		await removeStaged(stagedPathOf(batch.id));
+		await removeStagedCopies(batch.id);
 		return;
 	}
 	if (batch.state !== 'running') throw new StateError(`This import is already ${batch.state}.`);

@@ -1,9 +1,8 @@
-import { createReadStream } from 'node:fs';
 import { rename } from 'node:fs/promises';
 import type { Readable } from 'node:stream';
-import { Op } from 'sequelize';
+import { Op, type CreationAttributes } from 'sequelize';
 import { ColumnTemplate, ImportBatch, Survey } from '../db/models';
-import { InputError, StateError } from '../domainErrors';
+import { InputError, StateError, StorageUnavailableError } from '../domainErrors';
 import { assertSurveyEditable } from '../intake/frozen';
 import type { Actor } from '../policy';
 import { scopedImportBatch, scopedSurvey } from '../scope';
@@ -15,10 +14,8 @@ import { previewStagedFile, type FilePreview } from './preview';
 import { runImport } from './run';
 import type { WriteMethod } from './writer';
 import type { ImportOutcome } from './finish';
-import { removeStaged, stagedPathOf, stageUpload } from './stage';
-
-// Defined beside the staging code (the abandoned-import sweep needs it too); callers keep this path.
-export { stagedPathOf };
+import { removeStaged, stagedPathOf, stageUpload, type StagedFile } from './stage';
+import { openStaged, removeStagedCopies, storeStaged } from './stagedCopies';
 
 export interface DuplicateImport {
 	batchId: number;
@@ -70,21 +67,22 @@ export async function receiveUpload(
 	const fileName = sanitiseFileName(rawFileName, 'readings.csv');
 	const staged = await stageUpload(body, maxBytes);
 	let preview: FilePreview;
+	let batch: ImportBatch;
 	try {
 		preview = await previewStagedFile(staged.path, fileName, staged.bytes);
+		batch = await recordBatch(staged, {
+			surveyId,
+			createdByUserId: actor.userId,
+			sourceFormat: preview.format,
+			fileName,
+			fileSha256: staged.sha256,
+			fileBytes: staged.bytes,
+			options: preview.settings
+		});
 	} catch (err) {
 		await removeStaged(staged.path);
 		throw err;
 	}
-	const batch = await ImportBatch.create({
-		surveyId,
-		createdByUserId: actor.userId,
-		sourceFormat: preview.format,
-		fileName,
-		fileSha256: staged.sha256,
-		fileBytes: staged.bytes,
-		options: preview.settings
-	});
 	await rename(staged.path, stagedPathOf(batch.id));
 	const templates = await ColumnTemplate.findAll({
 		where: { organisationId: actor.organisationId, headerSignature: preview.headerSignature },
@@ -96,6 +94,30 @@ export async function receiveUpload(
 		duplicateOf: await findDuplicateImport(asset.id, staged.sha256, batch.id),
 		templates: templates.map((t) => t.get({ plain: true }))
 	};
+}
+
+/**
+ * Records a pending batch together with the stored copy of its upload: the object is written
+ * before the row commits, so no app machine can see a pending batch whose file it cannot read,
+ * and storage that is down rolls the row back (the upload answers 503, nothing recorded).
+ */
+async function recordBatch(
+	staged: StagedFile,
+	values: CreationAttributes<ImportBatch>
+): Promise<ImportBatch> {
+	let storedFor: number | null = null;
+	try {
+		return await ImportBatch.sequelize!.transaction(async (transaction) => {
+			const batch = await ImportBatch.create(values, { transaction });
+			await storeStaged(batch.id, staged.path, staged.bytes);
+			storedFor = batch.id;
+			return batch;
+		});
+	} catch (err) {
+		// The commit failed after the object was stored: the object must not outlive its row.
+		if (storedFor !== null) await removeStagedCopies(storedFor);
+		throw err;
+	}
 }
 
 export interface StartInput {
@@ -131,25 +153,46 @@ export async function startImport(actor: Actor, batchId: number, input: StartInp
 	if (input.saveTemplateAs && input.headerSignature) {
 		await saveTemplate(actor, input.saveTemplateAs, input.headerSignature, input);
 	}
-	// Progress first: a running batch always has a heartbeat, so a process that dies between
-	// these two lines leaves nothing that the sweep for abandoned imports cannot see.
-	await beginProgress(batch.id, batch.fileBytes ?? 0);
-	await batch.update({ mapping: input.mapping, options: input.options, state: 'running' });
-	const path = stagedPathOf(batch.id);
+	const source = await openAndBegin(batch, input);
 	const done: Promise<ImportOutcome> = runImport({
 		batchId: batch.id,
 		surveyId: survey.id,
 		organisationId: actor.organisationId,
 		userId: actor.userId,
 		format: batch.sourceFormat === 'xlsx' ? 'xlsx' : 'csv',
-		// 16 kB reads: parsed batches stay small and die young (64 kB batches waited long enough
-		// to be promoted, and the peak memory of a million-row import was ~30 MB higher).
-		open: () => createReadStream(path, { highWaterMark: 16 * 1024 }),
+		open: () => source,
 		mapping: input.mapping,
 		options: input.options,
 		writeMethod: input.writeMethod
-	}).finally(() => removeStaged(path));
+	}).finally(() => removeStagedCopies(batch.id));
 	return { batchId: batch.id, done };
+}
+
+const START_WITHOUT_STORAGE =
+	'File storage cannot be reached right now, so this import has not started; the uploaded file is kept. Try again in a few minutes.';
+
+/**
+ * Opens the batch's upload (this machine's copy or the stored one) and marks the batch running.
+ * Opened first: storage that is down answers the start with a 503 and leaves the batch pending,
+ * to be started again.
+ */
+async function openAndBegin(batch: ImportBatch, input: StartInput): Promise<Readable> {
+	const bytes = Number(batch.fileBytes ?? 0);
+	const source = await openStaged(batch.id, bytes).catch((err) => {
+		// The shared wording says the file was not saved; here it was, and waits.
+		if (!(err instanceof StorageUnavailableError)) throw err;
+		throw new ImportError('storage_unavailable', START_WITHOUT_STORAGE, 503);
+	});
+	try {
+		// Progress first: a running batch always has a heartbeat, so a process that dies between
+		// these two lines leaves nothing that the sweep for abandoned imports cannot see.
+		await beginProgress(batch.id, bytes);
+		await batch.update({ mapping: input.mapping, options: input.options, state: 'running' });
+		return source;
+	} catch (err) {
+		source.destroy();
+		throw err;
+	}
 }
 
 async function saveTemplate(actor: Actor, name: string, signature: string, input: StartInput) {

@@ -51,6 +51,9 @@ function recordBatches(job: ImportJob, tally: ImportTally): AsyncGenerator<strin
 	counter.on('data', (chunk: Buffer) => (tally.bytesRead += chunk.length));
 	const input = job.open();
 	input.on('error', (err) => counter.destroy(err));
+	// The parsers destroy what they read when they stop, early too (a cancel, a refused file):
+	// the source's file handle or storage connection goes with it rather than waiting for a timeout.
+	counter.once('close', () => input.destroy());
 	input.pipe(counter);
 	return job.format === 'xlsx'
 		? xlsxRecordBatches(counter)

@@ -108,6 +108,17 @@ export async function getObject(key: string) {
 	return { body: result.Body as Readable, bytes: result.ContentLength ?? null };
 }
 
+/** Like getObject, but null when storage holds no object under `key` (S3's 404 NoSuchKey). */
+export async function getObjectIfStored(key: string) {
+	try {
+		return await getObject(key);
+	} catch (err) {
+		const e = err as { name?: string; $metadata?: { httpStatusCode?: number } };
+		if (e.name === 'NoSuchKey' || e.$metadata?.httpStatusCode === 404) return null;
+		throw err;
+	}
+}
+
 export async function deleteObject(key: string) {
 	const { s3, bucket } = storage();
 	await call('DELETE', key, () => s3.send(new DeleteObjectCommand({ Bucket: bucket, Key: key })));
