@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { cNomProblem } from './specifiedCover';
 
 /** Input schemas of the intake forms and API, shared by the server and the browser. */
 export const DESIGN_CODES = ['EN 1992-1-1', 'ACI 318', 'project'] as const;
@@ -70,7 +71,7 @@ export const surveySchema = z.object({
 });
 export type SurveyInput = z.infer<typeof surveySchema>;
 
-export const memberSchema = z.object({
+const memberFieldsSchema = z.object({
 	label: text(80).min(1, 'Give the member a label.'),
 	memberType: z.enum(MEMBER_TYPES, { error: 'Choose the member type.' }),
 	face: z.enum(MEMBER_FACES, { error: 'Choose the face surveyed.' }),
@@ -88,6 +89,11 @@ export const memberSchema = z.object({
 	gridWidthMm: optionalNumber('Grid width', 1, 1e6),
 	gridHeightMm: optionalNumber('Grid height', 1, 1e6),
 	notes: optionalText(5000)
+});
+/** The fields, then c_nom against c_min and Δc_dev (specifiedCover.ts); the issue is c_nom's. */
+export const memberSchema = memberFieldsSchema.superRefine((member, ctx) => {
+	const problem = cNomProblem(member);
+	if (problem) ctx.addIssue({ code: 'custom', path: ['cNomMm'], message: problem });
 });
 export type MemberInput = z.infer<typeof memberSchema>;
 
