@@ -19,26 +19,29 @@ export const EXPOSURE_CLASSES_EN = [
 	'XS3'
 ] as const;
 
+// Optional fields end in a plain schema (the pipe) and a default rather than a bare transform, so
+// that the API document generated from these (src/lib/server/api/openapi) can say what they are:
+// optional in a request, string or number or null in the saved record.
 const text = (max: number) => z.string().trim().max(max, `At most ${max} characters.`);
 const optionalText = (max: number) =>
-	z
-		.string()
-		.trim()
-		.max(max, `At most ${max} characters.`)
+	text(max)
 		.transform((v) => v || null)
+		.pipe(z.string().nullable())
 		.nullable()
-		.optional()
-		.transform((v) => v ?? null);
+		.default(null);
 /** A number from a form field or JSON; '' means not given. */
 const optionalNumber = (label: string, min: number, max: number) =>
-	z.preprocess(
-		(v) => (v === '' || v == null ? null : typeof v === 'string' ? Number(v.replace(',', '.')) : v),
-		z
-			.number({ error: `${label} must be a number.` })
-			.min(min, `${label} must be at least ${min}.`)
-			.max(max, `${label} must be at most ${max}.`)
-			.nullable()
-	);
+	z
+		.preprocess(
+			(v) =>
+				v === '' || v == null ? null : typeof v === 'string' ? Number(v.replace(',', '.')) : v,
+			z
+				.number({ error: `${label} must be a number.` })
+				.min(min, `${label} must be at least ${min}.`)
+				.max(max, `${label} must be at most ${max}.`)
+				.nullable()
+		)
+		.default(null);
 const requiredNumber = (label: string, min: number, max: number) =>
 	z.preprocess(
 		(v) =>
