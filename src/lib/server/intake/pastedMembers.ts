@@ -1,7 +1,18 @@
 import Papa from 'papaparse';
+import { z } from 'zod';
 import { InputError } from '../domainErrors';
 import { memberSchema, type MemberInput } from '$lib/intake/schemas';
 import { suggestEnCover } from './requirements';
+
+export const pastedTableSchema = z.object({
+	table: z
+		.string()
+		.min(1, 'Paste a table.')
+		.max(1_000_000)
+		.describe(
+			'Tab- or comma-separated, header row first: label, type, face, exposure, c_min, c_nom, delta c_dev, bar diameter, spacing, depth, width, height, notes (label needed). With EN 1992-1-1, c_min and c_nom are suggested when left out.'
+		)
+});
 
 /** Header names a pasted member table may use, for each member field. */
 const COLUMN_ALIASES: [keyof MemberInput, RegExp][] = [
