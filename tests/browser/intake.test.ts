@@ -97,11 +97,12 @@ describe('intake pages in chromium (the built app)', () => {
 	it('at 1280 px: a new c_min typed and saved is what the member shows', async () => {
 		const member = await openMemberEdit(page, 1280, 900);
 		expect(await page.inputValue('#field-cMinMm')).toBe('25');
-		await page.fill('#field-cMinMm', '30');
+		// 20 + Δc_dev 10 stays within c_nom 35 mm (EN 1992-1-1 (4.1)); 30 would not.
+		await page.fill('#field-cMinMm', '20');
 		await screenshot(page, 'edit-member-desktop');
 		await save(page, member.id);
-		await page.getByText('30 / 35 mm').waitFor();
-		expect((await member.reload()).cMinMm).toBe(30);
+		await page.getByText('20 / 35 mm').waitFor();
+		expect((await member.reload()).cMinMm).toBe(20);
 		await screenshot(page, 'edit-member-saved-desktop');
 	});
 
@@ -118,5 +119,30 @@ describe('intake pages in chromium (the built app)', () => {
 		await page.getByText('35 / 45 mm').waitFor();
 		await member.reload();
 		expect([member.exposureClass, member.cMinMm, member.cNomMm]).toEqual(['XD1', 35, 45]);
+	});
+
+	it('the EN suggestion takes the Δc_dev typed: XD1 with 5 mm gives c_nom 40 mm, and it saves', async () => {
+		const member = await openMemberEdit(page, 1280, 900);
+		await page.fill('#field-exposureClass', 'XD1');
+		await page.fill('#field-deltaCDevMm', '5');
+		await page.getByRole('button', { name: /Suggest c_min and c_nom/ }).click();
+		// EN 1992-1-1 Table 4.4N, S4: XD1 → c_min 35 mm; (4.1): c_nom = 35 + 5 = 40 mm.
+		await page.getByText(/Δc_dev 5 mm/).waitFor();
+		expect(await page.inputValue('#field-cNomMm')).toBe('40');
+		await save(page, member.id);
+		await member.reload();
+		expect([member.cMinMm, member.cNomMm, member.deltaCDevMm]).toEqual([35, 40, 5]);
+	});
+
+	it('a c_nom below c_min + Δc_dev is refused under the c_nom field, and nothing is saved', async () => {
+		const member = await openMemberEdit(page, 1280, 900);
+		await page.fill('#field-cNomMm', '30');
+		await page.getByRole('button', { name: 'Save member' }).click();
+		const fieldError = page.locator('#field-cNomMm-error');
+		await fieldError.waitFor();
+		expect(await fieldError.textContent()).toBe(
+			'c_nom 30 mm is below c_min + Δc_dev = 35 mm (EN 1992-1-1 (4.1)).'
+		);
+		expect((await member.reload()).cNomMm).toBe(35);
 	});
 });

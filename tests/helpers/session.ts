@@ -18,6 +18,8 @@ export interface HttpClient {
 	/** A form post as a browser sends it (Origin header set, redirects not followed). */
 	postForm(path: string, fields?: Record<string, string>): Promise<Response>;
 	postJson(path: string, body: unknown): Promise<Response>;
+	/** A raw body (a file, as the upload routes take it), or none. */
+	postBody(path: string, body?: BodyInit, contentType?: string): Promise<Response>;
 	putJson(path: string, body: unknown): Promise<Response>;
 	patchJson(path: string, body: unknown): Promise<Response>;
 	delete(path: string): Promise<Response>;
@@ -56,6 +58,12 @@ export function httpClient(
 				origin
 			}),
 		postJson: sendJson('POST'),
+		postBody: (path, body, contentType) =>
+			send('POST', path, body, {
+				origin,
+				accept: 'application/json',
+				...(contentType ? { 'content-type': contentType } : {})
+			}),
 		putJson: sendJson('PUT'),
 		patchJson: sendJson('PATCH'),
 		delete: (path) => send('DELETE', path, undefined, { origin })

@@ -1,6 +1,8 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { createMigrator } from '../../src/lib/server/db/migrator';
-import { initModels } from '../../src/lib/server/db/models';
+import { initModels, Member } from '../../src/lib/server/db/models';
+import { formValuesOf } from '../../src/lib/intake/formValues';
+import { memberSchema } from '../../src/lib/intake/schemas';
 import { clearAllData, loadDemoScenario, summariseDemo } from '../../seeds/load';
 import { demoPeople } from '../../seeds/scenario';
 import { scratchDatabase } from '../helpers/database';
@@ -42,5 +44,15 @@ describe('demo scenario seeding', () => {
 		}
 		// One small population, for the "not enough data" verdict.
 		expect(summary.populations.some((p) => p.n < 20)).toBe(true);
+	});
+
+	it("gives members that pass the member form's own checks, c_nom = c_min + Δc_dev (EN 1992-1-1 (4.1)) among them", async () => {
+		const members = await Member.findAll();
+		expect(members.length).toBeGreaterThanOrEqual(30);
+		const refused = members.flatMap((m) => {
+			const parsed = memberSchema.safeParse(formValuesOf(m.get({ plain: true }), memberSchema));
+			return parsed.success ? [] : [`${m.label}: ${parsed.error.issues[0].message}`];
+		});
+		expect(refused).toEqual([]);
 	});
 });

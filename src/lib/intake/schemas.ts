@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { cNomProblem } from './specifiedCover';
 
 /** Input schemas of the intake forms and API, shared by the server and the browser. */
 export const DESIGN_CODES = ['EN 1992-1-1', 'ACI 318', 'project'] as const;
@@ -18,26 +19,29 @@ export const EXPOSURE_CLASSES_EN = [
 	'XS3'
 ] as const;
 
+// Optional fields end in a plain schema (the pipe) and a default rather than a bare transform, so
+// that the API document generated from these (src/lib/server/api/openapi) can say what they are:
+// optional in a request, string or number or null in the saved record.
 const text = (max: number) => z.string().trim().max(max, `At most ${max} characters.`);
 const optionalText = (max: number) =>
-	z
-		.string()
-		.trim()
-		.max(max, `At most ${max} characters.`)
+	text(max)
 		.transform((v) => v || null)
+		.pipe(z.string().nullable())
 		.nullable()
-		.optional()
-		.transform((v) => v ?? null);
+		.default(null);
 /** A number from a form field or JSON; '' means not given. */
 const optionalNumber = (label: string, min: number, max: number) =>
-	z.preprocess(
-		(v) => (v === '' || v == null ? null : typeof v === 'string' ? Number(v.replace(',', '.')) : v),
-		z
-			.number({ error: `${label} must be a number.` })
-			.min(min, `${label} must be at least ${min}.`)
-			.max(max, `${label} must be at most ${max}.`)
-			.nullable()
-	);
+	z
+		.preprocess(
+			(v) =>
+				v === '' || v == null ? null : typeof v === 'string' ? Number(v.replace(',', '.')) : v,
+			z
+				.number({ error: `${label} must be a number.` })
+				.min(min, `${label} must be at least ${min}.`)
+				.max(max, `${label} must be at most ${max}.`)
+				.nullable()
+		)
+		.default(null);
 const requiredNumber = (label: string, min: number, max: number) =>
 	z.preprocess(
 		(v) =>
@@ -70,7 +74,7 @@ export const surveySchema = z.object({
 });
 export type SurveyInput = z.infer<typeof surveySchema>;
 
-export const memberSchema = z.object({
+const memberFieldsSchema = z.object({
 	label: text(80).min(1, 'Give the member a label.'),
 	memberType: z.enum(MEMBER_TYPES, { error: 'Choose the member type.' }),
 	face: z.enum(MEMBER_FACES, { error: 'Choose the face surveyed.' }),
@@ -88,6 +92,11 @@ export const memberSchema = z.object({
 	gridWidthMm: optionalNumber('Grid width', 1, 1e6),
 	gridHeightMm: optionalNumber('Grid height', 1, 1e6),
 	notes: optionalText(5000)
+});
+/** The fields, then c_nom against c_min and Δc_dev (specifiedCover.ts); the issue is c_nom's. */
+export const memberSchema = memberFieldsSchema.superRefine((member, ctx) => {
+	const problem = cNomProblem(member);
+	if (problem) ctx.addIssue({ code: 'custom', path: ['cNomMm'], message: problem });
 });
 export type MemberInput = z.infer<typeof memberSchema>;
 

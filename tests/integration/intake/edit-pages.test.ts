@@ -77,7 +77,8 @@ const KINDS: Record<'asset' | 'survey' | 'member' | 'hole', Kind> = {
 		page: (r) => `/members/${r.member.id}/edit`,
 		after: (r) => `/members/${r.member.id}/entry`,
 		subject: (r) => ['member', r.member.id],
-		change: { field: 'cMinMm', typed: '32,5', stored: 32.5 },
+		// Lowered: 22.5 + Δc_dev 10 stays within c_nom 35 mm (EN 1992-1-1 (4.1)); 32.5 would not.
+		change: { field: 'cMinMm', typed: '22,5', stored: 22.5 },
 		bad: { field: 'cNomMm', typed: 'forty', message: 'c_nom is required and must be a number.' }
 	},
 	hole: {

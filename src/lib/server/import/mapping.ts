@@ -61,6 +61,37 @@ export const importOptionsSchema = z
 	.strict();
 export type ImportOptions = z.infer<typeof importOptionsSchema>;
 
+/** Step 1's query: the file itself is the request body. */
+export const importUploadQuerySchema = z.object({
+	fileName: z
+		.string()
+		.default('readings.csv')
+		.describe("The file's name (sanitised); its extension helps tell CSV from XLSX.")
+});
+
+/** Step 2: the mapping and choices the user confirmed against the preview. */
+export const importStartSchema = z.object({
+	mapping: columnMappingSchema,
+	options: importOptionsSchema,
+	confirmDuplicate: z
+		.boolean()
+		.default(false)
+		.describe('Import a file already imported into this asset (same sha256) again.'),
+	saveTemplateAs: z
+		.string()
+		.trim()
+		.min(1)
+		.max(80)
+		.nullable()
+		.default(null)
+		.describe("Save the mapping and options under this name for your organisation's next files."),
+	headerSignature: z
+		.string()
+		.max(1000)
+		.optional()
+		.describe("The preview's headerSignature, to offer the template when the headers match.")
+});
+
 const SUGGESTIONS: [ReadingField, RegExp][] = [
 	['memberLabel', /member|element|label|bay|location|area/i],
 	['cover', /cover|reading|depth/i],

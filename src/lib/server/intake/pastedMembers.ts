@@ -1,7 +1,18 @@
 import Papa from 'papaparse';
+import { z } from 'zod';
 import { InputError } from '../domainErrors';
 import { memberSchema, type MemberInput } from '$lib/intake/schemas';
 import { suggestEnCover } from './requirements';
+
+export const pastedTableSchema = z.object({
+	table: z
+		.string()
+		.min(1, 'Paste a table.')
+		.max(1_000_000)
+		.describe(
+			'Tab- or comma-separated, header row first: label, type, face, exposure, c_min, c_nom, delta c_dev, bar diameter, spacing, depth, width, height, notes (label needed). With EN 1992-1-1, c_min and c_nom are suggested when left out.'
+		)
+});
 
 /** Header names a pasted member table may use, for each member field. */
 const COLUMN_ALIASES: [keyof MemberInput, RegExp][] = [
@@ -28,9 +39,19 @@ function headerFields(headers: string[]) {
 }
 
 /**
+ * A pasted Δc_dev is the project's: c_nom = c_min + that (EN 1992-1-1 (4.1)), not + 10 mm. One
+ * that is not a number is left to the member schema, which names it.
+ */
+function pastedDeltaCDevMm(value: unknown): number | undefined {
+	const mm = Number(String(value).replace(',', '.'));
+	return Number.isFinite(mm) ? mm : undefined;
+}
+
+/**
  * Members from a table pasted from a spreadsheet (tab-separated, or commas), header row first.
  * The requirement defaults to the asset's code; with EN 1992-1-1, c_min, c_nom and Δc_dev are
- * suggested from the exposure class and bar diameter when the table leaves them out.
+ * suggested from the exposure class, bar diameter and Δc_dev (10 mm unless the table gives one)
+ * when the table leaves them out.
  */
 export function parsePastedMembers(
 	text: string,
@@ -67,7 +88,8 @@ export function parsePastedMembers(
 			const s = suggestEnCover(
 				String(values.exposureClass ?? ''),
 				Number(values.barDiameterMm ?? 0) || 0,
-				String(values.structuralClass)
+				String(values.structuralClass),
+				pastedDeltaCDevMm(values.deltaCDevMm)
 			);
 			if (s)
 				Object.assign(values, {

@@ -12,7 +12,16 @@ export function toOpenApiSchema(
 	io: 'input' | 'output',
 	components: Record<string, JsonSchema>
 ): JsonSchema {
-	const converted = z.toJSONSchema(schema, { io, unrepresentable: 'any' }) as JsonSchema;
+	const converted = z.toJSONSchema(schema, {
+		io,
+		unrepresentable: 'any',
+		override: ({ jsonSchema }) => {
+			// zod spells a date's or a time's format out again as a long regex; the format says it.
+			if (jsonSchema.format === 'date' || jsonSchema.format === 'date-time') {
+				delete jsonSchema.pattern;
+			}
+		}
+	}) as JsonSchema;
 	delete converted.$schema;
 	const defs = (converted.$defs ?? {}) as Record<string, JsonSchema>;
 	delete converted.$defs;

@@ -2,6 +2,7 @@ import { Readable } from 'node:stream';
 import type { RequestHandler } from './$types';
 import { authorize } from '$lib/server/policy';
 import { scopedAttachment } from '$lib/server/storage/attachments';
+import { attachmentDownloadQuerySchema } from '$lib/server/storage/attachmentQuery';
 import { getObject } from '$lib/server/storage/s3';
 import { contentDisposition } from '$lib/server/storage/names';
 import { api, idParam } from '$lib/server/intake/respond';
@@ -10,7 +11,8 @@ import { api, idParam } from '$lib/server/intake/respond';
 export const GET: RequestHandler = async ({ locals, params, url }) => {
 	const actor = authorize(locals, 'attachment:read');
 	const attachment = await api(() => scopedAttachment(actor, idParam(params.attachmentId)));
-	const wantThumb = url.searchParams.get('thumbnail') === '1' && attachment.thumbnailKey;
+	const { thumbnail } = attachmentDownloadQuerySchema.parse(Object.fromEntries(url.searchParams));
+	const wantThumb = thumbnail === '1' && attachment.thumbnailKey;
 	const object = await api(() =>
 		getObject(wantThumb ? attachment.thumbnailKey! : attachment.storageKey)
 	);

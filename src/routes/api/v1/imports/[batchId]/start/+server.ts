@@ -1,25 +1,16 @@
 import { json } from '@sveltejs/kit';
-import { z } from 'zod';
 import type { RequestHandler } from './$types';
 import { authorize } from '$lib/server/policy';
 import { readJson } from '$lib/server/http';
 import { startImport } from '$lib/server/import/batches';
-import { columnMappingSchema, importOptionsSchema } from '$lib/server/import/mapping';
+import { importStartSchema } from '$lib/server/import/mapping';
 import { api, idParam } from '$lib/server/intake/respond';
-
-const startSchema = z.object({
-	mapping: columnMappingSchema,
-	options: importOptionsSchema,
-	confirmDuplicate: z.boolean().default(false),
-	saveTemplateAs: z.string().trim().min(1).max(80).nullable().default(null),
-	headerSignature: z.string().max(1000).optional()
-});
 
 /** Step 2: the mapping and choices; the import runs on, and GET /api/v1/imports/:id follows it. */
 export const POST: RequestHandler = async ({ locals, params, request }) => {
 	const actor = authorize(locals, 'reading:import');
 	const batchId = idParam(params.batchId);
-	const input = await readJson(request, startSchema);
+	const input = await readJson(request, importStartSchema);
 	const started = await api(() => startImport(actor, batchId, input));
 	// Not awaited: it settles in the batch's row, which the progress route reads.
 	void started.done.catch((err) => console.error(`import ${batchId} crashed:`, err));

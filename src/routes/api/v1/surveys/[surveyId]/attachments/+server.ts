@@ -1,21 +1,12 @@
 import { json } from '@sveltejs/kit';
-import { z } from 'zod';
 import type { RequestHandler } from './$types';
 import { Attachment } from '$lib/server/db';
 import { authorize } from '$lib/server/policy';
 import { apiError } from '$lib/server/http';
 import { ATTACHMENT_MAX_BYTES, uploadAttachment } from '$lib/server/storage/attachments';
+import { attachmentUploadQuerySchema } from '$lib/server/storage/attachmentQuery';
 import { scopedSurvey } from '$lib/server/scope';
 import { api, idParam } from '$lib/server/intake/respond';
-
-const querySchema = z.object({
-	fileName: z.string().min(1, 'Give the file name in ?fileName=.').max(500),
-	kind: z.enum(['photo', 'drawing', 'meter-file', 'other'], {
-		error: 'kind must be photo, drawing, meter-file or other.'
-	}),
-	caption: z.string().max(255).optional(),
-	memberId: z.coerce.number().int().positive().optional()
-});
 
 export const GET: RequestHandler = async ({ locals, params }) => {
 	const actor = authorize(locals, 'attachment:read');
@@ -32,7 +23,7 @@ export const GET: RequestHandler = async ({ locals, params }) => {
 export const POST: RequestHandler = async ({ locals, params, request, url }) => {
 	const actor = authorize(locals, 'attachment:upload');
 	const surveyId = idParam(params.surveyId);
-	const q = querySchema.safeParse(Object.fromEntries(url.searchParams));
+	const q = attachmentUploadQuerySchema.safeParse(Object.fromEntries(url.searchParams));
 	if (!q.success)
 		apiError(400, 'invalid_input', q.error.issues[0].message, String(q.error.issues[0].path[0]));
 	if (Number(request.headers.get('content-length') ?? 0) > ATTACHMENT_MAX_BYTES) {

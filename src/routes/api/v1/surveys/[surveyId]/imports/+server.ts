@@ -5,6 +5,7 @@ import { apiError } from '$lib/server/http';
 import { listImports } from '$lib/server/import/batchActions';
 import { receiveUpload } from '$lib/server/import/batches';
 import { IMPORT_LIMITS } from '$lib/server/import/limits';
+import { importUploadQuerySchema } from '$lib/server/import/mapping';
 import { api, idParam } from '$lib/server/intake/respond';
 
 export const GET: RequestHandler = async ({ locals, params }) => {
@@ -32,7 +33,7 @@ export const POST: RequestHandler = async ({ locals, params, request, url }) => 
 	// SvelteKit gives no body to a request without a Content-Type.
 	if (!request.body)
 		apiError(400, 'empty-file', 'Send the file as the request body, with a Content-Type header.');
-	const fileName = url.searchParams.get('fileName') ?? 'readings.csv';
+	const { fileName } = importUploadQuerySchema.parse(Object.fromEntries(url.searchParams));
 	const result = await api(() => receiveUpload(actor, surveyId, fileName, request.body!));
 	return json(result, { status: 201 });
 };

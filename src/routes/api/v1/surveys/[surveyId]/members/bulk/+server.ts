@@ -1,20 +1,17 @@
 import { json } from '@sveltejs/kit';
-import { z } from 'zod';
 import type { RequestHandler } from './$types';
 import { authorize } from '$lib/server/policy';
 import { readJson } from '$lib/server/http';
 import { createMembers } from '$lib/server/intake/members';
-import { parsePastedMembers } from '$lib/server/intake/pastedMembers';
+import { parsePastedMembers, pastedTableSchema } from '$lib/server/intake/pastedMembers';
 import { scopedSurvey } from '$lib/server/scope';
 import { api, idParam } from '$lib/server/intake/respond';
-
-const bulkSchema = z.object({ table: z.string().min(1, 'Paste a table.').max(1_000_000) });
 
 /** Members from a pasted table, all created or none. */
 export const POST: RequestHandler = async ({ locals, params, request }) => {
 	const actor = authorize(locals, 'member:write');
 	const id = idParam(params.surveyId);
-	const { table } = await readJson(request, bulkSchema);
+	const { table } = await readJson(request, pastedTableSchema);
 	const members = await api(async () => {
 		const { asset } = await scopedSurvey(actor, id, 'write');
 		return createMembers(actor, id, parsePastedMembers(table, asset.designCode), 2);

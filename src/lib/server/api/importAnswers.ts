@@ -1,0 +1,112 @@
+import { z } from 'zod';
+import { IMPORT_STATES } from '../db/migrations/003-readings';
+import type { ImportStatus } from '../import/batchActions';
+import type { UploadResult } from '../import/batches';
+import type { ImportOutcome } from '../import/finish';
+import { columnMappingSchema, importOptionsSchema, READING_FIELDS } from '../import/mapping';
+import { isoTime } from './intakeAnswers';
+
+/**
+ * Shapes of the import routes' answers, for the OpenAPI document. Each is checked against the
+ * code's own type when compiled (`satisfies`), and against the route's answer by the test.
+ */
+type Json<T> = T extends Date
+	? string
+	: T extends (infer U)[]
+		? Json<U>[]
+		: T extends object
+			? { [K in keyof T]: Json<T[K]> }
+			: T;
+
+const state = z.enum(IMPORT_STATES);
+const column = z.number().int().min(0);
+
+const previewSchema = z.object({
+	format: z.enum(['csv', 'xlsx']).describe('Judged from the bytes.'),
+	settings: importOptionsSchema
+		.pick({ encoding: true, delimiter: true, decimalMark: true, headerRowIndex: true })
+		.extend({ mixedDecimalMarks: z.boolean() })
+		.describe('Detected; send them back (changed if need be) in the start options.'),
+	headers: z.array(z.string()),
+	rows: z.array(z.array(z.string())).describe('The first data rows as text.'),
+	suggestedMapping: z.partialRecord(z.enum(READING_FIELDS), column),
+	headerSignature: z.string(),
+	warnings: z.array(z.string())
+});
+
+export const uploadAnswerSchema = z
+	.object({
+		batchId: z
+			.number()
+			.int()
+			.describe('The import; start it with POST /api/v1/imports/{batchId}/start.'),
+		preview: previewSchema,
+		duplicateOf: z
+			.object({
+				batchId: z.number().int(),
+				surveyId: z.number().int(),
+				fileName: z.string().nullable(),
+				importedAt: isoTime,
+				rowsImported: z.number().int()
+			})
+			.nullable()
+			.describe('An earlier completed import of the same bytes (sha256) into this asset.'),
+		templates: z
+			.array(
+				z.object({
+					id: z.number().int(),
+					name: z.string(),
+					mapping: columnMappingSchema,
+					options: importOptionsSchema
+				})
+			)
+			.describe("Your organisation's saved mappings for files with these headers.")
+	})
+	.meta({ id: 'ImportUpload' }) satisfies z.ZodType<Json<UploadResult>>;
+
+export const importStatusSchema = z
+	.object({
+		id: z.number().int(),
+		surveyId: z.number().int(),
+		state,
+		fileName: z.string().nullable(),
+		sourceFormat: z.string().describe('csv, xlsx, or manual (the entry grid).'),
+		rowsTotal: z.number().int(),
+		rowsImported: z.number().int(),
+		rowsRejected: z.number().int(),
+		errorMessage: z.string().nullable(),
+		warnings: z.array(z.string()),
+		hasRejectedRows: z.boolean().describe('GET /api/v1/imports/{batchId}/rejected has them.'),
+		createdAt: isoTime,
+		finishedAt: isoTime.nullable(),
+		progress: z
+			.object({
+				rowsRead: z.number().int(),
+				bytesRead: z.number().int(),
+				bytesTotal: z.number().int(),
+				fraction: z.number().min(0).max(1)
+			})
+			.nullable()
+			.describe('While running; null otherwise.')
+	})
+	.meta({ id: 'ImportStatus' }) satisfies z.ZodType<Json<ImportStatus>>;
+
+export const importStatusAnswerSchema = z.object({ import: importStatusSchema });
+export const importStartedSchema = z.object({
+	import: z.object({ id: z.number().int(), state: z.literal('running') })
+});
+export const cancelRequestedSchema = z.object({ cancelRequested: z.literal(true) });
+export const undoneSchema = z.object({
+	rowsDeleted: z.number().int().describe("Readings removed: exactly the import's.")
+});
+
+export const manualEntryAnswerSchema = z
+	.object({
+		batchId: z.number().int().describe('The entry is an import: it can be undone like one.'),
+		state: z.literal('completed'),
+		message: z.string(),
+		rowsImported: z.number().int(),
+		rowsRejected: z.number().int(),
+		warnings: z.array(z.string())
+	})
+	.meta({ id: 'ManualEntry' }) satisfies z.ZodType<Json<ImportOutcome & { batchId: number }>>;

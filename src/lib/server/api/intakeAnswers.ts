@@ -1,0 +1,73 @@
+import { z } from 'zod';
+import { assetSchema, holeSchema, memberSchema, surveySchema } from '$lib/intake/schemas';
+import { ATTACHMENT_KINDS } from '../db/migrations/003-readings';
+import { SURVEY_STATES } from '../db/migrations/002-surveys';
+
+/**
+ * Shapes of intake's write answers. A saved record is what its create/edit body became (the same
+ * zod schema, its output side) plus what the database adds; the OpenAPI document is generated
+ * from these, and the integration test checks every route's answer against them.
+ */
+export const isoTime = z.iso.datetime().describe('ISO 8601, UTC.');
+const id = (what: string) => z.number().int().describe(`Id of the ${what}.`);
+const saved = { createdAt: isoTime, updatedAt: isoTime };
+
+export const assetRecordSchema = assetSchema
+	.extend({
+		id: id('asset'),
+		organisationId: id('owning organisation'),
+		researchOptIn: z.boolean(),
+		researchOptInChangedAt: isoTime.nullable().optional().describe('Absent on a new asset.'),
+		...saved
+	})
+	.meta({ id: 'AssetRecord' });
+
+export const surveyRecordSchema = surveySchema
+	.extend({
+		id: id('survey'),
+		assetId: id('asset'),
+		surveyorUserId: id('surveyor (user)').nullable(),
+		status: z.enum(SURVEY_STATES),
+		// A new survey's answer holds what was written; these come once it has moved on.
+		statusComment: z.string().nullable().optional().describe("The engineer's comment."),
+		submittedAt: isoTime.nullable().optional(),
+		reviewedAt: isoTime.nullable().optional(),
+		reviewedByUserId: id('reviewing engineer (user)').nullable().optional(),
+		...saved
+	})
+	.meta({ id: 'SurveyRecord' });
+
+export const memberRecordSchema = memberSchema
+	.extend({ id: id('member'), surveyId: id('survey'), assetId: id('asset'), ...saved })
+	.meta({ id: 'MemberRecord' });
+
+export const holeRecordSchema = holeSchema
+	.extend({ id: id('verification hole'), memberId: id('member'), createdAt: isoTime })
+	.meta({ id: 'HoleRecord' });
+
+export const attachmentRecordSchema = z
+	.object({
+		id: id('attachment'),
+		surveyId: id('survey'),
+		memberId: id('member').nullable(),
+		kind: z.enum(ATTACHMENT_KINDS),
+		fileName: z.string().describe('Sanitised on upload.'),
+		contentType: z.string().describe('Judged from the bytes, not from the request.'),
+		byteSize: z.number().int(),
+		sha256: z.string(),
+		storageKey: z.string().describe('Where object storage holds it; download through the API.'),
+		thumbnailKey: z.string().nullable().describe('Images only: a 320 px JPEG.'),
+		caption: z.string().nullable(),
+		uploadedByUserId: id('user').nullable(),
+		createdAt: isoTime
+	})
+	.meta({ id: 'AttachmentRecord' });
+
+export const assetAnswerSchema = z.object({ asset: assetRecordSchema });
+export const surveyAnswerSchema = z.object({ survey: surveyRecordSchema });
+export const memberAnswerSchema = z.object({ member: memberRecordSchema });
+export const holeAnswerSchema = z.object({ hole: holeRecordSchema });
+export const attachmentAnswerSchema = z.object({ attachment: attachmentRecordSchema });
+export const membersCreatedSchema = z.object({
+	created: z.number().int().describe('Members created: every row of the table.')
+});
