@@ -19,7 +19,9 @@ function datasetPath(): string {
 		const path = resolve(dir, DATASET);
 		if (existsSync(path)) return path;
 	}
-	throw new Error(`${DATASET} not found in ${candidates.join(', ')}; set FRACTILE_DATASETS to its folder`);
+	throw new Error(
+		`${DATASET} not found in ${candidates.join(', ')}; set FRACTILE_DATASETS to its folder`
+	);
 }
 
 /** 200 cover readings (mm), from the shared datasets folder. */
