@@ -22,10 +22,10 @@ async function openMemberEdit(page: Page, width: number, height: number) {
 	return members[0];
 }
 
-/** Saves the form and waits for the member's entry page it sends the browser to. */
+/** Saves the form and waits for the member's entry page it sends the browser to, saying so. */
 async function save(page: Page, memberId: number) {
 	await Promise.all([
-		page.waitForURL(`**/members/${memberId}/entry`),
+		page.waitForURL(new RegExp(`/members/${memberId}/entry\\?saved=member$`)),
 		page.getByRole('button', { name: 'Save member' }).click()
 	]);
 }
@@ -102,6 +102,9 @@ describe('intake pages in chromium (the built app)', () => {
 		await screenshot(page, 'edit-member-desktop');
 		await save(page, member.id);
 		await page.getByText('20 / 35 mm').waitFor();
+		expect(await page.getByRole('status').textContent()).toContain(
+			"The member's specified values were saved."
+		);
 		expect((await member.reload()).cMinMm).toBe(20);
 		await screenshot(page, 'edit-member-saved-desktop');
 	});

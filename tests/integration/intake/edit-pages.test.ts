@@ -13,6 +13,7 @@ import {
 	memberSchema,
 	surveySchema
 } from '../../../src/lib/intake/schemas';
+import { SAVED_NOTICES, type SavedWhat } from '../../../src/lib/intake/savedNotice';
 import { formValuesOf } from '../../../src/lib/intake/formValues';
 import { actorFor, testSequelize } from '../../helpers/intake';
 import {
@@ -43,7 +44,7 @@ const KINDS: Record<'asset' | 'survey' | 'member' | 'hole', Kind> = {
 		record: (r) => r.asset,
 		schema: assetSchema,
 		page: (r) => `/assets/${r.asset.id}/edit`,
-		after: (r) => `/assets/${r.asset.id}`,
+		after: (r) => `/assets/${r.asset.id}?saved=asset`,
 		subject: (r) => ['asset', r.asset.id],
 		change: { field: 'designServiceLifeYears', typed: '100', stored: 100 },
 		bad: {
@@ -57,7 +58,7 @@ const KINDS: Record<'asset' | 'survey' | 'member' | 'hole', Kind> = {
 		record: (r) => r.survey,
 		schema: surveySchema,
 		page: (r) => `/surveys/${r.survey.id}/edit`,
-		after: (r) => `/surveys/${r.survey.id}`,
+		after: (r) => `/surveys/${r.survey.id}?saved=survey`,
 		subject: (r) => ['survey', r.survey.id],
 		change: {
 			field: 'title',
@@ -75,7 +76,7 @@ const KINDS: Record<'asset' | 'survey' | 'member' | 'hole', Kind> = {
 		record: (r) => r.member,
 		schema: memberSchema,
 		page: (r) => `/members/${r.member.id}/edit`,
-		after: (r) => `/members/${r.member.id}/entry`,
+		after: (r) => `/members/${r.member.id}/entry?saved=member`,
 		subject: (r) => ['member', r.member.id],
 		// Lowered: 22.5 + Δc_dev 10 stays within c_nom 35 mm (EN 1992-1-1 (4.1)); 32.5 would not.
 		change: { field: 'cMinMm', typed: '22,5', stored: 22.5 },
@@ -86,7 +87,7 @@ const KINDS: Record<'asset' | 'survey' | 'member' | 'hole', Kind> = {
 		record: (r) => r.hole,
 		schema: holeSchema,
 		page: (r) => `/holes/${r.hole.id}/edit`,
-		after: (r) => `/members/${r.member.id}/entry`,
+		after: (r) => `/members/${r.member.id}/entry?saved=hole`,
 		subject: (r) => ['member', r.member.id],
 		change: { field: 'measuredCoverMm', typed: '34.5', stored: 34.5 },
 		bad: { field: 'meterReadingMm', typed: '-3', message: 'Meter reading must be at least 0.' }
@@ -128,6 +129,9 @@ describe.each(Object.entries(KINDS))('editing a %s through its page', (name, kin
 		const saved = await save(kind, r, { [field]: typed });
 		expect(saved.status).toBe(303);
 		expect(saved.headers.get('location')).toBe(kind.after(r));
+		// The page it returns to says so, in the words kept for that record (savedNotice.ts).
+		const shown = await (await clients[kind.role].get(kind.after(r))).text();
+		expect(shown).toContain(SAVED_NOTICES[name as SavedWhat]);
 		expect(await stored(kind, r, field)).toBe(kind.change.stored);
 		const [type, id] = kind.subject(r);
 		const events = await auditOf(`${name}.updated`, type, id);

@@ -19,7 +19,7 @@ describe('deleting a hole through its page', () => {
 		expect(page).toContain('Delete this hole');
 		const response = await session.surveyor.postForm(`/holes/${hole.id}/edit?/delete`);
 		expect(response.status).toBe(303);
-		expect(response.headers.get('location')).toBe(`/members/${member.id}/entry`);
+		expect(response.headers.get('location')).toBe(`/members/${member.id}/entry?saved=hole-deleted`);
 		expect(await VerificationHole.findByPk(hole.id)).toBeNull();
 		const [event] = await auditOf('hole.deleted', 'member', member.id);
 		expect(event.detail).toMatchObject({ holeId: hole.id, label: 'H1', measuredCoverMm: 33 });

@@ -5,6 +5,7 @@ import { formValuesOf } from '$lib/intake/formValues';
 import { updateAsset } from '$lib/server/intake/assets';
 import { loadOr404, savingAction } from '$lib/server/intake/pages';
 import { idParam } from '$lib/server/intake/respond';
+import { withSavedNotice } from '$lib/intake/savedNotice';
 import { scopedAsset } from '$lib/server/scope';
 
 /** An asset's own details; a shared asset is read-only to its guests (403). */
@@ -24,6 +25,6 @@ export const actions = {
 		assetSchema,
 		(actor, input, params: { assetId: string }) =>
 			updateAsset(actor, idParam(params.assetId), input),
-		(asset) => `/assets/${asset.id}`
+		(asset) => withSavedNotice(`/assets/${asset.id}`, 'asset')
 	)
 } satisfies Actions;

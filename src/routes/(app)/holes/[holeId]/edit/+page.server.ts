@@ -7,6 +7,7 @@ import { deleteHole, updateHole } from '$lib/server/intake/holes';
 import { frozenReason } from '$lib/server/intake/frozen';
 import { loadOr404, savingAction } from '$lib/server/intake/pages';
 import { idParam } from '$lib/server/intake/respond';
+import { withSavedNotice } from '$lib/intake/savedNotice';
 import { scopedHole } from '$lib/server/scope';
 
 /** A verification hole to correct or delete, while its survey is a draft or returned. */
@@ -27,12 +28,12 @@ export const actions = {
 		'hole:write',
 		holeSchema,
 		(actor, input, params: { holeId: string }) => updateHole(actor, idParam(params.holeId), input),
-		(hole) => `/members/${hole.memberId}/entry`
+		(hole) => withSavedNotice(`/members/${hole.memberId}/entry`, 'hole')
 	),
 	delete: savingAction(
 		'hole:write',
 		z.object({}),
 		(actor, _input, params: { holeId: string }) => deleteHole(actor, idParam(params.holeId)),
-		(deleted) => `/members/${deleted.memberId}/entry`
+		(deleted) => withSavedNotice(`/members/${deleted.memberId}/entry`, 'hole-deleted')
 	)
 } satisfies Actions;

@@ -6,6 +6,7 @@ import { updateMember } from '$lib/server/intake/members';
 import { frozenReason } from '$lib/server/intake/frozen';
 import { loadOr404, savingAction } from '$lib/server/intake/pages';
 import { idParam } from '$lib/server/intake/respond';
+import { withSavedNotice } from '$lib/intake/savedNotice';
 import { scopedMember } from '$lib/server/scope';
 
 /** Every specified value of a member, editable while its survey is a draft or returned. */
@@ -27,6 +28,6 @@ export const actions = {
 		memberSchema,
 		(actor, input, params: { memberId: string }) =>
 			updateMember(actor, idParam(params.memberId), input),
-		(member) => `/members/${member.id}/entry`
+		(member) => withSavedNotice(`/members/${member.id}/entry`, 'member')
 	)
 } satisfies Actions;

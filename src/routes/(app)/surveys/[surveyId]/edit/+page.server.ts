@@ -6,6 +6,7 @@ import { updateSurvey } from '$lib/server/intake/surveys';
 import { frozenReason } from '$lib/server/intake/frozen';
 import { loadOr404, savingAction } from '$lib/server/intake/pages';
 import { idParam } from '$lib/server/intake/respond';
+import { withSavedNotice } from '$lib/intake/savedNotice';
 import { scopedSurvey } from '$lib/server/scope';
 
 /** A survey's details (title, date, meter), editable while it is a draft or returned. */
@@ -26,6 +27,6 @@ export const actions = {
 		surveySchema,
 		(actor, input, params: { surveyId: string }) =>
 			updateSurvey(actor, idParam(params.surveyId), input),
-		(survey) => `/surveys/${survey.id}`
+		(survey) => withSavedNotice(`/surveys/${survey.id}`, 'survey')
 	)
 } satisfies Actions;
