@@ -83,6 +83,60 @@ describe('import of XLSX files and text encodings', () => {
 		await expectUploadRefused(bomb, 'bomb.xlsx', /would unpack to 40 MB \(\d+ times its size\)/);
 	});
 
+	it('writes each mapped column to its own field, in any column order, and leaves the rest empty', async () => {
+		const { survey } = await freshSurvey(actor);
+		// Every field, the file's columns in an order unlike the table's; a quoted note with the
+		// delimiter and a backslash (RFC 4180 quoting; LOAD DATA's escape character is '\\').
+		const mapping = columnMappingSchema.parse({
+			note: 0,
+			cover: 1,
+			spacing: 2,
+			memberLabel: 3,
+			direction: 4,
+			diameter: 5,
+			y: 6,
+			x: 7
+		});
+		const all = await importFile(
+			actor,
+			survey.id,
+			'all-fields.csv',
+			'Note,Cover,Spacing,Member,Layer,Bar,Y,X\n' +
+				'"by the joint, C:\\deck",31.5,150,M-01,top,16,200,100\n' +
+				',29,,M-02,,,,\n',
+			mapping
+		);
+		expect(all.outcome.state).toBe('completed');
+		// A file of covers only, every row for one member.
+		const coversOnly = await importFile(
+			actor,
+			survey.id,
+			'covers.csv',
+			'Cover\n27.25\n',
+			columnMappingSchema.parse({ cover: 0 }),
+			{ fixedMemberLabel: 'M-01' }
+		);
+		expect(coversOnly.outcome.state).toBe('completed');
+		const rows = await Reading.findAll({
+			where: { importBatchId: [all.batch.id, coversOnly.batch.id] },
+			order: [['id', 'ASC']]
+		});
+		const fields = (r: Reading) => [
+			r.coverMm,
+			r.xMm,
+			r.yMm,
+			r.barDiameterMm,
+			r.barSpacingMm,
+			r.barDirection,
+			r.note
+		];
+		expect(rows.map(fields)).toEqual([
+			[31.5, 100, 200, 16, 150, 'top', 'by the joint, C:\\deck'],
+			[29, null, null, null, null, null, null],
+			[27.25, null, null, null, null, null, null]
+		]);
+	});
+
 	it('reads Windows-1252 and UTF-8 with BOM', async () => {
 		const { survey } = await freshSurvey(actor);
 		const mapping = columnMappingSchema.parse({ memberLabel: 0, cover: 1, note: 2 });

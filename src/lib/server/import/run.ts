@@ -13,7 +13,14 @@ import { csvRecordBatches, xlsxRecordBatches } from './sources';
 import type { SourceFormat } from './sniff';
 import { createRowValidator, labelKey } from './validateRow';
 import { CoverCollector } from '../readings/coverSetCodec';
-import { chooseWriteMethod, connectionOf, ReadingWriter, type WriteMethod } from './writer';
+import {
+	chooseWriteMethod,
+	connectionOf,
+	OPTIONAL_COLUMNS,
+	ReadingWriter,
+	type OptionalColumn,
+	type WriteMethod
+} from './writer';
 import { finishImport, type ImportOutcome } from './finish';
 
 export interface ImportJob {
@@ -58,6 +65,19 @@ function recordBatches(job: ImportJob, tally: ImportTally): AsyncGenerator<strin
 	return job.format === 'xlsx'
 		? xlsxRecordBatches(counter)
 		: csvRecordBatches(counter, job.options);
+}
+
+/** The reading columns the file fills: the rest stay NULL and are left out of the chunk files. */
+function mappedColumns(mapping: ColumnMapping): OptionalColumn[] {
+	const fieldOf: Record<OptionalColumn, keyof ColumnMapping> = {
+		xMm: 'x',
+		yMm: 'y',
+		barDiameterMm: 'diameter',
+		barSpacingMm: 'spacing',
+		barDirection: 'direction',
+		note: 'note'
+	};
+	return OPTIONAL_COLUMNS.filter((column) => mapping[fieldOf[column]] != null);
 }
 
 function isBlank(cells: string[]): boolean {
@@ -161,7 +181,8 @@ export async function runImport(job: ImportJob): Promise<ImportOutcome> {
 			method,
 			job.batchId,
 			job.flags ?? 0,
-			method === 'load-data' ? IMPORT_LIMITS.loadDataChunkRows : IMPORT_LIMITS.insertChunkRows
+			method === 'load-data' ? IMPORT_LIMITS.loadDataChunkRows : IMPORT_LIMITS.insertChunkRows,
+			mappedColumns(job.mapping)
 		);
 		const connectionId = connection.threadId ?? undefined;
 		await tickProgress(job.batchId, tally, connectionId);

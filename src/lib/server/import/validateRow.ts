@@ -22,7 +22,23 @@ export const labelKey = (label: string) => label.trim().toLowerCase();
 
 const LENGTH_FIELDS = ['x', 'y', 'cover', 'diameter', 'spacing'] as const;
 
-function readingSchema(coverMaxMm: number) {
+type ReadingSchema = ReturnType<typeof readingSchema>;
+type ReadingKey = keyof ReadingSchema['shape'];
+
+/** Each field and the key the schema checks it under, in the order problems are reported. */
+const SCHEMA_KEYS: [ReadingField, ReadingKey][] = [
+	['memberLabel', 'memberLabel'],
+	['cover', 'coverMm'],
+	['x', 'xMm'],
+	['y', 'yMm'],
+	['diameter', 'barDiameterMm'],
+	['spacing', 'barSpacingMm'],
+	['direction', 'barDirection'],
+	['note', 'note']
+];
+
+/** The rules of one reading, field by field. */
+export function readingSchema(coverMaxMm: number) {
 	const length = (label: string, min: number, max: number) =>
 		z
 			.number({ error: `${label} is not a number` })
@@ -50,16 +66,65 @@ function readingSchema(coverMaxMm: number) {
 	});
 }
 
+/** What zod said about one value: nothing (it passes) or the first problem. */
+type FieldVerdict = { code: string; reason: string } | null;
+
+/** Distinct values remembered per field; past this a field's answers are no longer kept. */
+const REMEMBERED_VALUES = 50_000;
+
+/**
+ * One field's zod schema with its answers remembered by value. A schema is a pure function of
+ * the value (no transforms, no context), so a value seen before gets the same answer without
+ * running zod again: cover meters repeat values (a 0.1 mm resolution, a few hundred labels and
+ * grid positions), and zod's per-call work was ≈ 2 s of a million-row import (docs/performance.md).
+ */
+function rememberingCheck(key: ReadingKey, schema: z.ZodType) {
+	const answers = new Map<string | number | null, FieldVerdict>();
+	return (value: string | number | null): FieldVerdict => {
+		const known = answers.get(value);
+		if (known !== undefined) return known;
+		const parsed = schema.safeParse(value);
+		const issue = parsed.success ? null : parsed.error.issues[0];
+		const verdict = issue ? { code: `${key}.${issue.code}`, reason: issue.message } : null;
+		if (answers.size < REMEMBERED_VALUES) answers.set(value, verdict);
+		return verdict;
+	};
+}
+
 /**
  * Turns one record of text cells into a reading, or says in plain words what is wrong with it.
- * Numbers are read with the file's decimal mark, converted to mm, then checked by zod.
+ * Numbers are read with the file's decimal mark and converted to mm; then every mapped field is
+ * checked by its zod schema (readingSchema), and the label must name a member of the survey.
+ * Unmapped fields are null by construction and not checked.
  */
 export function createRowValidator(
 	mapping: ColumnMapping,
 	options: ImportOptions,
 	members: ReadonlyMap<string, number>
 ): (cells: readonly string[]) => RowResult {
-	const schema = readingSchema(options.coverMaxMm);
+	const shape = readingSchema(options.coverMaxMm).shape;
+	const isMapped = (field: ReadingField) => field === 'memberLabel' || mapping[field] != null;
+	const checks = new Map(
+		SCHEMA_KEYS.filter(([field]) => isMapped(field)).map(([, key]) => [
+			key,
+			rememberingCheck(key, shape[key])
+		])
+	);
+	const noCheck = () => null;
+	const checkOf = (key: ReadingKey) => checks.get(key) ?? noCheck;
+	const [
+		checkLabel,
+		checkCover,
+		checkX,
+		checkY,
+		checkDiameter,
+		checkSpacing,
+		checkDirection,
+		checkNote
+	] = SCHEMA_KEYS.map(([, key]) => checkOf(key));
+	const [mappedX, mappedY, mappedDiameter, mappedSpacing, mappedDirection, mappedNote] = (
+		['x', 'y', 'diameter', 'spacing', 'direction', 'note'] as const
+	).map(isMapped);
 	const factor = options.units === 'inch' ? MM_PER_INCH : 1;
 	const widthNeeded = Math.max(...Object.values(mapping).map((c) => (c ?? -1) + 1));
 	const cell = (cells: readonly string[], field: ReadingField) => {
@@ -76,6 +141,8 @@ export function createRowValidator(
 				: 'is not a number';
 		return { code: `${field}.${value}`, reason: `${FIELD_LABELS[field]} "${raw}" ${what}` };
 	};
+	/** Member ids by the label as written (labelKey folds case and spaces once per label). */
+	const memberIdOf = new Map<string, number | undefined>();
 	return (cells) => {
 		if (cells.length < widthNeeded) {
 			return {
@@ -85,10 +152,10 @@ export function createRowValidator(
 			};
 		}
 		const coverMm = readLength(cells, 'cover');
-		const xMm = readLength(cells, 'x');
-		const yMm = readLength(cells, 'y');
-		const barDiameterMm = readLength(cells, 'diameter');
-		const barSpacingMm = readLength(cells, 'spacing');
+		const xMm = mappedX ? readLength(cells, 'x') : null;
+		const yMm = mappedY ? readLength(cells, 'y') : null;
+		const barDiameterMm = mappedDiameter ? readLength(cells, 'diameter') : null;
+		const barSpacingMm = mappedSpacing ? readLength(cells, 'spacing') : null;
 		for (const v of [coverMm, xMm, yMm, barDiameterMm, barSpacingMm]) {
 			if (v !== null && typeof v === 'object') return { ok: false, ...v };
 		}
@@ -96,22 +163,23 @@ export function createRowValidator(
 			mapping.memberLabel == null
 				? (options.fixedMemberLabel ?? '')
 				: cell(cells, 'memberLabel').trim();
-		const candidate = {
-			memberLabel,
-			coverMm,
-			xMm,
-			yMm,
-			barDiameterMm,
-			barSpacingMm,
-			barDirection: cell(cells, 'direction').trim() || null,
-			note: cell(cells, 'note').trim() || null
-		};
-		const parsed = schema.safeParse(candidate);
-		if (!parsed.success) {
-			const issue = parsed.error.issues[0];
-			return { ok: false, code: `${String(issue.path[0])}.${issue.code}`, reason: issue.message };
+		const barDirection = mappedDirection ? cell(cells, 'direction').trim() || null : null;
+		const note = mappedNote ? cell(cells, 'note').trim() || null : null;
+		const problem =
+			checkLabel(memberLabel) ??
+			checkCover(coverMm as number | null) ??
+			checkX(xMm as number | null) ??
+			checkY(yMm as number | null) ??
+			checkDiameter(barDiameterMm as number | null) ??
+			checkSpacing(barSpacingMm as number | null) ??
+			checkDirection(barDirection) ??
+			checkNote(note);
+		if (problem) return { ok: false, code: problem.code, reason: problem.reason };
+		let memberId = memberIdOf.get(memberLabel);
+		if (memberId === undefined && !memberIdOf.has(memberLabel)) {
+			memberId = members.get(labelKey(memberLabel));
+			if (memberIdOf.size < REMEMBERED_VALUES) memberIdOf.set(memberLabel, memberId);
 		}
-		const memberId = members.get(labelKey(memberLabel));
 		if (memberId === undefined) {
 			return {
 				ok: false,
@@ -119,18 +187,17 @@ export function createRowValidator(
 				reason: `member label "${memberLabel}" is not a member of this survey (add the member first, or check the label)`
 			};
 		}
-		const r = parsed.data;
 		return {
 			ok: true,
 			reading: {
 				memberId,
-				xMm: r.xMm,
-				yMm: r.yMm,
-				coverMm: r.coverMm,
-				barDiameterMm: r.barDiameterMm,
-				barSpacingMm: r.barSpacingMm,
-				barDirection: r.barDirection,
-				note: r.note
+				xMm: xMm as number | null,
+				yMm: yMm as number | null,
+				coverMm: coverMm as number,
+				barDiameterMm: barDiameterMm as number | null,
+				barSpacingMm: barSpacingMm as number | null,
+				barDirection,
+				note
 			}
 		};
 	};

@@ -1,0 +1,104 @@
+import { describe, expect, it } from 'vitest';
+import type { ColumnMapping, ImportOptions } from './mapping';
+import { createRowValidator, readingSchema } from './validateRow';
+
+const mapping: ColumnMapping = {
+	memberLabel: 0,
+	x: 1,
+	y: 2,
+	cover: 3,
+	diameter: 4,
+	spacing: null,
+	direction: 5,
+	note: null
+};
+const options = {
+	units: 'mm',
+	failingRows: 'import-valid',
+	coverMaxMm: 300,
+	acceptSmallCovers: false,
+	fixedMemberLabel: null,
+	encoding: 'utf-8',
+	delimiter: ',',
+	decimalMark: '.',
+	headerRowIndex: 0
+} as ImportOptions;
+const members = new Map([['d-01', 11]]);
+
+/** The schema's own verdict on a row's values, run fresh each time: what the validator must say. */
+function zodVerdict(values: Record<string, unknown>) {
+	const parsed = readingSchema(options.coverMaxMm)
+		.partial({ barSpacingMm: true, note: true })
+		.safeParse(values);
+	if (parsed.success) return null;
+	const issue = parsed.error.issues[0];
+	return { code: `${String(issue.path[0])}.${issue.code}`, reason: issue.message };
+}
+
+const withoutLabel = ({ memberLabel: _label, ...rest }: Record<string, unknown>) => rest;
+
+describe('checking a row of an import', () => {
+	it('gives zod’s answer for every row, the first time a value is seen and every time after', () => {
+		const validate = createRowValidator(mapping, options, members);
+		// Values on both sides of each limit, repeated so that remembered answers are used.
+		const covers = ['-0.1', '0', '45.5', '300', '300.1'];
+		const diameters = ['', '0.5', '1', '16', '100', '101'];
+		const directions = ['', 'top', 'a direction far too long'];
+		for (let pass = 0; pass < 2; pass++)
+			for (const cover of covers)
+				for (const diameter of diameters)
+					for (const direction of directions) {
+						const cells = ['D-01', '100', '200', cover, diameter, direction];
+						const values = {
+							memberLabel: 'D-01',
+							xMm: 100,
+							yMm: 200,
+							coverMm: Number(cover),
+							barDiameterMm: diameter === '' ? null : Number(diameter),
+							barDirection: direction || null
+						};
+						const expected = zodVerdict(values);
+						const result = validate(cells);
+						if (expected === null) {
+							expect(result).toEqual({
+								ok: true,
+								reading: { ...withoutLabel(values), memberId: 11, barSpacingMm: null, note: null }
+							});
+						} else {
+							expect(result).toEqual({ ok: false, ...expected });
+						}
+					}
+	});
+
+	it('names the cell that is not a number before any range, and an unknown member after', () => {
+		const validate = createRowValidator(mapping, options, members);
+		expect(validate(['D-01', 'ten', '0', '500', '', ''])).toEqual({
+			ok: false,
+			code: 'x.not-a-number',
+			reason: 'x "ten" is not a number'
+		});
+		expect(validate(['D-01', '0', '0', '500', '', ''])).toMatchObject({
+			ok: false,
+			code: 'coverMm.too_big'
+		});
+		expect(validate(['d-01 ', '0', '0', '40', '', ''])).toMatchObject({
+			ok: true,
+			reading: { memberId: 11 }
+		});
+		expect(validate(['D-99', '0', '0', '40', '', ''])).toMatchObject({
+			ok: false,
+			code: 'member.unknown'
+		});
+		expect(validate(['D-01', '0', '0'])).toMatchObject({ ok: false, code: 'width' });
+	});
+
+	it('converts inches to mm before the limits are checked (1 in = 25.4 mm)', () => {
+		const validate = createRowValidator(mapping, { ...options, units: 'inch' }, members);
+		expect(validate(['D-01', '1', '2', '2', '', ''])).toMatchObject({
+			ok: true,
+			reading: { xMm: 25.4, yMm: 50.8, coverMm: 50.8 }
+		});
+		// 12 in = 304.8 mm, above the 300 mm limit.
+		expect(validate(['D-01', '1', '2', '12', '', ''])).toMatchObject({ code: 'coverMm.too_big' });
+	});
+});
