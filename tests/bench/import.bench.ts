@@ -20,6 +20,11 @@ import { startBuiltApp } from '../helpers/server';
 import { DEMO_PASSWORD, signIn } from '../helpers/session';
 
 const ROWS = Number(process.env.BENCH_ROWS ?? 1_000_000);
+/**
+ * BENCH_COLUMNS=all adds bar diameter, bar spacing, direction or layer and a note to every row
+ * (a meter export with everything filled); the default is member, x, y and cover.
+ */
+const ALL_COLUMNS = process.env.BENCH_COLUMNS === 'all';
 const MEMBERS = 100;
 const dir = join(process.cwd(), '.local', 'bench');
 
@@ -38,6 +43,12 @@ const label = (i: number) => `B-${String(1 + (i % MEMBERS)).padStart(3, '0')}`;
 const coverMm = (i: number) => (20 + ((i * 7919) % 400) / 10).toFixed(1);
 const xMm = (i: number) => (Math.floor(i / MEMBERS) % 1000) * 10;
 const yMm = (i: number) => Math.floor(i / (MEMBERS * 1000)) * 10;
+const extras = (i: number) => [
+	[10, 12, 16, 20][i % 4],
+	150 + (i % 3) * 50,
+	i % 2 ? 'top' : 'bottom',
+	i % 10 === 0 ? `scan ${i % 97}` : ''
+];
 
 /**
  * Waits until InnoDB has purged what earlier runs deleted (the history list is short), so a
@@ -66,10 +77,13 @@ const { survey, members } = await freshSurvey(actor, labels);
 const csvPath = join(dir, 'readings-1m.csv');
 await writeLines(
 	csvPath,
-	'Member,X (mm),Y (mm),Cover (mm)',
-	(i) => `${label(i)},${xMm(i)},${yMm(i)},${coverMm(i)}`
+	'Member,X (mm),Y (mm),Cover (mm)' + (ALL_COLUMNS ? ',Bar (mm),Spacing (mm),Layer,Note' : ''),
+	(i) =>
+		`${label(i)},${xMm(i)},${yMm(i)},${coverMm(i)}${ALL_COLUMNS ? `,${extras(i).join(',')}` : ''}`
 );
-console.log(`generated ${ROWS} rows in ${csvPath}`);
+console.log(
+	`generated ${ROWS} rows (${ALL_COLUMNS ? 'all eight fields' : 'member, x, y, cover'}) in ${csvPath}`
+);
 
 // The app's import path, end to end: the built app over HTTP, as the import page uses it.
 const app = await startBuiltApp({
@@ -106,7 +120,13 @@ const sampler = setInterval(
 	100
 );
 const start = await client.postJson(`/api/v1/imports/${upload.batchId}/start`, {
-	mapping: { memberLabel: 0, x: 1, y: 2, cover: 3 },
+	mapping: {
+		memberLabel: 0,
+		x: 1,
+		y: 2,
+		cover: 3,
+		...(ALL_COLUMNS ? { diameter: 4, spacing: 5, direction: 6, note: 7 } : {})
+	},
 	options: detected,
 	confirmDuplicate: true
 });
@@ -142,7 +162,13 @@ const tsvPath = join(dir, 'readings-1m.tsv');
 await writeLines(
 	tsvPath,
 	null,
-	(i) => `${idOf.get(label(i))}\t${xMm(i)}\t${yMm(i)}\t${coverMm(i)}`
+	(i) =>
+		`${idOf.get(label(i))}\t${xMm(i)}\t${yMm(i)}\t${coverMm(i)}` +
+		(ALL_COLUMNS
+			? `\t${extras(i)
+					.map((v) => (v === '' ? '\\N' : v))
+					.join('\t')}`
+			: '')
 );
 const loadBatch = await ImportBatch.create({
 	surveyId: survey.id,
@@ -160,7 +186,7 @@ const connection = await mariadb.createConnection({
 started = performance.now();
 await connection.beginTransaction();
 await connection.query(
-	`LOAD DATA LOCAL INFILE ? INTO TABLE readings FIELDS TERMINATED BY '\\t' (member_id, x_mm, y_mm, cover_mm) SET import_batch_id = ?, flags = 0`,
+	`LOAD DATA LOCAL INFILE ? INTO TABLE readings FIELDS TERMINATED BY '\\t' (member_id, x_mm, y_mm, cover_mm${ALL_COLUMNS ? ', bar_diameter_mm, bar_spacing_mm, bar_direction, note' : ''}) SET import_batch_id = ?, flags = 0`,
 	[tsvPath, loadBatch.id]
 );
 await connection.commit();
