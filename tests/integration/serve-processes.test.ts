@@ -4,6 +4,7 @@
  */
 import { spawn } from 'node:child_process';
 import { readFileSync } from 'node:fs';
+import { get } from 'node:http';
 import { afterAll, describe, expect, it } from 'vitest';
 import { freePort } from '../helpers/server';
 import { until } from '../helpers/until';
@@ -31,7 +32,15 @@ describe('the built app as several processes (scripts/serve.mjs)', () => {
 			env: { ...process.env, WEB_CONCURRENCY: '2', PORT: String(port), ORIGIN: origin },
 			stdio: 'ignore'
 		});
-		const health = async () => (await fetch(`${origin}/api/health`).catch(() => null))?.status;
+		// A new connection for each request: fetch would reuse a kept-alive socket, and one held by
+		// the worker killed below dies with it, which says nothing about the workers serving.
+		const health = () =>
+			new Promise<number | undefined>((resolve) => {
+				get(`${origin}/api/health`, { agent: false }, (response) => {
+					response.resume();
+					resolve(response.statusCode);
+				}).on('error', () => resolve(undefined));
+			});
 		await until('the app answers', async () => (await health()) === 200);
 		const workers = await until('two workers', async () => {
 			const pids = childrenOf(primary!.pid!);
