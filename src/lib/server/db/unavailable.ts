@@ -1,4 +1,4 @@
-import { ConnectionError } from 'sequelize';
+import { BaseError, ConnectionError } from 'sequelize';
 
 /** mariadb connector codes that mean "no database to talk to", not "this query was wrong". */
 const CONNECTION_CODES = new Set([
@@ -14,16 +14,27 @@ const CONNECTION_CODES = new Set([
 	'ER_SERVER_SHUTDOWN'
 ]);
 
+/** An error raised by the database layer: one of Sequelize's, or the mariadb connector's. */
+function fromDatabaseLayer(err: unknown): boolean {
+	return err instanceof BaseError || (err as { name?: string }).name === 'SqlError';
+}
+
 /**
  * True when an error says the database cannot be reached (refused, closed, timed out, shutting
  * down): the request then answers 503 and the pool reconnects by itself once MariaDB is back.
+ * A connection code counts only under an error of the database layer: object storage or mail
+ * refusing a connection raises the same ECONNREFUSED, and is not the database being down.
  */
 export function isDatabaseUnavailable(err: unknown): boolean {
 	if (err instanceof ConnectionError) return true;
+	let underDatabase = false;
 	for (let e: unknown = err, depth = 0; e && depth < 4; depth++) {
-		const code = (e as { code?: string }).code;
-		if (code && CONNECTION_CODES.has(code)) return true;
-		if ((e as { fatal?: boolean }).fatal === true) return true;
+		underDatabase ||= fromDatabaseLayer(e);
+		if (underDatabase) {
+			const code = (e as { code?: string }).code;
+			if (code && CONNECTION_CODES.has(code)) return true;
+			if ((e as { fatal?: boolean }).fatal === true) return true;
+		}
 		e =
 			(e as { parent?: unknown; original?: unknown; cause?: unknown }).parent ??
 			(e as { original?: unknown }).original ??
