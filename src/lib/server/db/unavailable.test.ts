@@ -1,11 +1,15 @@
-import { SqlError } from 'mariadb';
+import { SqlError, type SqlError as SqlErrorType } from 'mariadb';
 import { ConnectionRefusedError, DatabaseError, UniqueConstraintError } from 'sequelize';
 import { describe, expect, it } from 'vitest';
 import { isDatabaseUnavailable } from './unavailable';
 
-/** A connector error as mariadb 3 makes them: (message, sql, fatal, info, sqlState, errno). */
+/**
+ * A connector error as mariadb 3.0 makes them: (message, sql, fatal, info, sqlState, errno) in
+ * lib/misc/errors.js; its type declaration leaves out `sql`, hence the cast.
+ */
+const RuntimeSqlError = SqlError as unknown as new (...args: unknown[]) => SqlErrorType;
 const connectorError = (errno: number, fatal: boolean) =>
-	new SqlError('test', null, fatal, null, 'HY000', errno);
+	new RuntimeSqlError('test', null, fatal, null, 'HY000', errno);
 
 /** A Node system error, as a refused TCP connection raises it (node:net). */
 const refused = (port: number) =>
