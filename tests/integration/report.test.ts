@@ -6,6 +6,7 @@ import type { Assessment } from '../../src/lib/server/db/models';
 import { testSequelize } from '../helpers/database';
 import { approvedCarParkAssessment, strangerOwner } from '../helpers/assessments';
 import { signIn, signInAs } from '../helpers/session';
+import { overlappingLines, textLines } from '../helpers/pdfLayout';
 
 const OUT = 'test-results';
 
@@ -55,7 +56,7 @@ describe('the report PDF of the demo car-park assessment', () => {
 		]) {
 			expect(t).toContain(words);
 		}
-		expect(t).toMatch(/Verdict: (Fail|Pass|Not enough data)/);
+		expect(t).toMatch(/Verdict: (Does not comply|Complies|Too few readings)/);
 		expect(t).toContain('Act now');
 		expect(t).toContain('Decision support, not a decision.');
 		expect(t).toContain('licensed engineer decide');
@@ -79,6 +80,35 @@ describe('the report PDF of the demo car-park assessment', () => {
 			env: { ...process.env, TZ: 'UTC' }
 		});
 		expect(info).toMatch(/CreationDate:\s+Fri Jan 16 10:00:00 2026/);
+	});
+
+	it('prints no line of text over another on any page (pdftotext -bbox-layout)', () => {
+		const lines = textLines(first);
+		expect(lines.length).toBeGreaterThan(100);
+		const clashes = overlappingLines(lines).map(
+			([a, b]) => `page ${a.page}: “${a.text}” over “${b.text}”`
+		);
+		expect(clashes).toEqual([]);
+	});
+
+	it('prints mathematical signs as signs, not spelt out or as question marks', () => {
+		const t = text(first);
+		expect(t).toContain('k·√t');
+		expect(t).toContain('Φ⁻¹');
+		expect(t).toContain('β');
+		expect(t).not.toMatch(/sqrt|Phi\?|\?¹/);
+	});
+
+	it('lists the surveys with their states and a signatory block', () => {
+		const t = text(first);
+		expect(t).toMatch(
+			/Surveys?\s+.*\((\d{4}-\d{2}-\d{2}); (approved|submitted, not yet approved|draft)/
+		);
+		expect(t).toContain('Signatory');
+		expect(t).toContain('Kestrel Lane Consulting');
+		expect(t).toMatch(/Approved by\s+\S/);
+		expect(t).toMatch(/Verdict: (Complies|Does not comply|Too few readings)/);
+		expect(t).not.toMatch(/Verdict: (Pass|Fail)\b/);
 	});
 
 	it('renders page 1 to a PNG kept with the test results', () => {

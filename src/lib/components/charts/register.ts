@@ -39,17 +39,5 @@ Chart.register(
 	BoxAndWiskers
 );
 
-/** Okabe–Ito colours (Okabe & Ito 2008), colour-blind safe; lines also differ by dash. */
-export const OKABE_ITO = {
-	black: '#000000',
-	orange: '#e69f00',
-	sky: '#56b4e9',
-	green: '#009e73',
-	yellow: '#f0e442',
-	blue: '#0072b2',
-	vermillion: '#d55e00',
-	purple: '#cc79a7'
-};
-
-export const AXIS_TEXT = '#24292b';
+export { AXIS_TEXT, OKABE_ITO } from '$lib/charts/palette';
 export { Chart };

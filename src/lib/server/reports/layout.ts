@@ -1,6 +1,6 @@
 /**
  * A small writer over pdfkit: headings, paragraphs, key–value lists and tables that break
- * across pages. All text goes through pdfText (Helvetica's character set).
+ * across pages, in the report's own typeface (fonts.ts), which prints √, ≤, Δ, β and Φ⁻¹.
  */
 import type PDFDocument from 'pdfkit';
 import { pdfText } from './text';
@@ -24,7 +24,7 @@ export class ReportWriter {
 		this.ensureSpace(60);
 		this.doc.moveDown(level === 1 ? 0.8 : 0.5);
 		this.doc
-			.font('Helvetica-Bold')
+			.font('Body-Bold')
 			.fontSize(level === 1 ? 16 : 12)
 			.fillColor('#111111');
 		this.doc.text(pdfText(text), MARGIN, this.doc.y, { width: this.width });
@@ -33,7 +33,7 @@ export class ReportWriter {
 
 	paragraph(text: string, options: { size?: number; bold?: boolean } = {}): void {
 		this.doc
-			.font(options.bold ? 'Helvetica-Bold' : 'Helvetica')
+			.font(options.bold ? 'Body-Bold' : 'Body')
 			.fontSize(options.size ?? 10)
 			.fillColor('#222222');
 		this.ensureSpace(this.doc.heightOfString(pdfText(text), { width: this.width }) + 4);
@@ -44,16 +44,20 @@ export class ReportWriter {
 	keyValues(rows: [string, string][]): void {
 		const keyWidth = 150;
 		for (const [key, value] of rows) {
-			this.doc.fontSize(10);
-			const height = Math.max(
-				14,
-				this.doc.heightOfString(pdfText(value), { width: this.width - keyWidth })
-			);
+			// The key may wrap too (a long label over two or three lines): the row is as tall as the
+			// taller of the two, or the next row's text would print over the key's last line.
+			this.doc.font('Body-Bold').fontSize(10);
+			const keyHeight = this.doc.heightOfString(pdfText(key), { width: keyWidth - 8 });
+			this.doc.font('Body');
+			const valueHeight = this.doc.heightOfString(pdfText(value), {
+				width: this.width - keyWidth
+			});
+			const height = Math.max(14, keyHeight, valueHeight);
 			this.ensureSpace(height + 2);
 			const y = this.doc.y;
-			this.doc.font('Helvetica-Bold').text(pdfText(key), MARGIN, y, { width: keyWidth - 8 });
+			this.doc.font('Body-Bold').text(pdfText(key), MARGIN, y, { width: keyWidth - 8 });
 			this.doc
-				.font('Helvetica')
+				.font('Body')
 				.text(pdfText(value), MARGIN + keyWidth, y, { width: this.width - keyWidth });
 			this.doc.y = y + height + 2;
 		}
@@ -67,17 +71,17 @@ export class ReportWriter {
 	): void {
 		const widths = columns.map((c) => c.width * this.width);
 		const drawRow = (cells: string[], bold: boolean) => {
-			this.doc.font(bold ? 'Helvetica-Bold' : 'Helvetica').fontSize(8.5);
+			this.doc.font(bold ? 'Body-Bold' : 'Body').fontSize(8.5);
 			const height =
 				Math.max(
-					...cells.map((c, i) => this.doc.heightOfString(pdfText(c), { width: widths[i] - 4 }))
+					...cells.map((c, i) => this.doc.heightOfString(pdfText(c), { width: widths[i] - 8 }))
 				) + 4;
 			this.ensureSpace(height);
 			const y = this.doc.y;
 			let x = MARGIN;
 			cells.forEach((cell, i) => {
-				this.doc.text(pdfText(cell), x + 2, y + 2, {
-					width: widths[i] - 4,
+				this.doc.text(pdfText(cell), x + 4, y + 2, {
+					width: widths[i] - 8,
 					align: columns[i].align ?? 'left'
 				});
 				x += widths[i];

@@ -6,7 +6,7 @@
 import { createHash, randomBytes } from 'node:crypto';
 import { error } from '@sveltejs/kit';
 import { z } from 'zod';
-import { db, Assessment, ReportLink } from '$lib/server/db';
+import { db, Assessment, ReportLink, User } from '$lib/server/db';
 import { recordAudit } from '$lib/server/audit';
 import { appLink, queueMail } from '$lib/server/mail';
 import type { Actor } from '$lib/server/policy';
@@ -120,7 +120,14 @@ export async function revokeLink(
  * Open a link: the assessment it shows, with the open recorded. A link that is unknown, revoked
  * or expired answers 404 or 410 with no hint of which report it was.
  */
-export async function openLink(token: string, ipAddress: string | null): Promise<Assessment> {
+export interface OpenedLink {
+	assessment: Assessment;
+	/** Who sent the link, so the page can say who shared it. */
+	sharedBy: string | null;
+	expiresAt: Date;
+}
+
+export async function openLink(token: string, ipAddress: string | null): Promise<OpenedLink> {
 	if (!/^[A-Za-z0-9_-]{20,100}$/.test(token)) error(404, 'This link is not valid.');
 	return db().transaction(async (transaction) => {
 		const link = await ReportLink.findOne({
@@ -147,6 +154,9 @@ export async function openLink(token: string, ipAddress: string | null): Promise
 			},
 			transaction
 		);
-		return assessment;
+		const sender = link.createdByUserId
+			? await User.findByPk(link.createdByUserId, { attributes: ['displayName'], transaction })
+			: null;
+		return { assessment, sharedBy: sender?.displayName ?? null, expiresAt: link.expiresAt };
 	});
 }

@@ -6,6 +6,7 @@
 import PDFDocument from 'pdfkit';
 import type { AssessedSource } from '$lib/server/risk';
 import { CAUTION_TEXT, CAUTION_TITLE } from './caution';
+import { registerReportFonts } from './fonts';
 import { MARGIN, ReportWriter } from './layout';
 import { appendices } from './sections/appendices';
 import { coverPage, ownerSummary } from './sections/front';
@@ -24,7 +25,7 @@ function footers(doc: PDFKit.PDFDocument, title: string): void {
 	for (let i = range.start; i < range.start + range.count; i++) {
 		doc.switchToPage(i);
 		const y = doc.page.height - MARGIN + 10;
-		doc.font('Helvetica').fontSize(7.5).fillColor('#555555');
+		doc.font('Body').fontSize(7.5).fillColor('#555555');
 		// Writing below the bottom margin would add a page: lift the margin while we do.
 		doc.page.margins.bottom = 0;
 		doc.text(pdfText(`${title} · ${CAUTION_TITLE}`), MARGIN, y, { width: 360, lineBreak: false });
@@ -71,6 +72,8 @@ export function buildReportPdf(
 		doc.on('end', () => resolve(Buffer.concat(chunks)));
 		doc.on('error', reject);
 	});
+	registerReportFonts(doc);
+	doc.font('Body');
 	const w = new ReportWriter(doc);
 	coverPage(w, source, generatedAt);
 	ownerSummary(w, source);

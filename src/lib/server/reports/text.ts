@@ -1,35 +1,10 @@
 /**
- * Words and figures for the report. pdfkit's built-in Helvetica covers WinAnsi only, so symbols
- * outside it are spelled out (no font download, STACK.md); everything else passes through.
+ * Words and figures for the report. The report's typeface (fonts.ts) has the glyphs of
+ * mathematical notation, so text passes through as written: only control characters, which
+ * would print as boxes, are dropped, and the text is composed (NFC) so accents keep one glyph.
  */
-const REPLACEMENTS: Record<string, string> = {
-	'√': 'sqrt',
-	'≥': '>=',
-	'≤': '<=',
-	'−': '-',
-	β: 'beta',
-	γ: 'gamma',
-	Δ: 'delta ',
-	Φ: 'Phi',
-	'→': '->',
-	'×': 'x',
-	'²': '²',
-	'≈': '~',
-	α: 'alpha',
-	μ: 'mu',
-	σ: 'sigma',
-	'₀': '0'
-};
-
 export function pdfText(text: string): string {
-	let out = '';
-	for (const ch of text) {
-		const code = ch.codePointAt(0)!;
-		if (REPLACEMENTS[ch] !== undefined) out += REPLACEMENTS[ch];
-		else if (code < 0x100 || '–—‘’“”•…'.includes(ch)) out += ch;
-		else out += '?';
-	}
-	return out;
+	return text.normalize('NFC').replace(/[\u0000-\u0008\u000b-\u001f\u007f-\u009f]/g, '');
 }
 
 export const pct = (share: number | null | undefined, digits = 1) =>

@@ -3,7 +3,7 @@
  * and the populations of all of them ranked for "look at first".
  */
 import { error } from '@sveltejs/kit';
-import { Assessment, User, type Asset } from '$lib/server/db';
+import { Assessment, Asset, Organisation, User } from '$lib/server/db';
 import type { Actor } from '$lib/server/policy';
 import { visibleAsset, visibleAssets } from './access';
 import { coverOnlyAnnex, type RiskAnnex } from './annex';
@@ -31,6 +31,14 @@ async function nameOf(id: number | null): Promise<string | null> {
 	return (await User.findByPk(id, { attributes: ['displayName'] }))?.displayName ?? null;
 }
 
+async function organisationOf(assetId: number): Promise<string | null> {
+	const asset = await Asset.findByPk(assetId, { attributes: ['organisationId'] });
+	if (!asset) return null;
+	return (
+		(await Organisation.findByPk(asset.organisationId, { attributes: ['name'] }))?.name ?? null
+	);
+}
+
 /** Header, snapshot, annex and risk of one assessment row. */
 export async function assessedSource(row: Assessment): Promise<AssessedSource> {
 	const snapshot = fromSnapshot(row.snapshot);
@@ -45,7 +53,8 @@ export async function assessedSource(row: Assessment): Promise<AssessedSource> {
 			recommendations: row.recommendations,
 			approvedAt: row.approvedAt ? new Date(row.approvedAt).toISOString() : null,
 			approvedBy: await nameOf(row.approvedByUserId),
-			createdBy: await nameOf(row.createdByUserId)
+			createdBy: await nameOf(row.createdByUserId),
+			organisation: await organisationOf(row.assetId)
 		},
 		snapshot,
 		annex,

@@ -63,6 +63,8 @@ export interface AssessmentHeader {
 	approvedAt: string | null;
 	approvedBy: string | null;
 	createdBy: string | null;
+	/** The organisation whose engineers prepared and approved it (the asset's organisation). */
+	organisation: string | null;
 }
 
 /** Everything a risk view or a report is built from: header, snapshot, risk annex. */

@@ -4,8 +4,14 @@ import { assessedSource, toRiskView } from '$lib/server/risk';
 
 /** A shared report: no account needed, this report only; every open is an audit event. */
 export const load: PageServerLoad = async ({ params, getClientAddress, setHeaders }) => {
-	const assessment = await openLink(params.token, getClientAddress());
+	const { assessment, sharedBy, expiresAt } = await openLink(params.token, getClientAddress());
 	const source = await assessedSource(assessment);
 	setHeaders({ 'cache-control': 'private, no-store', 'referrer-policy': 'no-referrer' });
-	return { assetName: source.snapshot.asset.name, view: toRiskView(source) };
+	return {
+		assetName: source.snapshot.asset.name,
+		organisation: source.header.organisation,
+		sharedBy,
+		expiresOn: expiresAt.toISOString().slice(0, 10),
+		view: toRiskView(source)
+	};
 };

@@ -1,13 +1,35 @@
 /** Cover page and the owner's summary. */
-import { RISK_WORDS, referenceSurvey, type AssessedSource } from '$lib/server/risk';
+import { referenceSurvey, toRiskView, type AssessedSource } from '$lib/server/risk';
 import { CAUTION_TEXT, CAUTION_TITLE } from '../caution';
 import type { ReportWriter } from '../layout';
+import { surveyStateWords } from '$lib/words';
 import { dateOnly, pct } from '../text';
+
+/** Each survey whose readings are in the figures, with its state when the figures were taken. */
+function surveyLines(source: AssessedSource): string {
+	const { surveys } = source.snapshot;
+	if (surveys.length === 0) return 'none';
+	return surveys
+		.map((s) => `${s.title} (${s.surveyDate}; ${surveyStateWords(s.status)})`)
+		.join('\n');
+}
+
+/** Who prepared and who approved the assessment, for whom, and when: the report's signatory. */
+function signatoryBlock(w: ReportWriter, source: AssessedSource): void {
+	const { header } = source;
+	w.heading('Signatory', 2);
+	w.keyValues([
+		['Organisation', header.organisation ?? '–'],
+		['Prepared by', header.createdBy ?? '–'],
+		['Approved by', header.approvedBy ?? 'not approved'],
+		['Approved on', dateOnly(header.approvedAt)]
+	]);
+}
 
 export function coverPage(w: ReportWriter, source: AssessedSource, generatedAt: string): void {
 	const { snapshot, header } = source;
 	const survey = referenceSurvey(snapshot);
-	w.doc.moveDown(4);
+	w.doc.moveDown(3);
 	w.paragraph('Fractile · concrete cover assessment report', { size: 11 });
 	w.paragraph(snapshot.asset.name, { size: 24, bold: true });
 	w.paragraph(header.title, { size: 13 });
@@ -17,28 +39,29 @@ export function coverPage(w: ReportWriter, source: AssessedSource, generatedAt: 
 			'Asset',
 			`${snapshot.asset.name}${snapshot.asset.locationText ? `, ${snapshot.asset.locationText}` : ''}`
 		],
-		['Survey', survey ? `${survey.title} (${survey.surveyDate})` : 'All surveys of the asset'],
+		[snapshot.surveys.length === 1 ? 'Survey' : 'Surveys', surveyLines(source)],
+		['Age taken from', survey ? `${survey.title} (${survey.surveyDate})` : '–'],
 		['Assessment', `No. ${header.id}, ${header.state}`],
-		['Engineer', header.approvedBy ?? header.createdBy ?? '–'],
-		['Approved', dateOnly(header.approvedAt)],
 		['Figures computed', dateOnly(snapshot.computedAt)],
 		['Design service life', `${snapshot.asset.designServiceLifeYears} years`],
 		['Snapshot checksum', `sha256 ${header.snapshotSha256.slice(0, 16)}…`]
 	]);
-	w.doc.moveDown(1);
+	signatoryBlock(w, source);
+	w.doc.moveDown(0.5);
 	w.paragraph(`${CAUTION_TITLE} ${CAUTION_TEXT}`, { size: 9 });
 	w.paragraph(`Generated ${generatedAt}`, { size: 8 });
 }
 
 export function ownerSummary(w: ReportWriter, source: AssessedSource): void {
-	const { risk, annex, header } = source;
+	const { risk, header } = source;
+	const view = toRiskView(source);
 	w.doc.addPage();
 	w.heading('Summary for the owner');
 	w.paragraph(`Overall: ${risk.words}. ${risk.reason}`, { bold: true });
 	w.keyValues([
 		['Readings below minimum cover', pct(risk.shareBelowCMin)],
 		[
-			'Projected share depassivated at design life',
+			'Projected share without protection at design life',
 			source.projected
 				? pct(risk.shareDepassivatedAtDesignLife)
 				: 'Not projected: no durability parameters were entered.'
@@ -56,7 +79,11 @@ export function ownerSummary(w: ReportWriter, source: AssessedSource): void {
 			{ title: 'Level', width: 0.16 },
 			{ title: 'Why', width: 0.54 }
 		],
-		annex.populations.map((p) => [p.label, RISK_WORDS[p.level], p.reason])
+		view.populations.map((p) => [p.label, p.words, p.reason])
+	);
+	w.paragraph(
+		'“Without protection” (depassivated) means the concrete around the steel no longer keeps it from corroding: carbonation or chlorides have reached the bar. Corrosion can start from then on; it is not yet damage.',
+		{ size: 9 }
 	);
 	w.heading("Engineer's recommendations", 2);
 	w.paragraph(

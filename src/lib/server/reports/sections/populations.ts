@@ -1,14 +1,10 @@
 /** A table and a histogram per population. */
 import type { AssessedSource } from '$lib/server/risk';
+import { histogramDescription } from '$lib/charts/histogram';
+import { verdictWords } from '$lib/words';
 import { histogramPng } from '../charts';
 import type { ReportWriter } from '../layout';
 import { mm, pct } from '../text';
-
-const VERDICT: Record<string, string> = {
-	pass: 'Pass',
-	fail: 'Fail',
-	'not-enough-data': 'Not enough data'
-};
 
 export function populationSections(w: ReportWriter, source: AssessedSource): void {
 	w.doc.addPage();
@@ -21,7 +17,7 @@ export function populationSections(w: ReportWriter, source: AssessedSource): voi
 			continue;
 		}
 		w.paragraph(
-			`Verdict: ${VERDICT[a.verdict] ?? a.verdict}. Members: ${p.members.map((m) => m.label).join(', ')}.`,
+			`Verdict: ${verdictWords(a.verdict)}. Members: ${p.members.map((m) => m.label).join(', ')}.`,
 			{ bold: true }
 		);
 		w.table(
@@ -52,14 +48,11 @@ export function populationSections(w: ReportWriter, source: AssessedSource): voi
 				{ title: 'Outcome', width: 0.15 },
 				{ title: 'Reason', width: 0.55 }
 			],
-			a.rules.map((r) => [r.title, VERDICT[r.outcome] ?? r.outcome, r.reason])
+			a.rules.map((r) => [r.title, verdictWords(r.outcome), r.reason])
 		);
 		for (const warning of a.warnings) w.paragraph(`Note: ${warning}`, { size: 9 });
 		if (a.charts) {
-			w.image(
-				histogramPng(a.charts.histogram, a.requirement.cMinMm),
-				`Histogram of ${p.label}: number of readings per cover band (mm); the dashed line marks c_min = ${a.requirement.cMinMm} mm.`
-			);
+			w.image(histogramPng(a), `${p.label}. ${histogramDescription(a)}`);
 		}
 	}
 }

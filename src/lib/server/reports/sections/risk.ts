@@ -1,5 +1,5 @@
 /** The risk section: levels, projections at the owner's ages, β against the target, the curve. */
-import { RISK_WORDS, type AssessedSource } from '$lib/server/risk';
+import { RISK_WORDS, toRiskView, type AssessedSource } from '$lib/server/risk';
 import { riskCurvePng } from '../charts';
 import type { ReportWriter } from '../layout';
 import { num, pct } from '../text';
@@ -28,8 +28,8 @@ export function riskSection(w: ReportWriter, source: AssessedSource): void {
 				{ title: 'Age', width: 0.28 },
 				{ title: 'Readings reached', width: 0.18, align: 'right' },
 				{ title: 'Model share', width: 0.16, align: 'right' },
-				{ title: 'beta', width: 0.12, align: 'right' },
-				{ title: `Meets beta ${p.targetBeta}`, width: 0.14 },
+				{ title: 'β', width: 0.12, align: 'right' },
+				{ title: `Meets β ${p.targetBeta}`, width: 0.14 },
 				{ title: 'Method', width: 0.12 }
 			],
 			rows.map((r) => [
@@ -42,7 +42,8 @@ export function riskSection(w: ReportWriter, source: AssessedSource): void {
 			])
 		);
 	}
-	const withCurves = annex.populations.filter((p) => p.curve.length > 0);
+	// The owner's page's order and series (worst first), so each part has the same colour there.
+	const withCurves = toRiskView(source).populations.filter((p) => p.curve.length > 0);
 	if (withCurves.length > 0) {
 		w.image(
 			riskCurvePng(withCurves, annex.designLifeYears),

@@ -4,6 +4,6 @@ import { assessedSource } from '$lib/server/risk';
 
 /** The shared report's PDF: no account, this report only; the open is audited. */
 export const GET: RequestHandler = async ({ params, getClientAddress }) => {
-	const assessment = await openLink(params.token, getClientAddress());
+	const { assessment } = await openLink(params.token, getClientAddress());
 	return pdfResponse(await assessedSource(assessment));
 };

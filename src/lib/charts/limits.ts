@@ -3,7 +3,7 @@
  * cover. Each has its own dash pattern and a written label, so none is told apart by colour only.
  */
 import type { CoverRequirement } from '$lib/analysis';
-import { OKABE_ITO } from './register';
+import { OKABE_ITO } from './palette';
 
 export interface LimitLine {
 	id: string;
@@ -46,7 +46,8 @@ export function limitLines(requirement: CoverRequirement, characteristicMm: numb
 }
 
 /** chartjs-plugin-annotation entries for the lines, labels staggered so they do not overlap. */
-export function lineAnnotations(lines: LimitLine[]) {
+export function lineAnnotations(lines: LimitLine[], fontSize = 12) {
+	const labelSize = fontSize - 1;
 	return Object.fromEntries(
 		lines.map((line, i) => [
 			line.id,
@@ -61,10 +62,10 @@ export function lineAnnotations(lines: LimitLine[]) {
 					display: true,
 					content: `${line.name} ${line.valueMm.toFixed(1)} mm`,
 					position: 'start' as const,
-					yAdjust: -i * 22,
+					yAdjust: -i * Math.round(labelSize * 2),
 					backgroundColor: 'rgba(255,255,255,0.9)',
 					color: '#24292b',
-					font: { size: 11 }
+					font: { size: labelSize }
 				}
 			}
 		])
