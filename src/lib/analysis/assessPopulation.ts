@@ -4,7 +4,7 @@
 import { type ResolvedOptions, type AssessOptions, resolveOptions } from './assessOptions';
 import {
 	characteristicCovers,
-	chosenCharacteristicMm,
+	judgedCharacteristic,
 	type CharacteristicCovers
 } from './characteristicCover';
 import { chartData, type ChartData } from './charts';
@@ -28,7 +28,11 @@ export interface PopulationAssessment extends RuleSetResult {
 	models: ModelComparison;
 	/** The model the characteristic rule used. */
 	chosenModel: ModelName;
-	characteristic: CharacteristicCovers & { chosenMm: number };
+	/**
+	 * chosenMm is the value the characteristic rule judges (judgedCharacteristic), and
+	 * chosenBasis says in words how it was obtained.
+	 */
+	characteristic: CharacteristicCovers & { chosenMm: number; chosenBasis: string };
 	fractionBelowCMin: FractionBelow;
 	/** Plain-language warnings (model fit, small samples). */
 	warnings: string[];
@@ -100,6 +104,13 @@ export function assessPopulation(
 		unit: resolved.displayUnit
 	});
 	const fits = models.lognormal ? [models.normal, models.lognormal] : [models.normal];
+	const chosenFit = chosenModel === 'lognormal' ? models.lognormal : models.normal;
+	const judged = judgedCharacteristic(
+		characteristic,
+		resolved.characteristicMethod,
+		chosenModel,
+		chosenFit?.rejected === true
+	);
 	return toPlainJson({
 		engineVersion: ENGINE_VERSION,
 		options: resolved,
@@ -111,10 +122,7 @@ export function assessPopulation(
 		})),
 		models,
 		chosenModel,
-		characteristic: {
-			...characteristic,
-			chosenMm: chosenCharacteristicMm(characteristic, resolved.characteristicMethod, chosenModel)
-		},
+		characteristic: { ...characteristic, chosenMm: judged.valueMm, chosenBasis: judged.basis },
 		fractionBelowCMin,
 		...ruleResult,
 		warnings: sampleWarnings(description.n, resolved, models),

@@ -82,3 +82,45 @@ export function chosenCharacteristicMm(
 	if (method === 'model') return figures.modelMm;
 	return method === 'prediction' ? figures.predictionMm : figures.toleranceMm;
 }
+
+const METHOD_WORDS: Record<CharacteristicMethod, string> = {
+	empirical: 'empirical percentile',
+	model: 'fitted model quantile',
+	prediction: 'prediction method (EN 1990 D7.2)',
+	tolerance: 'tolerance limit (ISO 16269-6)'
+};
+
+export interface JudgedCharacteristic {
+	/** The value the characteristic rule judges and the pages show as the headline, mm. */
+	valueMm: number;
+	/** True when the model was rejected and the lower empirical percentile was taken. */
+	empiricalTaken: boolean;
+	/** How the value was obtained, in words. */
+	basis: string;
+}
+
+/**
+ * The one characteristic cover a population is judged by: the chosen method and model, except
+ * that a model the goodness-of-fit test rejected must not flatter the population, so the lower
+ * of the model's figure and the empirical percentile counts (common practice: a rejected model
+ * is not extrapolated into the tail it failed to describe). The rule, the headline, the chart
+ * line and the report all read this one value.
+ */
+export function judgedCharacteristic(
+	covers: CharacteristicCovers,
+	method: CharacteristicMethod,
+	model: ModelName,
+	modelRejected: boolean
+): JudgedCharacteristic {
+	const chosen = chosenCharacteristicMm(covers, method, model);
+	const rejected = method !== 'empirical' && modelRejected;
+	const empiricalTaken = rejected && covers.empiricalMm < chosen;
+	const methodWords =
+		method === 'empirical' ? METHOD_WORDS.empirical : `${METHOD_WORDS[method]}, ${model} model`;
+	const basis = !rejected
+		? methodWords
+		: empiricalTaken
+			? `empirical percentile: the ${model} model was rejected and its ${METHOD_WORDS[method]} figure was higher`
+			: `${methodWords} (the model was rejected, but its figure is already the lower)`;
+	return { valueMm: empiricalTaken ? covers.empiricalMm : chosen, empiricalTaken, basis };
+}

@@ -1,7 +1,7 @@
 /**
  * The compliance rules. Each answers pass, fail or not enough data with a one-sentence reason.
  */
-import { chosenCharacteristicMm } from '../characteristicCover';
+import { judgedCharacteristic } from '../characteristicCover';
 import { clopperPearsonUpper } from '../clopperPearson';
 import { percentileSorted } from '../percentile';
 import { countAtOrBelowSorted, countBelowSorted } from '../readings';
@@ -49,14 +49,17 @@ export function characteristicMin(ctx: RuleContext): RuleResult {
 	const early = tooFew('characteristic-min', title, ctx);
 	if (early) return early;
 	const { cMinMm } = ctx.requirement;
-	let valueMm = chosenCharacteristicMm(ctx.characteristic, ctx.method, ctx.model);
 	const fit = ctx.model === 'lognormal' ? ctx.models.lognormal : ctx.models.normal;
-	const modelRejected = ctx.method !== 'empirical' && fit?.rejected === true;
-	// A rejected model must not flatter the population: take the lower of model and data.
-	if (modelRejected) valueMm = Math.min(valueMm, ctx.characteristic.empiricalMm);
+	const judged = judgedCharacteristic(
+		ctx.characteristic,
+		ctx.method,
+		ctx.model,
+		fit?.rejected === true
+	);
+	const valueMm = judged.valueMm;
 	const p = ctx.characteristic.p;
 	const pass = valueMm >= cMinMm;
-	const caveat = modelRejected
+	const caveat = judged.empiricalTaken
 		? ' (the model does not fit, so the lower empirical figure counts)'
 		: '';
 	return {

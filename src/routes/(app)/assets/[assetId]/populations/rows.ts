@@ -21,6 +21,9 @@ export interface OverviewRow {
 	below: number | null;
 	belowLower: number | null;
 	belowUpper: number | null;
+	/** The one-sided upper bound the share-below rule judges, at `confidence`. */
+	belowUpperBound: number | null;
+	confidence: number | null;
 	verdict: RuleOutcome | null;
 	rules: { title: string; outcome: string; reason: string }[];
 	note: string | null;
@@ -39,12 +42,14 @@ export function toRow(p: PopulationResult, detailHref: string): OverviewRow {
 		p5Mm: a?.percentiles.find((q) => q.p === 0.05)?.valueMm ?? null,
 		characteristicMm: a?.characteristic.chosenMm ?? null,
 		method: a
-			? `${a.options.characteristicMethod}, ${a.chosenModel}, p = ${a.options.fractileP}`
+			? `${a.characteristic.chosenBasis}; lower ${Math.round(a.options.fractileP * 100)} % fractile`
 			: '',
 		cMinMm: p.requirement.requirement.cMinMm,
 		below: a?.fractionBelowCMin.empirical ?? null,
 		belowLower: a?.fractionBelowCMin.interval.lower ?? null,
 		belowUpper: a?.fractionBelowCMin.interval.upper ?? null,
+		belowUpperBound: a?.fractionBelowCMin.upperBound ?? null,
+		confidence: a?.fractionBelowCMin.confidence ?? null,
 		verdict: a?.verdict ?? null,
 		rules: a?.rules.map((r) => ({ title: r.title, outcome: r.outcome, reason: r.reason })) ?? [],
 		note: p.problem ?? p.requirement.note
