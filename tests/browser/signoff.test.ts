@@ -23,14 +23,28 @@ describe('signing an assessment off', () => {
 		await sequelize.close();
 	});
 
-	it('the engineer approves, and a later import leaves the assessment as signed', async () => {
-		const page = await browserSignIn(browser, 'engineer');
-		await page.goto(`/assets/${assetId}/assessments`);
-		await page.fill('input[name=title]', 'Car park, browser sign-off');
-		await Promise.all([page.waitForURL('**/assessments/*'), page.click('text=Save as a draft')]);
-		assessmentPath = new URL(page.url()).pathname;
+	it('the engineer prepares, a second person approves, and a later import leaves it as signed', async () => {
+		const preparer = await browserSignIn(browser, 'engineer');
+		await preparer.goto(`/assets/${assetId}/assessments`);
+		await preparer.fill('input[name=title]', 'Car park, browser sign-off');
+		await Promise.all([
+			preparer.waitForURL('**/assessments/*'),
+			preparer.click('text=Save as a draft')
+		]);
+		assessmentPath = new URL(preparer.url()).pathname;
+		// The organisation asks a second engineer: the preparer is told so and offered no button.
+		expect(await preparer.getByTestId('approve').count()).toBe(0);
+		expect(await preparer.getByTestId('second-approver-note').textContent()).toContain(
+			'second engineer'
+		);
+		await preparer.context().close();
+		const page = await browserSignIn(browser, 'admin');
+		await page.goto(assessmentPath);
 		await Promise.all([page.waitForLoadState('load'), page.getByTestId('approve').click()]);
 		await page.waitForSelector('[data-testid=assessment-state][data-state=approved]');
+		expect(await page.getByTestId('prepared-by').textContent()).not.toBe(
+			await page.getByTestId('approved-by').textContent()
+		);
 		const sha = await page.getByTestId('snapshot-sha').textContent();
 		const deckN = await page.locator('[data-population="deck|XD3"] [data-testid=n]').textContent();
 		await screenshot(page, 'assessment-approved');

@@ -44,6 +44,7 @@ export async function coversBySql(
 
 export const CAR_PARK = 'Brackenfield Multi-storey Car Park';
 export const FOOTBRIDGE = 'Millrace Footbridge';
+export const ADMIN = 'admin@kestrel-lane.example';
 export const ENGINEER = 'engineer@kestrel-lane.example';
 export const SURVEYOR = 'surveyor@kestrel-lane.example';
 export const OWNER = 'owner@northmoor.example';

@@ -3,13 +3,15 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { db, closeDb, Assessment, Member } from '../../src/lib/server/db';
 import { methodSchema } from '../../src/lib/server/populations';
 import { approve, saveDraft, sha256Hex } from '../../src/lib/server/assessments';
-import { CAR_PARK, ENGINEER, assetIdByName, demoActor } from '../helpers/actors';
+import { ADMIN, CAR_PARK, ENGINEER, assetIdByName, demoActor } from '../helpers/actors';
 import { addReadings, removeReadings } from '../helpers/readings';
 
 describe('assessment sign-off', () => {
 	let sequelize: Sequelize;
 	let assetId: number;
 	let engineer: Awaited<ReturnType<typeof demoActor>>;
+	// A second person approves: the organisation asks for one (its default).
+	let checker: Awaited<ReturnType<typeof demoActor>>;
 	const methods = methodSchema.parse({});
 	const save = (title: string, supersedes: { id: number; reason: string } | null = null) =>
 		saveDraft(engineer, {
@@ -25,6 +27,7 @@ describe('assessment sign-off', () => {
 		sequelize = db();
 		assetId = await assetIdByName(sequelize, CAR_PARK);
 		engineer = await demoActor(sequelize, ENGINEER);
+		checker = await demoActor(sequelize, ADMIN);
 	});
 	afterAll(async () => {
 		await closeDb();
@@ -32,7 +35,7 @@ describe('assessment sign-off', () => {
 
 	it('keeps an approved snapshot byte-identical after a later import of readings', async () => {
 		const draft = await save('Level 2 and roof, first sign-off');
-		await approve(engineer, draft.id);
+		await approve(checker, draft.id);
 		const signed = await Assessment.findByPk(draft.id);
 		expect(signed!.state).toBe('approved');
 		const deck = await Member.findOne({ where: { assetId, label: 'L2-BAY-01' } });
@@ -77,8 +80,8 @@ describe('assessment sign-off', () => {
 			id: old.id,
 			reason: 'Roof survey readings reviewed and accepted.'
 		});
-		await expect(approve(engineer, old.id)).rejects.toMatchObject({ status: 409 });
-		await approve(engineer, next.id);
+		await expect(approve(checker, old.id)).rejects.toMatchObject({ status: 409 });
+		await approve(checker, next.id);
 		await old.reload();
 		expect(old.state).toBe('superseded');
 		await expect(
@@ -89,5 +92,35 @@ describe('assessment sign-off', () => {
 			{ type: QueryTypes.SELECT, plain: true }
 		);
 		expect(audit!.n).toBeGreaterThanOrEqual(2);
+	});
+
+	it('asks a second engineer to approve where the organisation requires it, and lets the preparer alone where it does not', async () => {
+		const organisationId = engineer.organisationId;
+		const setRule = (on: boolean) =>
+			sequelize.query('UPDATE organisations SET second_approver_required = ? WHERE id = ?', {
+				replacements: [on, organisationId],
+				type: QueryTypes.UPDATE
+			});
+		const draft = await save('Checked by a second engineer');
+		await expect(approve(engineer, draft.id)).rejects.toMatchObject({
+			status: 409,
+			body: { message: expect.stringMatching(/second engineer/) }
+		});
+		expect((await Assessment.findByPk(draft.id))!.state).toBe('draft');
+		await approve(checker, draft.id);
+		const signed = await Assessment.findByPk(draft.id);
+		expect(signed!.createdByUserId).toBe(engineer.userId);
+		expect(signed!.approvedByUserId).toBe(checker.userId);
+		await setRule(false);
+		try {
+			const alone = await save('Approved by its preparer, rule off', {
+				id: draft.id,
+				reason: 'The organisation lets the preparer approve alone.'
+			});
+			await approve(engineer, alone.id);
+			expect((await Assessment.findByPk(alone.id))!.approvedByUserId).toBe(engineer.userId);
+		} finally {
+			await setRule(true);
+		}
 	});
 });

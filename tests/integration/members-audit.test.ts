@@ -74,3 +74,30 @@ describe('the audit log', () => {
 		]);
 	});
 });
+
+describe('the approval rule', () => {
+	it('is on for a new organisation; its admin turns it off and on, audited; an engineer may not', async () => {
+		const { client } = await signUpNewOrganisation('approvalrule');
+		const page = await (await client.get('/organisation/members')).text();
+		expect(page).toContain('A second engineer must approve');
+		const off = await client.postForm('/organisation/members?/approval', {
+			secondApproverRequired: 'off'
+		});
+		expect(off.status).toBe(303);
+		expect(await (await client.get('/organisation/members')).text()).toContain(
+			'may approve it alone'
+		);
+		const bad = await client.postForm('/organisation/members?/approval', {
+			secondApproverRequired: 'maybe'
+		});
+		expect(bad.status).toBe(400);
+		await client.postForm('/organisation/members?/approval', { secondApproverRequired: 'on' });
+		const log = await (await client.get('/organisation/audit')).text();
+		expect(log).toContain('organisation.approval_rule_changed');
+		const engineer = await signInAs('engineer');
+		const refused = await engineer.postForm('/organisation/members?/approval', {
+			secondApproverRequired: 'off'
+		});
+		expect(refused.status).toBe(403);
+	});
+});

@@ -99,7 +99,7 @@ describe('migration 009 on a database that already holds readings', () => {
 				cover
 			]);
 
-		await migrator.up();
+		await migrator.up({ to: '009-cover-sets' });
 		const select = <T extends object>(sql: string) =>
 			scratch.sequelize.query<T>(sql, { type: QueryTypes.SELECT });
 		const [set] = await select<{ n: number; covers: Buffer }>(
@@ -123,7 +123,7 @@ describe('migration 009 on a database that already holds readings', () => {
 			'PRIMARY.id'
 		]);
 
-		await migrator.down();
+		await migrator.down({ to: '009-cover-sets' });
 		const back = await select<{ Key_name: string }>('SHOW INDEX FROM readings');
 		expect(new Set(back.map((k) => k.Key_name))).toEqual(
 			new Set(['PRIMARY', 'readings_member_cover', 'readings_import_batch_id'])

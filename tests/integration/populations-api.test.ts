@@ -76,7 +76,12 @@ describe('the population API over HTTP', () => {
 		const refused = await surveyor.postJson(`/api/v1/assessments/${assessment.id}/approve`, {});
 		expect(refused.status).toBe(403);
 		expect((await refused.json()).error.code).toBe('forbidden');
-		const approved = await engineer.postJson(`/api/v1/assessments/${assessment.id}/approve`, {});
+		// The engineer who saved it may not approve it alone (the organisation's default rule).
+		const own = await engineer.postJson(`/api/v1/assessments/${assessment.id}/approve`, {});
+		expect(own.status).toBe(409);
+		expect((await own.json()).error.message).toMatch(/second engineer/);
+		const admin = await signInAs('admin');
+		const approved = await admin.postJson(`/api/v1/assessments/${assessment.id}/approve`, {});
 		expect(approved.status).toBe(200);
 		expect((await approved.json()).assessment.state).toBe('approved');
 	});

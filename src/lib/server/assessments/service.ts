@@ -5,7 +5,8 @@
  */
 import { annexFor, fromSnapshot, writeAnnex } from '$lib/server/risk';
 import { error } from '@sveltejs/kit';
-import { db, Assessment } from '$lib/server/db';
+import type { Transaction } from 'sequelize';
+import { db, Assessment, Asset, Organisation } from '$lib/server/db';
 import { recordAudit } from '$lib/server/audit';
 import { can, type Actor } from '$lib/server/policy';
 import { ownAsset, visibleAsset, visibleSurvey } from '$lib/server/populations';
@@ -76,6 +77,27 @@ export async function saveDraft(actor: Actor, input: SaveInput): Promise<Assessm
 	});
 }
 
+/** Whether the asset's organisation asks a second person to approve (migration 010). */
+async function secondApproverRequired(
+	assetId: number,
+	transaction?: Transaction
+): Promise<boolean> {
+	const asset = await Asset.findByPk(assetId, { attributes: ['organisationId'], transaction });
+	if (!asset) return true;
+	const organisation = await Organisation.findByPk(asset.organisationId, {
+		attributes: ['secondApproverRequired'],
+		transaction
+	});
+	return organisation?.secondApproverRequired ?? true;
+}
+
+/** Whether this actor may approve this draft under the organisation's second-approver rule. */
+export async function mayApprove(actor: Actor, row: Assessment): Promise<boolean> {
+	if (row.state !== 'draft') return false;
+	if (row.createdByUserId !== actor.userId) return true;
+	return !(await secondApproverRequired(row.assetId));
+}
+
 /**
  * Approve a draft: its snapshot is checked against its sha256 and frozen; the assessment it
  * supersedes, if any, becomes superseded. Policy 'assessment:approve' is asked by the caller.
@@ -87,6 +109,14 @@ export async function approve(actor: Actor, id: number): Promise<Assessment> {
 	return db().transaction(async (transaction) => {
 		const draft = await Assessment.findByPk(id, { transaction, lock: transaction.LOCK.UPDATE });
 		if (!draft || draft.state !== 'draft') error(409, 'Only a draft can be approved.');
+		if (await secondApproverRequired(draft.assetId, transaction)) {
+			if (draft.createdByUserId === actor.userId) {
+				error(
+					409,
+					'You prepared this assessment: your organisation asks a second engineer to check and approve it.'
+				);
+			}
+		}
 		if (sha256Hex(draft.snapshot) !== draft.snapshotSha256) {
 			error(409, 'The draft does not match its checksum; save it again.');
 		}

@@ -14,6 +14,8 @@ export class Organisation extends Model<
 	declare id: CreationOptional<number>;
 	declare name: string;
 	declare slug: string;
+	/** The engineer who prepared an assessment may not approve it (migration 010). */
+	declare secondApproverRequired: CreationOptional<boolean>;
 	declare createdAt: CreationOptional<Date>;
 	declare updatedAt: CreationOptional<Date>;
 
@@ -23,6 +25,11 @@ export class Organisation extends Model<
 				id: { type: DataTypes.INTEGER.UNSIGNED, autoIncrement: true, primaryKey: true },
 				name: { type: DataTypes.STRING(160), allowNull: false },
 				slug: { type: DataTypes.STRING(80), allowNull: false, unique: true },
+				secondApproverRequired: {
+					type: DataTypes.BOOLEAN,
+					allowNull: false,
+					defaultValue: true
+				},
 				createdAt: DataTypes.DATE,
 				updatedAt: DataTypes.DATE
 			},

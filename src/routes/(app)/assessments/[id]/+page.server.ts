@@ -3,7 +3,7 @@ import type { Actions, PageServerLoad } from './$types';
 import { pageActor } from '$lib/server/guard';
 import { authorize, can } from '$lib/server/policy';
 import { pathId, visibleAsset } from '$lib/server/populations';
-import { approve, getAssessment, withSnapshot } from '$lib/server/assessments';
+import { approve, getAssessment, mayApprove, withSnapshot } from '$lib/server/assessments';
 import type { AssessmentSnapshot } from '$lib/server/assessments/snapshot';
 import { durabilityFieldGroups, loadAnnex, readDurabilityForm, saveRisk } from '$lib/server/risk';
 
@@ -20,6 +20,12 @@ export const load: PageServerLoad = async (event) => {
 	return {
 		assessment,
 		canApprove: access === 'own' && can(actor.role, 'assessment:approve'),
+		// The preparer of a draft, where a second engineer must approve: told so, not offered it.
+		secondApproverNeeded:
+			access === 'own' &&
+			can(actor.role, 'assessment:approve') &&
+			row.state === 'draft' &&
+			!(await mayApprove(actor, row)),
 		durability: {
 			editable: row.state === 'draft' && access === 'own' && can(actor.role, 'assessment:write'),
 			groups: durabilityFieldGroups(

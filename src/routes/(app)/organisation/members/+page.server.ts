@@ -18,6 +18,7 @@ import {
 	removeMember
 } from '$lib/server/organisation/members';
 import { listOpenInvitations, listUndeliveredMail } from '$lib/server/organisation/overview';
+import { secondApproverSetting, setSecondApprover } from '$lib/server/organisation/settings';
 
 export const load: PageServerLoad = async (event) => {
 	const actor = pageActor(event, 'organisation:manage');
@@ -26,12 +27,14 @@ export const load: PageServerLoad = async (event) => {
 		invitations: await listOpenInvitations(actor.organisationId),
 		undeliveredMail: await listUndeliveredMail(actor.organisationId),
 		selfUserId: actor.userId,
+		secondApproverRequired: await secondApproverSetting(actor.organisationId),
 		invited: event.url.searchParams.get('invited')
 	};
 };
 
 const roleChangeSchema = z.object({ id: idParamSchema, role: roleSchema });
 const idSchema = z.object({ id: idParamSchema });
+const approvalSchema = z.object({ secondApproverRequired: z.enum(['on', 'off']) });
 
 /** An id that is not a record of this organisation is "not found", like any other. */
 function parseIdForm<S extends z.ZodType>(form: FormData, schema: S): z.infer<S> {
@@ -41,6 +44,16 @@ function parseIdForm<S extends z.ZodType>(form: FormData, schema: S): z.infer<S>
 }
 
 export const actions = {
+	/** The organisation's approval rule (admins: 'organisation:manage'). */
+	approval: async ({ locals, request }) => {
+		const actor = authorize(locals, 'organisation:manage');
+		const parsed = approvalSchema.safeParse(Object.fromEntries(await request.formData()));
+		if (!parsed.success) {
+			return fail(400, { message: 'Choose whether a second engineer must approve.' });
+		}
+		await setSecondApprover(actor, parsed.data.secondApproverRequired === 'on');
+		redirect(303, '/organisation/members');
+	},
 	invite: async ({ locals, request }) => {
 		const actor = authorize(locals, 'organisation:manage');
 		const parsed = await parseForm(request, inviteSchema);
