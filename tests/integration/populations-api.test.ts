@@ -22,9 +22,16 @@ describe('the population API over HTTP', () => {
 		await sequelize.close();
 	});
 
+	const surveysOf = (assetId: number) =>
+		sequelize.query<{ id: number; status: string }>(
+			'SELECT id, status FROM surveys WHERE asset_id = ? ORDER BY id',
+			{ replacements: [assetId], type: QueryTypes.SELECT }
+		);
+
 	it('gives, for each group, exactly the engine’s figures on the same readings', async () => {
+		const every = (await surveysOf(carParkId)).map((s) => s.id).join(',');
 		const response = await engineer.get(
-			`/api/v1/assets/${carParkId}/populations?fractile=0.1&method=tolerance`,
+			`/api/v1/assets/${carParkId}/populations?fractile=0.1&method=tolerance&surveys=${every}`,
 			JSON_ACCEPT
 		);
 		expect(response.status).toBe(200);
@@ -42,6 +49,74 @@ describe('the population API over HTTP', () => {
 			});
 			expect(p.assessment).toEqual(JSON.parse(JSON.stringify(engine)));
 		}
+	});
+
+	it('counts only approved surveys unless others are chosen, and says which it used', async () => {
+		const surveys = await surveysOf(carParkId);
+		const approved = surveys.filter((s) => s.status === 'approved').map((s) => s.id);
+		const others = surveys.filter((s) => s.status !== 'approved').map((s) => s.id);
+		expect(approved.length).toBeGreaterThan(0);
+		expect(others.length).toBeGreaterThan(0);
+		const readingsOf = async (ids: number[]) =>
+			(await sequelize.query<{ n: number }>(
+				`SELECT COUNT(*) AS n FROM readings r JOIN members m ON m.id = r.member_id
+					  WHERE m.survey_id IN (${ids.map(() => '?').join(',')})`,
+				{ replacements: ids, type: QueryTypes.SELECT, plain: true }
+			))!.n;
+		const total = (o: PopulationOverview) =>
+			o.populations.reduce((sum, p) => sum + (p.assessment?.description.n ?? 0), 0);
+		const byDefault = await (
+			await engineer.get(`/api/v1/assets/${carParkId}/populations`, JSON_ACCEPT)
+		).json();
+		expect(byDefault.selection.basis).toBe('approved');
+		expect(byDefault.selection.surveyIds).toEqual(approved);
+		expect(total(byDefault)).toBe(Number(await readingsOf(approved)));
+		const chosen = await (
+			await engineer.get(
+				`/api/v1/assets/${carParkId}/populations?surveys=${others.join(',')}`,
+				JSON_ACCEPT
+			)
+		).json();
+		expect(chosen.selection.basis).toBe('chosen');
+		expect(chosen.selection.words).toMatch(/not approved/);
+		expect(total(chosen)).toBe(Number(await readingsOf(others)));
+		const foreign = await engineer.get(
+			`/api/v1/assets/${carParkId}/populations?surveys=999999`,
+			JSON_ACCEPT
+		);
+		expect(foreign.status).toBe(400);
+		expect((await foreign.json()).error.field).toBe('surveys');
+	});
+
+	it('leaves a draft survey out of a default assessment, and names an unapproved one chosen', async () => {
+		const footbridgeId = await assetIdByName(sequelize, FOOTBRIDGE);
+		const [draft] = await surveysOf(footbridgeId);
+		expect(draft.status).toBe('draft');
+		const byDefault = await engineer.postJson(`/api/v1/assets/${footbridgeId}/assessments`, {
+			title: 'Footbridge, default selection'
+		});
+		// Its only survey is a draft: nothing is approved or submitted, so nothing is included.
+		expect(byDefault.status).toBe(400);
+		expect((await byDefault.json()).error).toMatchObject({
+			field: 'surveys',
+			message: expect.stringMatching(/choose the surveys/)
+		});
+		const chosen = await engineer.postJson(`/api/v1/assets/${footbridgeId}/assessments`, {
+			title: 'Footbridge, the draft survey chosen',
+			surveys: [draft.id]
+		});
+		const chosenRow = await sequelize.query<{ snapshot: string }>(
+			'SELECT snapshot FROM assessments WHERE id = ?',
+			{
+				replacements: [(await chosen.json()).assessment.id],
+				type: QueryTypes.SELECT,
+				plain: true
+			}
+		);
+		const snapshot = JSON.parse(chosenRow!.snapshot);
+		expect(snapshot.readingCount).toBeGreaterThan(0);
+		expect(snapshot.surveys.map((s: { status: string }) => s.status)).toEqual(['draft']);
+		expect(snapshot.scope.selectionWords).toMatch(/not approved/);
 	});
 
 	it('refuses a bad method choice with the field named', async () => {

@@ -10,6 +10,13 @@ export const saveSchema = z.object({
 		.min(3, 'Give the assessment a title of at least 3 characters.')
 		.max(160, 'The title is at most 160 characters.'),
 	survey: z.number().int().positive().nullable().default(null),
+	/** The surveys whose readings count; absent or null, the approved surveys of the asset. */
+	surveys: z
+		.array(z.number().int().positive())
+		.min(1, 'Include at least one survey, or leave surveys out for the approved ones.')
+		.max(200)
+		.nullable()
+		.default(null),
 	split: z.enum(SPLITS).default('none'),
 	methods: methodSchema.default(methodSchema.parse({})),
 	recommendations: z

@@ -8,8 +8,9 @@ import { error } from '@sveltejs/kit';
 import type { Transaction } from 'sequelize';
 import { db, Assessment, Asset, Organisation } from '$lib/server/db';
 import { recordAudit } from '$lib/server/audit';
+import { apiError } from '$lib/server/http';
 import { can, type Actor } from '$lib/server/policy';
-import { ownAsset, visibleAsset, visibleSurvey } from '$lib/server/populations';
+import { ownAsset, surveySelection, visibleAsset, visibleSurvey } from '$lib/server/populations';
 import type { MethodChoice, Split } from '$lib/server/populations';
 import { buildSnapshot, serialiseSnapshot, sha256Hex } from './snapshot';
 
@@ -17,6 +18,8 @@ export interface SaveInput {
 	assetId: number;
 	title: string;
 	surveyId: number | null;
+	/** The surveys to include; null, the default selection (approved surveys, selection.ts). */
+	surveyIds?: number[] | null;
 	split: Split;
 	methods: MethodChoice;
 	recommendations: string | null;
@@ -37,10 +40,16 @@ export async function saveDraft(actor: Actor, input: SaveInput): Promise<Assessm
 	const asset = await ownAsset(actor, input.assetId);
 	if (input.surveyId) await visibleSurvey(actor, asset.id, input.surveyId);
 	if (input.supersedes) await checkSupersedable(asset.id, input.supersedes.id);
+	const requested = input.surveyIds ?? (input.surveyId ? [input.surveyId] : null);
+	const selection = await surveySelection(asset.id, requested);
+	if (selection.surveyIds.length === 0) {
+		apiError(400, 'invalid_input', selection.words, 'surveys');
+	}
 	const snapshot = await buildSnapshot(
 		asset,
 		{ surveyId: input.surveyId, split: input.split },
-		input.methods
+		input.methods,
+		selection
 	);
 	const { text, sha256 } = serialiseSnapshot(snapshot);
 	// Durability projections with the stated defaults, kept with the draft (risk/store.ts).

@@ -15,7 +15,8 @@ import {
 	type MeterCheck,
 	type MethodChoice,
 	type PopulationResult,
-	type Split
+	type Split,
+	type SurveySelection
 } from '$lib/server/populations';
 
 export const SNAPSHOT_SCHEMA_VERSION = 1;
@@ -47,7 +48,14 @@ export interface AssessmentSnapshot {
 	survey: SnapshotSurvey | null;
 	/** Every survey whose readings are in the populations. */
 	surveys: SnapshotSurvey[];
-	scope: { surveyId: number | null; split: Split };
+	scope: {
+		surveyId: number | null;
+		split: Split;
+		/** The surveys whose readings count, and how they were picked (selection.ts). */
+		surveyIds?: number[];
+		selection?: SurveySelection['basis'];
+		selectionWords?: string;
+	};
 	/** The methods and parameters chosen; each population's `assessment.options` has them resolved. */
 	methods: MethodChoice;
 	/** Judged populations, with chart data (`assessment.charts`) for reports. */
@@ -73,11 +81,13 @@ function surveyOf(s: Survey): SnapshotSurvey {
 export async function buildSnapshot(
 	asset: Asset,
 	scope: { surveyId: number | null; split: Split },
-	methods: MethodChoice
+	methods: MethodChoice,
+	selection?: SurveySelection
 ): Promise<AssessmentSnapshot> {
 	const overview = await populationOverview({
 		assetId: asset.id,
-		surveyId: scope.surveyId ?? undefined,
+		surveyId: selection ? undefined : (scope.surveyId ?? undefined),
+		surveyIds: selection?.surveyIds,
 		split: scope.split,
 		choice: methods,
 		charts: true
@@ -100,7 +110,14 @@ export async function buildSnapshot(
 		},
 		survey: chosen ? surveyOf(chosen) : null,
 		surveys: surveys.map(surveyOf),
-		scope,
+		scope: selection
+			? {
+					...scope,
+					surveyIds: selection.surveyIds,
+					selection: selection.basis,
+					selectionWords: selection.words
+				}
+			: scope,
 		methods,
 		populations: overview.populations,
 		meter: await meterCheck(members.map((m) => m.id)),

@@ -43,6 +43,8 @@ const SPEC_ATTRIBUTES = [
 export interface MemberFilter {
 	assetId: number;
 	surveyId?: number;
+	/** Only members of these surveys (an empty list matches none). */
+	surveyIds?: readonly number[];
 	memberType?: string;
 	exposureClass?: string;
 	face?: string;
@@ -53,6 +55,10 @@ export interface MemberFilter {
 export async function membersInScope(filter: MemberFilter): Promise<MemberSpec[]> {
 	const where: WhereOptions = { assetId: filter.assetId };
 	if (filter.surveyId) Object.assign(where, { surveyId: filter.surveyId });
+	if (filter.surveyIds) {
+		if (filter.surveyIds.length === 0) return [];
+		Object.assign(where, { surveyId: [...filter.surveyIds] });
+	}
 	if (filter.memberType) Object.assign(where, { memberType: filter.memberType });
 	if (filter.exposureClass) Object.assign(where, { exposureClass: filter.exposureClass });
 	if (filter.face) Object.assign(where, { face: filter.face });

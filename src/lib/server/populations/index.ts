@@ -7,3 +7,4 @@ export * from './requirement';
 export * from './service';
 export type { MemberSpec } from './gather';
 export * from './member';
+export * from './selection';

@@ -39,8 +39,22 @@ export const methodSchema = z.object({
 	rules: z.enum(ruleSetNames, `The rule set is one of ${ruleSetNames.join(', ')}.`).optional()
 });
 
+/** A list of survey ids, "3,5" (at most 200), or "none" for an explicit empty choice. */
+const idList = z
+	.string()
+	.trim()
+	.regex(
+		/^(none|\d{1,10}(,\d{1,10}){0,199})$/,
+		'Give the surveys as ids separated by commas, e.g. 3,5, or none.'
+	)
+	.transform((text) => (text === 'none' ? [] : [...new Set(text.split(',').map(Number))]))
+	.pipe(z.array(z.number().int().positive().max(4_294_967_295)));
+
 export const scopeSchema = z.object({
+	/** One survey (the older form of `surveys`). */
 	survey: id.optional(),
+	/** The surveys whose readings count; absent, the approved ones (selection.ts). */
+	surveys: idList.optional(),
 	split: z.enum(SPLITS, `Split by one of ${SPLITS.join(', ')}.`).default('none')
 });
 

@@ -32,6 +32,8 @@ export interface PopulationResult {
 export interface PopulationScopeInput {
 	assetId: number;
 	surveyId?: number;
+	/** The surveys whose readings count (selection.ts); absent, every survey. */
+	surveyIds?: readonly number[];
 	split: Split;
 	choice: MethodChoice;
 	/** Chart data for every population (snapshots for reports); default false. */
@@ -79,7 +81,7 @@ export interface PopulationOverview {
 /** Every population of an asset (or one survey of it), judged without chart data. */
 export async function populationOverview(input: PopulationScopeInput): Promise<PopulationOverview> {
 	const groups = await gatherGroups(
-		{ assetId: input.assetId, surveyId: input.surveyId },
+		{ assetId: input.assetId, surveyId: input.surveyId, surveyIds: input.surveyIds },
 		input.split
 	);
 	return {
@@ -107,6 +109,7 @@ export async function populationDetail(
 		{
 			assetId: input.assetId,
 			surveyId: input.surveyId,
+			surveyIds: input.surveyIds,
 			memberType: selector.type,
 			exposureClass: selector.exposure,
 			face: selector.face,

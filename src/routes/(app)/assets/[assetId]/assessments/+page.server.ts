@@ -3,7 +3,15 @@ import { z } from 'zod';
 import type { Actions, PageServerLoad } from './$types';
 import { pageActor } from '$lib/server/guard';
 import { authorize, can } from '$lib/server/policy';
-import { pathId, visibleAsset, methodSchema } from '$lib/server/populations';
+import {
+	methodSchema,
+	pathId,
+	readingCountOf,
+	requestedSurveyIds,
+	scopeSchema,
+	surveySelection,
+	visibleAsset
+} from '$lib/server/populations';
 import { history, saveDraft, saveSchema, summarise } from '$lib/server/assessments';
 
 export const load: PageServerLoad = async (event) => {
@@ -11,8 +19,27 @@ export const load: PageServerLoad = async (event) => {
 	const { asset, access } = await visibleAsset(actor, pathId(event.params.assetId));
 	const rows = await history(actor, asset.id);
 	const own = access === 'own';
+	// What a save would keep: the population page's selection and methods, carried in ?query=.
+	const query = Object.fromEntries(new URLSearchParams(event.url.searchParams.get('query') ?? ''));
+	const scope = scopeSchema.safeParse(query);
+	const methods = methodSchema.safeParse(query);
+	const selection = await surveySelection(
+		asset.id,
+		scope.success ? requestedSurveyIds(scope.data) : null
+	);
 	return {
 		asset: { id: asset.id, name: asset.name },
+		preview: {
+			selection,
+			readingCount: await readingCountOf(asset.id, selection.surveyIds),
+			methods: methods.success ? methods.data : methodSchema.parse({}),
+			split: scope.success ? scope.data.split : 'none',
+			queryProblem: !scope.success
+				? scope.error.issues[0].message
+				: !methods.success
+					? methods.error.issues[0].message
+					: null
+		},
 		assessments: await summarise(rows),
 		canSave: own && can(actor.role, 'assessment:write'),
 		canApprove: own && can(actor.role, 'assessment:approve')
@@ -59,12 +86,19 @@ export const actions = {
 		if (supersedes && !supersedes.success) {
 			return refuse(values, { reason: supersedes.error.issues[0].message });
 		}
-		const survey = Number(query.survey) || null;
+		const scope = scopeSchema.safeParse(query);
+		if (!scope.success) return refuse(values, { title: scope.error.issues[0].message });
+		if (scope.data.surveys?.length === 0) {
+			return refuse(values, {
+				title: 'No survey is included: go back and tick at least one survey.'
+			});
+		}
 		const saved = await saveDraft(actor, {
 			assetId: pathId(params.assetId),
 			title: parsed.data.title,
-			surveyId: survey,
-			split: (['face', 'survey', 'member'] as const).find((s) => s === query.split) ?? 'none',
+			surveyId: null,
+			surveyIds: requestedSurveyIds(scope.data),
+			split: scope.data.split,
 			methods: methods.data,
 			recommendations: parsed.data.recommendations || null,
 			supersedes: supersedes?.data ?? null

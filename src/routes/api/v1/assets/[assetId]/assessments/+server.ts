@@ -20,6 +20,7 @@ export const POST: RequestHandler = async ({ locals, params, request }) => {
 		assetId,
 		title: body.title,
 		surveyId: body.survey,
+		surveyIds: body.surveys,
 		split: body.split,
 		methods: body.methods,
 		recommendations: body.recommendations,

@@ -7,9 +7,10 @@ import {
 	parseParams,
 	pathId,
 	populationOverview,
+	requestedSurveyIds,
 	scopeSchema,
-	visibleAsset,
-	visibleSurvey
+	surveySelection,
+	visibleAsset
 } from '$lib/server/populations';
 
 /** The population overview of an asset or one of its surveys: every group, judged by the engine. */
@@ -19,13 +20,13 @@ export const GET: RequestHandler = async ({ locals, params, url }) => {
 	const query = paramsOf(url);
 	const scope = parseParams(scopeSchema, query);
 	const choice = parseParams(methodSchema, query);
-	if (scope.survey) await visibleSurvey(actor, assetId, scope.survey);
-	else await visibleAsset(actor, assetId);
+	await visibleAsset(actor, assetId);
+	const selection = await surveySelection(assetId, requestedSurveyIds(scope));
 	const overview = await populationOverview({
 		assetId,
-		surveyId: scope.survey,
+		surveyIds: selection.surveyIds,
 		split: scope.split,
 		choice
 	});
-	return json(overview);
+	return json({ ...overview, selection });
 };

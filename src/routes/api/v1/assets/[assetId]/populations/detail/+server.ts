@@ -10,9 +10,10 @@ import {
 	parseParams,
 	pathId,
 	populationDetail,
+	requestedSurveyIds,
 	scopeSchema,
-	visibleAsset,
-	visibleSurvey
+	surveySelection,
+	visibleAsset
 } from '$lib/server/populations';
 
 /** One population with chart data, per-member box figures and the meter's verification. */
@@ -23,13 +24,17 @@ export const GET: RequestHandler = async ({ locals, params, url }) => {
 	const scope = parseParams(scopeSchema, query);
 	const selector = parseParams(groupSchema, query);
 	const choice = parseParams(methodSchema, query);
-	if (scope.survey) await visibleSurvey(actor, assetId, scope.survey);
-	else await visibleAsset(actor, assetId);
-	const detail = await populationDetail({ assetId, surveyId: scope.survey, choice }, selector);
+	await visibleAsset(actor, assetId);
+	const selection = await surveySelection(assetId, requestedSurveyIds(scope));
+	const detail = await populationDetail(
+		{ assetId, surveyIds: selection.surveyIds, choice },
+		selector
+	);
 	if (!detail) error(404, 'No members of this asset match that population.');
 	const type = choice.percentile === '6' ? 6 : 7;
 	return json({
 		population: detail.result,
+		selection,
 		boxes: memberBoxes(detail.group, type),
 		meter: await meterCheck(detail.group.members.map((m) => m.id))
 	});
