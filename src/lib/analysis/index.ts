@@ -113,8 +113,45 @@ export {
 	chlorideCriticalDepthMm,
 	chlorideTimeToDepassivationYears,
 	m2PerSToMm2PerYear,
+	mm2PerYearToM2PerS,
 	type ChlorideModel
 } from './durability/chloride';
+export {
+	carbonationFront,
+	carbonationRate,
+	carbonationRates,
+	type CarbonationCharacteristicMethod,
+	type CarbonationRate,
+	type CarbonationRatePopulation,
+	type CarbonationTest
+} from './durability/carbonationRates';
+export { chloridePercentOfBinder } from './durability/chlorideContentBasis';
+export {
+	fitChlorideProfile,
+	MIN_FITTED_INCREMENTS,
+	type ChlorideFit,
+	type ChlorideFitOptions,
+	type ChlorideFitPoint,
+	type ChlorideFitRefused,
+	type ChlorideFitted,
+	type ChlorideIncrement,
+	type ChlorideProfile
+} from './durability/chlorideProfileFit';
+export { type MeasuredFront } from './durability/measuredFront';
+export {
+	measuredDepassivation,
+	projectMeasuredDepassivation,
+	type MeasuredDepassivationNow,
+	type MeasuredProjection,
+	type ProjectionOptions
+} from './durability/measuredDepassivation';
+export {
+	depassivationSensitivity,
+	type DepassivationSensitivity,
+	type SensitivityInput,
+	type SensitivityOptions,
+	type SensitivityRow
+} from './durability/depassivationSensitivity';
 export {
 	depassivationAssessment,
 	timesToDepassivationYears,

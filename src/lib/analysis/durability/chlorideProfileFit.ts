@@ -79,7 +79,7 @@ export interface ChlorideFitted extends FitCommon {
 
 export interface ChlorideFitRefused extends FitCommon {
 	status: 'refused';
-	code: 'too-few-points' | 'no-gradient' | 'not-converged';
+	code: 'too-few-points' | 'no-gradient' | 'not-converged' | 'undetermined';
 	/** Plain words for the engineer. */
 	reason: string;
 }
@@ -155,7 +155,8 @@ function refuse(
  * Fit Cs and Da to one measured profile (see the file comment for the method).
  * Returns status 'fitted' with Cs, Da (mm²/year and m²/s), their standard errors, correlation,
  * residual SD and warnings; or status 'refused' with a plain reason when fewer than 3
- * increments remain, the contents do not fall with depth, or the search does not converge.
+ * increments remain, the contents do not fall with depth, the search does not converge, or
+ * the fitted curve is flat (or spent) over the sampled depths so Da (or Cs) is not determined.
  * Throws on malformed input (a depth, content or age that is not a number ≥ 0). Cost O(n) a
  * step, ≈ 10 steps.
  * @example fitChlorideProfile({ ageYears: 25, initialContent: 0.05, increments }).dMm2PerYear
@@ -225,7 +226,51 @@ function solveProfile(common: FitCommon, x: Float64Array, y: Float64Array): Chlo
 			'no-gradient',
 			'The fitted surface content is not above the initial content: no chloride ingress to fit.'
 		);
+	const undetermined = determinedWithin(x, da, t) ?? identifiable(r.jtj);
+	if (undetermined) return refuse(common, undetermined.code, undetermined.reason);
 	return fittedResult(common, x, y, r.p0, da, r);
+}
+
+/** JᵀJ singular: the two parameters cannot be told apart (no standard errors). */
+function identifiable(
+	jtj: [number, number, number]
+): { code: 'undetermined'; reason: string } | null {
+	const [a00, a01, a11] = jtj;
+	if (a00 * a11 - a01 * a01 > 1e-12 * a00 * a11) return null;
+	return {
+		code: 'undetermined',
+		reason:
+			'The surface content and the diffusion coefficient cannot be told apart from these increments.'
+	};
+}
+
+/**
+ * The data fix Da only where the fitted curve bends within the sampled depths. When
+ * x/(2√(Da·t)) stays below 0.05 at the deepest point the curve is flat there (erfc falls by
+ * under 6 %) and Da runs off to any large value; above 3 at the shallowest (erfc < 3e-5)
+ * every point sits at Ci and Cs is not seen. Both bounds are our choice.
+ */
+function determinedWithin(
+	x: Float64Array,
+	da: number,
+	t: number
+): { code: ChlorideFitRefused['code']; reason: string } | null {
+	const scale = 1 / (2 * Math.sqrt(da * t));
+	if (Math.max(...x) * scale < 0.05)
+		return {
+			code: 'no-gradient',
+			reason:
+				'The chloride content hardly falls over the sampled depths, so the diffusion ' +
+				'coefficient is not determined: sample deeper.'
+		};
+	if (Math.min(...x) * scale > 3)
+		return {
+			code: 'undetermined',
+			reason:
+				'Every fitted increment is at the initial content: the surface content cannot be ' +
+				'told from these increments; sample in thinner increments near the surface.'
+		};
+	return null;
 }
 
 function fittedResult(
