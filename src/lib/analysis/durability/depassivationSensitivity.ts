@@ -10,7 +10,7 @@
  * ageing exponent by an SD the caller states (they are assumptions; not ranked without one).
  * Shares use the cover < front convention of measuredDepassivation.
  */
-import { requireReadings } from '../readings';
+import { countBelowSorted, requireReadings } from '../readings';
 import { chlorideFrontCoefficient, frontSources, shareBelowFronts } from './measuredFront';
 import type { FrontSource, MeasuredFront } from './measuredFront';
 
@@ -142,7 +142,8 @@ export function depassivationSensitivity(
 				? list.map((s) => movedChloride(s, crit, {}))
 				: list;
 		return shareBelowFronts(
-			sortedCoversMm,
+			(d) => countBelowSorted(sortedCoversMm, d),
+			sortedCoversMm.length,
 			resolved.map((s) => s.coefficient),
 			resolved.map((s) => s.exponent),
 			t,

@@ -18,7 +18,8 @@
  * fronts' for survey-sized populations.
  */
 import { percentileSorted } from '../percentile';
-import { requireReadings } from '../readings';
+import { countBelowSorted, requireReadings } from '../readings';
+import { coverCounter } from './coverIndex';
 import {
 	chlorideFrontCoefficient,
 	checkAges,
@@ -65,7 +66,13 @@ export function measuredDepassivation(
 	checkAges([ageYears]);
 	const { sources, refused } = frontSources(front);
 	const locations = sources.map((s) => {
-		const one = shareBelowFronts(sortedCoversMm, [s.coefficient], [s.exponent], ageYears);
+		const one = shareBelowFronts(
+			(d) => countBelowSorted(sortedCoversMm, d),
+			sortedCoversMm.length,
+			[s.coefficient],
+			[s.exponent],
+			ageYears
+		);
 		const depth =
 			s.coefficient === Infinity ? null : s.coefficient * Math.pow(ageYears, s.exponent);
 		return {
@@ -159,6 +166,8 @@ export function projectMeasuredDepassivation(
 	const shares = ages.map(() => new Float64Array(replicates));
 	const uniform = mulberry32(seed);
 	const z = normalSampler(uniform);
+	const count = coverCounter(sortedCoversMm);
+	const n = sortedCoversMm.length;
 	const drawnA = new Float64Array(m);
 	const drawnG = new Float64Array(m);
 	for (let b = 0; b < replicates; b++) {
@@ -168,7 +177,7 @@ export function projectMeasuredDepassivation(
 			drawnG[j] = pick.exponent;
 		}
 		for (let i = 0; i < ages.length; i++)
-			shares[i][b] = shareBelowFronts(sortedCoversMm, drawnA, drawnG, ages[i]);
+			shares[i][b] = shareBelowFronts(count, n, drawnA, drawnG, ages[i]);
 	}
 	const warnings =
 		m < 2 ? ['One test location: the spread between locations is not part of the band.'] : [];
@@ -177,7 +186,7 @@ export function projectMeasuredDepassivation(
 			const sorted = shares[i].sort();
 			return {
 				ageYears: t,
-				share: shareBelowFronts(sortedCoversMm, a, g, t),
+				share: shareBelowFronts(count, n, a, g, t),
 				band: probabilities.map((p) => ({ p, share: percentileSorted(sorted, p) }))
 			};
 		}),

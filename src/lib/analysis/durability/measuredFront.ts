@@ -7,9 +7,9 @@
  * Depassivation convention, the engine's c_min one: a bar is depassivated when its cover is
  * strictly less than the front depth; a cover equal to the front is still protected.
  */
-import { countBelowSorted } from '../readings';
 import { erfcInverse } from '../normalDistribution';
 import type { CarbonationRate } from './carbonationRates';
+import type { CountBelow } from './coverIndex';
 import type { ChlorideFit, ChlorideFitted } from './chlorideProfileFit';
 
 export type MeasuredFront =
@@ -102,10 +102,12 @@ export function checkAges(agesYears: readonly number[]): void {
 /**
  * Share of sorted covers depassivated when the front is equally likely to be any source's:
  * (1/m)·Σ_j #(cover < depth_j(t))/n. `shiftMm` and `spread` move the covers as the
- * sensitivity needs (cover' = mean + spread·(cover − mean) + shift). Cost O(m·log n).
+ * sensitivity needs (cover' = mean + spread·(cover − mean) + shift). `countBelow` is a
+ * coverCounter of the n sorted covers. Cost O(m) counts.
  */
 export function shareBelowFronts(
-	sorted: Float64Array,
+	countBelow: CountBelow,
+	n: number,
 	coefficients: ArrayLike<number>,
 	exponents: ArrayLike<number>,
 	ageYears: number,
@@ -116,7 +118,7 @@ export function shareBelowFronts(
 		let depth = frontDepthMm(coefficients[j], exponents[j], ageYears);
 		if (coverMove && Number.isFinite(depth))
 			depth = coverMove.meanMm + (depth - coverMove.shiftMm - coverMove.meanMm) / coverMove.spread;
-		total += countBelowSorted(sorted, depth);
+		total += countBelow(depth);
 	}
-	return total / (coefficients.length * sorted.length);
+	return total / (coefficients.length * n);
 }
