@@ -127,24 +127,30 @@ export {
 } from './durability/carbonationRates';
 export { chloridePercentOfBinder } from './durability/chlorideContentBasis';
 export {
-	fitChlorideProfile,
 	MIN_FITTED_INCREMENTS,
+	type ChlorideFitPoint,
+	type ChlorideIncrement,
+	type ChlorideProfile,
+	type InitialContent
+} from './durability/chlorideProfile';
+export {
+	chlorideModelFromFit,
+	fitChlorideProfile,
 	type ChlorideFit,
 	type ChlorideFitOptions,
-	type ChlorideFitPoint,
 	type ChlorideFitRefused,
-	type ChlorideFitted,
-	type ChlorideIncrement,
-	type ChlorideProfile
+	type ChlorideFitted
 } from './durability/chlorideProfileFit';
 export { type MeasuredFront } from './durability/measuredFront';
 export {
 	measuredDepassivation,
+	type MeasuredDepassivationNow
+} from './durability/measuredDepassivation';
+export {
 	projectMeasuredDepassivation,
-	type MeasuredDepassivationNow,
 	type MeasuredProjection,
 	type ProjectionOptions
-} from './durability/measuredDepassivation';
+} from './durability/measuredProjection';
 export {
 	depassivationSensitivity,
 	type DepassivationSensitivity,

@@ -4,6 +4,7 @@ import {
 	carbonationRates,
 	chlorideContentAt,
 	chlorideCriticalDepthMm,
+	chlorideModelFromFit,
 	depassivationSensitivity,
 	erfc,
 	fitChlorideProfile,
@@ -90,17 +91,10 @@ describe('share depassivated now (cover < front, the c_min convention: a cover e
 		);
 		if (fit.status !== 'fitted') throw new Error(fit.reason);
 		const front: MeasuredFront = { kind: 'chloride', fits: [fit], criticalContent: 0.5 };
-		const engine = chlorideCriticalDepthMm(
-			{
-				surfaceContent: fit.surfaceContent,
-				initialContent: 0.05,
-				dRefMm2PerYear: fit.dMm2PerYear,
-				tRefYears: 25,
-				ageingExponent: 0.4,
-				criticalContent: 0.5
-			},
-			80
-		);
+		// chlorideModelFromFit: D_ref = Da at t_ref = 25 a (the sampling age), α = 0.4
+		const model = chlorideModelFromFit(fit, 0.5);
+		expect(model).toMatchObject({ tRefYears: 25, ageingExponent: 0.4, criticalContent: 0.5 });
+		const engine = chlorideCriticalDepthMm(model, 80);
 		expect(measuredDepassivation(ONE_TO_HUNDRED, front, 80).locations[0].frontDepthMm).toBeCloseTo(
 			engine ?? NaN,
 			9

@@ -11,28 +11,18 @@ import { erfc } from '../normalDistribution';
 import { mm2PerYearToM2PerS } from './chloride';
 import { leastSquares2 } from './leastSquares2';
 import { chlorideStartingValues } from './chlorideStart';
-
-export interface ChlorideIncrement {
-	/** Depth of the increment's top and bottom below the exposed surface, mm. */
-	fromMm: number;
-	toMm: number;
-	/** Chloride content of the increment (% by mass of binder). */
-	content: number;
-	/** The increment at the surface, left out of the fit; by default the shallowest one. */
-	outermost?: boolean;
-}
-
-export interface ChlorideProfile {
-	memberId?: number | string;
-	label?: string;
-	increments: readonly ChlorideIncrement[];
-	/** Age of the concrete at sampling, years. */
-	ageYears: number;
-	/** Initial (background) content Ci, same unit as the increments. */
-	initialContent?: number;
-	/** How Ci was obtained: on a deep sample ('measured') or taken from elsewhere ('stated'). */
-	initialContentBasis?: 'measured' | 'stated';
-}
+import { determinedWithin, fitWarnings, hasGradient, identifiable } from './chlorideFitChecks';
+import {
+	type ChlorideFitPoint,
+	type ChlorideProfile,
+	type InitialContent,
+	MIN_FITTED_INCREMENTS,
+	checkAgeing,
+	checkProfile,
+	choosePoints,
+	initialContentOf
+} from './chlorideProfile';
+import type { ChlorideModel } from './chloride';
 
 export interface ChlorideFitOptions {
 	/** Ci used when the profile gives none (stated). */
@@ -43,19 +33,11 @@ export interface ChlorideFitOptions {
 	ageingExponent?: number;
 }
 
-export interface ChlorideFitPoint {
-	depthMm: number;
-	content: number;
-	used: boolean;
-	/** Fitted content at this depth (fitted profiles only). */
-	fittedContent?: number;
-}
-
 interface FitCommon {
 	memberId?: number | string;
 	label?: string;
 	ageYears: number;
-	initialContent: { value: number; basis: 'measured' | 'stated' };
+	initialContent: InitialContent;
 	ageingExponent: number;
 	points: ChlorideFitPoint[];
 }
@@ -86,63 +68,6 @@ export interface ChlorideFitRefused extends FitCommon {
 
 export type ChlorideFit = ChlorideFitted | ChlorideFitRefused;
 
-/** Fewest increments left after the exclusion: two parameters and one degree of freedom. */
-export const MIN_FITTED_INCREMENTS = 3;
-
-function checkProfile(profile: ChlorideProfile): void {
-	if (!(Number.isFinite(profile.ageYears) && profile.ageYears > 0))
-		throw new Error('chloride profile: age at sampling must be a number of years > 0');
-	profile.increments.forEach((inc, i) => {
-		const where = `chloride profile increment ${i + 1}`;
-		if (!(Number.isFinite(inc.fromMm) && inc.fromMm >= 0 && Number.isFinite(inc.toMm)))
-			throw new Error(`${where}: depths must be numbers ≥ 0 mm`);
-		if (!(inc.toMm > inc.fromMm)) throw new Error(`${where}: "to" must be deeper than "from"`);
-		if (!(Number.isFinite(inc.content) && inc.content >= 0))
-			throw new Error(`${where}: content must be a number ≥ 0`);
-	});
-}
-
-function initialContentOf(
-	profile: ChlorideProfile,
-	options: ChlorideFitOptions
-): FitCommon['initialContent'] {
-	const value = profile.initialContent ?? options.initialContent;
-	if (value === undefined)
-		throw new Error(
-			'chloride profile needs an initial content Ci: measured on a deep sample, or stated'
-		);
-	if (!(Number.isFinite(value) && value >= 0))
-		throw new Error('chloride profile: initial content Ci must be a number ≥ 0');
-	const basis = profile.initialContent === undefined ? 'stated' : profile.initialContentBasis;
-	return { value, basis: basis ?? 'stated' };
-}
-
-/** Points by mid-depth; the flagged increments, or else the shallowest one, left out. */
-function choosePoints(profile: ChlorideProfile, exclude: boolean): ChlorideFitPoint[] {
-	const sorted = [...profile.increments].sort((a, b) => a.fromMm + a.toMm - (b.fromMm + b.toMm));
-	const flagged = sorted.some((i) => i.outermost);
-	return sorted.map((inc, i) => ({
-		depthMm: (inc.fromMm + inc.toMm) / 2,
-		content: inc.content,
-		used: !exclude || (flagged ? !inc.outermost : i > 0)
-	}));
-}
-
-function checkAgeing(alpha: number): number {
-	if (!(alpha >= 0 && alpha < 1)) throw new Error('chloride ageing exponent must be in [0, 1)');
-	return alpha;
-}
-
-/** Contents not falling with depth, or all at or below Ci: nothing to fit. */
-function hasGradient(depths: Float64Array, contents: Float64Array, ci: number): boolean {
-	const n = depths.length;
-	const mx = depths.reduce((s, x) => s + x, 0) / n;
-	const my = contents.reduce((s, y) => s + y, 0) / n;
-	let sxy = 0;
-	for (let i = 0; i < n; i++) sxy += (depths[i] - mx) * (contents[i] - my);
-	return sxy < 0 && Math.max(...contents) > ci;
-}
-
 function refuse(
 	common: FitCommon,
 	code: ChlorideFitRefused['code'],
@@ -166,7 +91,7 @@ export function fitChlorideProfile(
 	options: ChlorideFitOptions = {}
 ): ChlorideFit {
 	checkProfile(profile);
-	const ci = initialContentOf(profile, options);
+	const ci = initialContentOf(profile, options.initialContent);
 	const points = choosePoints(profile, options.excludeOutermost ?? true);
 	const common: FitCommon = {
 		...(profile.memberId === undefined ? {} : { memberId: profile.memberId }),
@@ -231,48 +156,6 @@ function solveProfile(common: FitCommon, x: Float64Array, y: Float64Array): Chlo
 	return fittedResult(common, x, y, r.p0, da, r);
 }
 
-/** JᵀJ singular: the two parameters cannot be told apart (no standard errors). */
-function identifiable(
-	jtj: [number, number, number]
-): { code: 'undetermined'; reason: string } | null {
-	const [a00, a01, a11] = jtj;
-	if (a00 * a11 - a01 * a01 > 1e-12 * a00 * a11) return null;
-	return {
-		code: 'undetermined',
-		reason:
-			'The surface content and the diffusion coefficient cannot be told apart from these increments.'
-	};
-}
-
-/**
- * The data fix Da only where the fitted curve bends within the sampled depths. When
- * x/(2√(Da·t)) stays below 0.05 at the deepest point the curve is flat there (erfc falls by
- * under 6 %) and Da runs off to any large value; above 3 at the shallowest (erfc < 3e-5)
- * every point sits at Ci and Cs is not seen. Both bounds are our choice.
- */
-function determinedWithin(
-	x: Float64Array,
-	da: number,
-	t: number
-): { code: ChlorideFitRefused['code']; reason: string } | null {
-	const scale = 1 / (2 * Math.sqrt(da * t));
-	if (Math.max(...x) * scale < 0.05)
-		return {
-			code: 'no-gradient',
-			reason:
-				'The chloride content hardly falls over the sampled depths, so the diffusion ' +
-				'coefficient is not determined: sample deeper.'
-		};
-	if (Math.min(...x) * scale > 3)
-		return {
-			code: 'undetermined',
-			reason:
-				'Every fitted increment is at the initial content: the surface content cannot be ' +
-				'told from these increments; sample in thinner increments near the surface.'
-		};
-	return null;
-}
-
 function fittedResult(
 	common: FitCommon,
 	x: Float64Array,
@@ -317,20 +200,19 @@ function fittedResult(
 	};
 }
 
-function fitWarnings(
-	n: number,
-	cs: number,
-	seCs: number,
-	da: number,
-	seDa: number,
-	y: Float64Array
-): string[] {
-	const warnings: string[] = [];
-	// Five or more fitted points: our choice (common practice in profile grinding), from memory.
-	if (n < 5) warnings.push(`Only ${n} increments fitted: the standard errors rest on few points.`);
-	if (seDa > 0.5 * da || seCs > 0.5 * cs)
-		warnings.push('The fitted values are uncertain: a standard error exceeds half the value.');
-	if (cs > 2 * Math.max(...y))
-		warnings.push('The surface content is extrapolated to more than twice the highest measured.');
-	return warnings;
+/**
+ * The fitted profile as the engine's ChlorideModel (chloride.ts), so chlorideContentAt draws
+ * the fitted curve and the existing time-to-depassivation functions apply: D_ref = Da at
+ * t_ref = the age at sampling, with the fit's ageing exponent.
+ * @example chlorideContentAt(chlorideModelFromFit(fit, 0.6), 30, fit.ageYears)
+ */
+export function chlorideModelFromFit(fit: ChlorideFitted, criticalContent: number): ChlorideModel {
+	return {
+		surfaceContent: fit.surfaceContent,
+		initialContent: fit.initialContent.value,
+		dRefMm2PerYear: fit.dMm2PerYear,
+		tRefYears: fit.ageYears,
+		ageingExponent: fit.ageingExponent,
+		criticalContent
+	};
 }

@@ -1,33 +1,15 @@
 /**
- * Depassivation of a cover population from measured fronts (carbonation tests or fitted
- * chloride profiles): the share now, and its projection over time with a band.
+ * Depassivation of a cover population now, from measured fronts (carbonation tests or fitted
+ * chloride profiles).
  *
  * Convention (the engine's c_min one): a reading is depassivated when its cover is strictly
  * less than the front depth. Where the population has several test locations or profiles,
  * every reading is taken as equally likely to sit under any of them, so the share is the mean
  * over locations of #(cover < front_j)/n.
- *
- * Band: seeded bootstrap (mulberry32). Each replicate resamples the locations with replacement
- * (their spread) and draws each chosen location's parameters from its fit (within-location
- * uncertainty): chloride (Cs, ln Da) bivariate normal with the fit's standard errors and
- * correlation (ln Da so Da stays positive; its SD is se(Da)/Da by the delta method);
- * carbonation k normal with the standard error of the depths read there, floored at 0.
- * The bootstrap rather than the delta method because the share is a step function of the
- * front (an empirical count), whose derivative the delta method needs and does not have.
- * Left out: the sampling uncertainty of the cover readings themselves, small next to the
- * fronts' for survey-sized populations.
  */
-import { percentileSorted } from '../percentile';
 import { countBelowSorted, requireReadings } from '../readings';
-import { coverCounter } from './coverIndex';
-import {
-	chlorideFrontCoefficient,
-	checkAges,
-	frontSources,
-	shareBelowFronts
-} from './measuredFront';
-import type { FrontSource, MeasuredFront } from './measuredFront';
-import { mulberry32, normalSampler } from './prng';
+import { checkAges, frontSources, shareBelowFronts } from './measuredFront';
+import type { MeasuredFront } from './measuredFront';
 
 export interface MeasuredDepassivationNow {
 	ageYears: number;
@@ -39,7 +21,8 @@ export interface MeasuredDepassivationNow {
 	refusedProfiles: number;
 }
 
-function checkSorted(sortedCoversMm: Float64Array, name: string): void {
+/** Throw unless the covers are numbers ≥ 0 sorted ascending (as toSortedCovers gives). */
+export function checkSorted(sortedCoversMm: Float64Array, name: string): void {
 	requireReadings(name, sortedCoversMm.length, 1);
 	for (let i = 0; i < sortedCoversMm.length; i++)
 		if (
@@ -87,115 +70,5 @@ export function measuredDepassivation(
 		convention: 'cover < front',
 		locations,
 		refusedProfiles: refused
-	};
-}
-
-export interface ProjectionOptions {
-	agesYears: readonly number[];
-	/** Probabilities of the band, default [0.05, 0.5, 0.95]. */
-	bandProbabilities?: readonly number[];
-	/** Bootstrap replicates, default 1000; seed default 1. */
-	replicates?: number;
-	seed?: number;
-}
-
-export interface MeasuredProjection {
-	atAges: {
-		ageYears: number;
-		/** Share with every location at its fitted values. */
-		share: number;
-		band: { p: number; share: number }[];
-	}[];
-	method: 'bootstrap';
-	replicates: number;
-	seed: number;
-	locations: number;
-	refusedProfiles: number;
-	convention: 'cover < front';
-	warnings: string[];
-}
-
-/** One bootstrap draw of a source's front coefficient. */
-function drawCoefficient(source: FrontSource, z: () => number, criticalContent: number): number {
-	if (source.carbonation) return Math.max(0, source.carbonation.k + source.carbonation.se * z());
-	const f = source.chloride;
-	if (!f) return source.coefficient;
-	const z1 = z();
-	const z2 = z();
-	const rho = Math.max(-1, Math.min(1, f.correlation));
-	const cs = f.surfaceContent + f.surfaceContentSe * z1;
-	const lnSd = f.dSeMm2PerYear / f.dMm2PerYear;
-	const da = f.dMm2PerYear * Math.exp(lnSd * (rho * z1 + Math.sqrt(1 - rho * rho) * z2));
-	return chlorideFrontCoefficient(
-		cs,
-		f.initialContent.value,
-		criticalContent,
-		da,
-		f.ageYears,
-		f.ageingExponent
-	);
-}
-
-/**
- * Projection of the share depassivated at each age, the central line at the fitted values and
- * a band from the seeded bootstrap described in the file comment.
- * Units: covers mm (sorted), ages years. Cost O(B·m·(A·log n)) for B replicates, m locations,
- * A ages: about 20 ms for 100 000 readings, 20 profiles, 10 ages, 1000 replicates.
- * @example projectMeasuredDepassivation(sorted, front, { agesYears: [25, 50, 75, 100] }).atAges[1].band
- */
-export function projectMeasuredDepassivation(
-	sortedCoversMm: Float64Array,
-	front: MeasuredFront,
-	options: ProjectionOptions
-): MeasuredProjection {
-	checkSorted(sortedCoversMm, 'projectMeasuredDepassivation');
-	checkAges(options.agesYears);
-	const probabilities = options.bandProbabilities ?? [0.05, 0.5, 0.95];
-	if (probabilities.some((p) => !(p >= 0 && p <= 1)))
-		throw new Error('band probabilities must lie in [0, 1]');
-	const replicates = options.replicates ?? 1000;
-	if (!(Number.isInteger(replicates) && replicates >= 2))
-		throw new Error('the bootstrap needs at least 2 replicates');
-	const seed = options.seed ?? 1;
-	const { sources, refused } = frontSources(front);
-	const critical = front.kind === 'chloride' ? front.criticalContent : 0;
-	const m = sources.length;
-	const a = Float64Array.from(sources, (s) => s.coefficient);
-	const g = Float64Array.from(sources, (s) => s.exponent);
-	const ages = options.agesYears;
-	const shares = ages.map(() => new Float64Array(replicates));
-	const uniform = mulberry32(seed);
-	const z = normalSampler(uniform);
-	const count = coverCounter(sortedCoversMm);
-	const n = sortedCoversMm.length;
-	const drawnA = new Float64Array(m);
-	const drawnG = new Float64Array(m);
-	for (let b = 0; b < replicates; b++) {
-		for (let j = 0; j < m; j++) {
-			const pick = sources[Math.floor(uniform() * m)];
-			drawnA[j] = drawCoefficient(pick, z, critical);
-			drawnG[j] = pick.exponent;
-		}
-		for (let i = 0; i < ages.length; i++)
-			shares[i][b] = shareBelowFronts(count, n, drawnA, drawnG, ages[i]);
-	}
-	const warnings =
-		m < 2 ? ['One test location: the spread between locations is not part of the band.'] : [];
-	return {
-		atAges: ages.map((t, i) => {
-			const sorted = shares[i].sort();
-			return {
-				ageYears: t,
-				share: shareBelowFronts(count, n, a, g, t),
-				band: probabilities.map((p) => ({ p, share: percentileSorted(sorted, p) }))
-			};
-		}),
-		method: 'bootstrap',
-		replicates,
-		seed,
-		locations: m,
-		refusedProfiles: refused,
-		convention: 'cover < front',
-		warnings
 	};
 }
