@@ -218,7 +218,7 @@ describe('edge cases: clear errors, never NaN', () => {
 			),
 			{ numRuns: 200 }
 		);
-	});
+	}, 30_000);
 });
 
 describe('projection over time with a bootstrap band', () => {
@@ -286,13 +286,14 @@ describe('projection over time with a bootstrap band', () => {
 						return b[2].share - b[0].share;
 					};
 					const few = band(fits);
-					const many = band([...fits, ...fits, ...fits, ...fits]);
-					return few === 0 ? many === 0 : many < few;
+					// A band a step or two wide is ruled by the count's discreteness, not by the spread.
+					fc.pre(few >= 0.02);
+					return band([...fits, ...fits, ...fits, ...fits]) < few;
 				}
 			),
 			{ numRuns: 40 }
 		);
-	});
+	}, 30_000);
 });
 
 describe('sensitivity at the design life (one SD of each input, one at a time)', () => {
