@@ -6,6 +6,13 @@ import type { ChlorideFitRefused } from './chlorideProfileFit';
 
 export type Refusal = { code: ChlorideFitRefused['code']; reason: string };
 
+/** Largest value (a loop: spreading a typed array into Math.max goes through its iterator). */
+export function largest(values: Float64Array): number {
+	let m = -Infinity;
+	for (let i = 0; i < values.length; i++) if (values[i] > m) m = values[i];
+	return m;
+}
+
 /** Contents not falling with depth, or all at or below Ci: nothing to fit. */
 export function hasGradient(depths: Float64Array, contents: Float64Array, ci: number): boolean {
 	const n = depths.length;
@@ -13,7 +20,7 @@ export function hasGradient(depths: Float64Array, contents: Float64Array, ci: nu
 	const my = contents.reduce((s, y) => s + y, 0) / n;
 	let sxy = 0;
 	for (let i = 0; i < n; i++) sxy += (depths[i] - mx) * (contents[i] - my);
-	return sxy < 0 && Math.max(...contents) > ci;
+	return sxy < 0 && largest(contents) > ci;
 }
 
 /** JᵀJ singular: the two parameters cannot be told apart (no standard errors). */
@@ -33,16 +40,17 @@ export function identifiable(jtj: [number, number, number]): Refusal | null {
  * under 6 %) and Da runs off to any large value; above 3 at the shallowest (erfc < 3e-5)
  * every point sits at Ci and Cs is not seen. Both bounds are our choice.
  */
+/** `x` ascending (the points are sorted by depth). */
 export function determinedWithin(x: Float64Array, da: number, t: number): Refusal | null {
 	const scale = 1 / (2 * Math.sqrt(da * t));
-	if (Math.max(...x) * scale < 0.05)
+	if (x[x.length - 1] * scale < 0.05)
 		return {
 			code: 'no-gradient',
 			reason:
 				'The chloride content hardly falls over the sampled depths, so the diffusion ' +
 				'coefficient is not determined: sample deeper.'
 		};
-	if (Math.min(...x) * scale > 3)
+	if (x[0] * scale > 3)
 		return {
 			code: 'undetermined',
 			reason:
@@ -65,7 +73,7 @@ export function fitWarnings(
 	if (n < 5) warnings.push(`Only ${n} increments fitted: the standard errors rest on few points.`);
 	if (seDa > 0.5 * da || seCs > 0.5 * cs)
 		warnings.push('The fitted values are uncertain: a standard error exceeds half the value.');
-	if (cs > 2 * Math.max(...y))
+	if (cs > 2 * largest(y))
 		warnings.push('The surface content is extrapolated to more than twice the highest measured.');
 	return warnings;
 }

@@ -177,7 +177,9 @@ function fittedResult(
 	const ci = common.initialContent.value;
 	const scale = 1 / (2 * Math.sqrt(da * common.ageYears));
 	const points = common.points.map((p) => ({
-		...p,
+		depthMm: p.depthMm,
+		content: p.content,
+		used: p.used,
 		fittedContent: ci + (cs - ci) * erfc(p.depthMm * scale)
 	}));
 	const seCs = Math.sqrt(Math.max(0, varCs));

@@ -4,7 +4,20 @@
  * gives Da = 1/(4b²t). Good starting values keep the least-squares search short and away
  * from the flat regions of erfc.
  */
-import { erfcInverse } from '../normalDistribution';
+
+/**
+ * erfc⁻¹(q) to about 2e-3 relative, enough for a starting value: S. Winitzki's closed-form
+ * approximation of erf⁻¹ with a = 0.147 ("A handy approximation for the error function and its
+ * inverse", 2008; constant from memory). Ours because jstat's erfcinv iterates (≈ 3 µs a value,
+ * a fifth of a whole fit).
+ */
+function roughErfcInverse(q: number): number {
+	const x = 1 - q;
+	const a = 0.147;
+	const ln = Math.log(1 - x * x);
+	const b = 2 / (Math.PI * a) + ln / 2;
+	return Math.sign(x) * Math.sqrt(Math.sqrt(b * b - ln / a) - b);
+}
 
 /**
  * Cs₀ = Ci + 1.1·(max C − Ci); Da₀ from the least-squares slope of erfc⁻¹ ratios on depth.
@@ -17,13 +30,15 @@ export function chlorideStartingValues(
 	initialContent: number,
 	ageYears: number
 ): { surfaceContent: number; dMm2PerYear: number } {
-	const surfaceContent = initialContent + 1.1 * (Math.max(...contents) - initialContent);
+	let highest = -Infinity;
+	for (const c of contents) highest = Math.max(highest, c);
+	const surfaceContent = initialContent + 1.1 * (highest - initialContent);
 	let sxz = 0;
 	let sxx = 0;
 	for (let i = 0; i < depthsMm.length; i++) {
 		const ratio = (contents[i] - initialContent) / (surfaceContent - initialContent);
 		if (!(ratio > 0.001 && ratio < 0.999)) continue;
-		sxz += depthsMm[i] * erfcInverse(ratio);
+		sxz += depthsMm[i] * roughErfcInverse(ratio);
 		sxx += depthsMm[i] * depthsMm[i];
 	}
 	const slope = sxx > 0 ? sxz / sxx : 0;
