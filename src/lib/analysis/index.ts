@@ -113,8 +113,51 @@ export {
 	chlorideCriticalDepthMm,
 	chlorideTimeToDepassivationYears,
 	m2PerSToMm2PerYear,
+	mm2PerYearToM2PerS,
 	type ChlorideModel
 } from './durability/chloride';
+export {
+	carbonationFront,
+	carbonationRate,
+	carbonationRates,
+	type CarbonationCharacteristicMethod,
+	type CarbonationRate,
+	type CarbonationRatePopulation,
+	type CarbonationTest
+} from './durability/carbonationRates';
+export { chloridePercentOfBinder } from './durability/chlorideContentBasis';
+export {
+	MIN_FITTED_INCREMENTS,
+	type ChlorideFitPoint,
+	type ChlorideIncrement,
+	type ChlorideProfile,
+	type InitialContent
+} from './durability/chlorideProfile';
+export {
+	chlorideModelFromFit,
+	fitChlorideProfile,
+	type ChlorideFit,
+	type ChlorideFitOptions,
+	type ChlorideFitRefused,
+	type ChlorideFitted
+} from './durability/chlorideProfileFit';
+export { type MeasuredFront } from './durability/measuredFront';
+export {
+	measuredDepassivation,
+	type MeasuredDepassivationNow
+} from './durability/measuredDepassivation';
+export {
+	projectMeasuredDepassivation,
+	type MeasuredProjection,
+	type ProjectionOptions
+} from './durability/measuredProjection';
+export {
+	depassivationSensitivity,
+	type DepassivationSensitivity,
+	type SensitivityInput,
+	type SensitivityOptions,
+	type SensitivityRow
+} from './durability/depassivationSensitivity';
 export {
 	depassivationAssessment,
 	timesToDepassivationYears,

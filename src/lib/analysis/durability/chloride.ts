@@ -29,6 +29,11 @@ export function m2PerSToMm2PerYear(dM2PerS: number): number {
 	return dM2PerS * 1e6 * SECONDS_PER_YEAR;
 }
 
+/** Convert a diffusion coefficient from mm²/year to m²/s. @example mm2PerYearToM2PerS(31.5576) // 1e-12 */
+export function mm2PerYearToM2PerS(dMm2PerYear: number): number {
+	return dMm2PerYear / (1e6 * SECONDS_PER_YEAR);
+}
+
 /** D(t) = D_ref·(t_ref/t)^α (mm²/year). @example apparentDiffusionMm2PerYear(m, 64) */
 export function apparentDiffusionMm2PerYear(model: ChlorideModel, ageYears: number): number {
 	const alpha = model.ageingExponent ?? 0;
