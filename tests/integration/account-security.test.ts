@@ -66,11 +66,12 @@ describe('a failed password form never sends a password back', () => {
 	const typed = 'slate-harbour-copper-61';
 
 	it('a failed password reset answers 400 without the new password, under any field name', async () => {
-		for (const fields of [
+		const tries: Record<string, string>[] = [
 			{ password: typed },
 			{ password: typed, confirm: typed },
 			{ password: typed, pw: typed, repeat: typed }
-		]) {
+		];
+		for (const fields of tries) {
 			const page = await anonymousClient().postForm('/reset-password/no-such-link', fields);
 			expect(page.status).toBe(400);
 			expect(await page.text()).not.toContain(typed);
