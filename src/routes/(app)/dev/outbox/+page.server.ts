@@ -9,5 +9,5 @@ export const load: PageServerLoad = async (event) => {
 	const actor = pageActor(event, 'account:manage');
 	const mails = await devOutboxFor(actor.userId);
 	if (!mails) error(404, 'Not found.');
-	return { mails };
+	return { mails, address: event.locals.user?.email ?? '' };
 };
