@@ -185,9 +185,9 @@ describe('new-password requests (forgot-password throttle and timing)', () => {
 		expect((await ask(`${subnet()}.1`, uniqueEmail('elsewhere'))).status).toBe(303);
 	});
 
-	it('takes as long for an account that exists as for one that does not (medians of 9)', async () => {
+	it('takes as long for an account that exists as for one that does not (medians of 11)', async () => {
 		const known: string[] = [];
-		for (let i = 0; i < 9; i++)
+		for (let i = 0; i < 11; i++)
 			known.push((await signUpNewOrganisation(`timing${i}`, app.origin)).email);
 		const net = subnet();
 		const time = async (address: string, email: string) => {
@@ -202,17 +202,18 @@ describe('new-password requests (forgot-password throttle and timing)', () => {
 		await time(`${net}.250`, uniqueEmail('warm-up'));
 		const knownMs: number[] = [];
 		const unknownMs: number[] = [];
-		for (let i = 0; i < 9; i++) {
+		for (let i = 0; i < 11; i++) {
 			knownMs.push(await time(`${net}.${2 * i + 1}`, known[i]));
 			unknownMs.push(await time(`${net}.${2 * i + 2}`, uniqueEmail(`nobody${i}`)));
 		}
 		const median = (xs: number[]) => [...xs].sort((a, b) => a - b)[Math.floor(xs.length / 2)];
 		const gap = Math.abs(median(knownMs) - median(unknownMs));
-		// Generous: a security property, not a speed target. Doing the work on the request path
-		// made the gap about 160 ms here.
+		// Generous, so that a busy machine's noise (single tries here range 15–190 ms) does not
+		// fail it: a security property, not a speed target. With the account looked up and the
+		// mail handed over on the request path the gap was 160–220 ms.
 		expect(
 			gap,
 			`known ${knownMs.map(Math.round)} / unknown ${unknownMs.map(Math.round)}`
-		).toBeLessThan(50);
+		).toBeLessThan(80);
 	});
 });
