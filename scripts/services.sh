@@ -46,6 +46,9 @@ write_app_env() {
 	env_default "$ENV_FILE" SHUTDOWN_TIMEOUT 30
 	# The suite makes many API calls as a few demo users; its own rate-limit test sets a low limit.
 	env_default "$ENV_FILE" API_RATE_LIMIT "$([ "$instance" = test ] && echo 100000 || echo 300)"
+	# Every suite request comes from 127.0.0.1; the throttling test starts its own app with the
+	# default per-address limit of new-password requests.
+	if [ "$instance" = test ]; then env_default "$ENV_FILE" RESET_LIMIT_PER_ADDRESS 100000; fi
 }
 
 start_fake() {

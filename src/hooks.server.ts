@@ -6,7 +6,7 @@ import { databaseUnavailableResponse, isDatabaseUnavailable } from '$lib/server/
 import { resolveAuth } from '$lib/server/auth/resolve';
 import { toApiErrorResponse } from '$lib/server/http';
 import { limitApiRate } from '$lib/server/api/rateLimit';
-import { lockedMessage } from '$lib/server/auth/throttle-rules';
+import { lockedMessage, retryAfterSeconds } from '$lib/server/auth/throttle-rules';
 import { startAuthHousekeeping, stopAuthHousekeeping } from '$lib/server/auth/housekeeping';
 import { startMailRetryLoop, stopMailRetryLoop } from '$lib/server/mail/retry';
 import { failAbandonedImportsAtStart } from '$lib/server/import/abandoned';
@@ -72,7 +72,6 @@ export const handle: Handle = async ({ event, resolve }) => {
 };
 
 function tooManyTokenGuesses(until: Date): Response {
-	const retryAfterSeconds = Math.max(1, Math.ceil((until.getTime() - Date.now()) / 1000));
 	return json(
 		{
 			error: {
@@ -80,7 +79,7 @@ function tooManyTokenGuesses(until: Date): Response {
 				message: lockedMessage(until).replace('sign-ins', 'token attempts')
 			}
 		},
-		{ status: 429, headers: { 'retry-after': String(retryAfterSeconds) } }
+		{ status: 429, headers: { 'retry-after': String(retryAfterSeconds(until)) } }
 	);
 }
 

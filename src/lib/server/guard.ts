@@ -15,10 +15,33 @@ export function signInUrl(url: URL): string {
 	return `/sign-in?next=${encodeURIComponent(url.pathname + url.search)}`;
 }
 
-/** Only paths on our own site, so `next` cannot send anyone elsewhere after sign-in. */
+/** Any base will do: only whether a path stays on it matters. */
+const PROBE_ORIGIN = 'https://fractile.invalid';
+
+/**
+ * Control characters and backslashes are refused outright rather than cleaned: browsers drop tab
+ * and newline anywhere in a URL (so "/\t/evil.example" becomes "//evil.example") and read "\" as
+ * "/"; a newline in a Location header is also refused by Node itself (a 500, not a redirect).
+ */
+const UNSAFE_CHARACTER = /[\u0000-\u001f\u007f-\u009f\\]/;
+
+/**
+ * Only paths on our own site, so `next` cannot send anyone elsewhere after sign-in. The path is
+ * returned as the URL parser serialises it (non-ASCII percent-encoded, "/./" resolved), and that
+ * serialised form is checked again: "/.//evil.example" resolves to "//evil.example".
+ */
 export function safeNext(next: string | null | undefined, fallback = '/dashboard'): string {
-	if (!next || !next.startsWith('/') || next.startsWith('//') || next.startsWith('/\\')) {
+	if (!next || next.length > 2048 || !next.startsWith('/') || next.startsWith('//'))
+		return fallback;
+	if (UNSAFE_CHARACTER.test(next)) return fallback;
+	let url: URL;
+	try {
+		url = new URL(next, PROBE_ORIGIN);
+	} catch {
 		return fallback;
 	}
-	return next;
+	const path = url.pathname + url.search + url.hash;
+	if (url.origin !== PROBE_ORIGIN || !path.startsWith('/') || path.startsWith('//'))
+		return fallback;
+	return path;
 }

@@ -1,9 +1,9 @@
 import { redirect } from '@sveltejs/kit';
 import type { LayoutServerLoad } from './$types';
-import { env } from '$env/dynamic/private';
 import { Membership, Organisation } from '$lib/server/db';
 import { can } from '$lib/server/policy';
 import { signInUrl } from '$lib/server/guard';
+import { devOutboxEnabled } from '$lib/server/mail/dev-outbox';
 
 /**
  * The frame of every signed-in page. It only sends signed-out visitors to sign in and says
@@ -34,7 +34,7 @@ export const load: LayoutServerLoad = async ({ locals, url }) => {
 			members: !!role && can(role, 'organisation:manage'),
 			audit: !!role && can(role, 'audit:read'),
 			tokens: !!role && can(role, 'token:manage'),
-			outbox: !!role && can(role, 'mail:read') && env.DEV_OUTBOX === '1'
+			outbox: !!role && can(role, 'account:manage') && devOutboxEnabled()
 		}
 	};
 };

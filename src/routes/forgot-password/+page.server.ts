@@ -1,18 +1,27 @@
 import { redirect } from '@sveltejs/kit';
 import { z } from 'zod';
 import type { Actions, PageServerLoad } from './$types';
-import { parseForm } from '$lib/server/forms';
+import { formMessage, parseForm } from '$lib/server/forms';
 import { emailSchema } from '$lib/server/auth/schemas';
-import { requestPasswordReset } from '$lib/server/auth/password-reset';
+import { requestPasswordResetInBackground } from '$lib/server/auth/password-reset';
+import { resetRequestWait } from '$lib/server/auth/reset-throttle';
+import { clientAddress } from '$lib/server/auth/request';
+import { waitInWords } from '$lib/server/auth/throttle-rules';
 
 export const load: PageServerLoad = async ({ url }) => ({ sent: url.searchParams.has('sent') });
 
 export const actions = {
-	default: async ({ request }) => {
-		const parsed = await parseForm(request, z.object({ email: emailSchema }));
+	default: async (event) => {
+		const parsed = await parseForm(event.request, z.object({ email: emailSchema }));
 		if (!parsed.ok) return parsed.failure;
-		await requestPasswordReset(parsed.data.email);
-		// The same answer whether or not the address has an account.
+		const wait = await resetRequestWait(parsed.data.email, clientAddress(event));
+		if (wait !== null) {
+			event.setHeaders({ 'retry-after': String(wait) });
+			const message = `Too many requests for a new password. Try again in ${waitInWords(wait)}.`;
+			return formMessage(429, parsed.values, message);
+		}
+		// The same answer, after the same work, whether or not the address has an account.
+		requestPasswordResetInBackground(parsed.data.email);
 		redirect(303, '/forgot-password?sent');
 	}
 } satisfies Actions;

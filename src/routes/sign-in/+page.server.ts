@@ -19,7 +19,11 @@ export const actions = {
 		if (!parsed.ok) return parsed.failure;
 		const { email, password } = parsed.data;
 		const outcome = await attemptSignIn(email, password, clientAddress(event));
-		if (!outcome.ok) return formMessage(400, parsed.form, outcome.message);
+		if (!outcome.ok && outcome.retryAfterSeconds) {
+			event.setHeaders({ 'retry-after': String(outcome.retryAfterSeconds) });
+			return formMessage(429, parsed.values, outcome.message);
+		}
+		if (!outcome.ok) return formMessage(400, parsed.values, outcome.message);
 		await startSession(event, outcome.user.id);
 		redirect(303, safeNext(event.url.searchParams.get('next')));
 	}

@@ -20,7 +20,7 @@ export const actions = {
 			if (!(err instanceof EmailTakenError)) throw err;
 			// Said plainly: sign-up cannot hide whether an address exists without mailing it,
 			// and sign-in throttling still guards the account itself.
-			return formMessage(400, parsed.form, err.message, {
+			return formMessage(400, parsed.values, err.message, {
 				email: 'Sign in instead, or reset the password.'
 			});
 		}

@@ -30,9 +30,23 @@ export interface RateDecision {
 	allowed: boolean;
 }
 
-/** Counts one request of `caller` and says whether it is within the limit. */
+/** Counts one request of `caller` against the API's limit and says whether it is within it. */
 export async function countRequest(caller: string): Promise<RateDecision> {
 	const { API_RATE_LIMIT: limit, API_RATE_WINDOW_SECONDS: windowSeconds } = rateLimitSettings();
+	return countInWindow(caller, limit, windowSeconds);
+}
+
+/**
+ * Counts one hit of `caller` in the current fixed window of `windowSeconds` (table
+ * api_rate_counters, shared by every app process) and says whether it is within `limit`. The
+ * one counter behind the API's rate limit and the password-reset throttle; `caller` must stay
+ * under 100 characters.
+ */
+export async function countInWindow(
+	caller: string,
+	limit: number,
+	windowSeconds: number
+): Promise<RateDecision> {
 	const nowSeconds = Math.floor(Date.now() / 1000);
 	const windowStart = nowSeconds - (nowSeconds % windowSeconds);
 	// The window length is part of the bucket, so processes set up differently never share a row.

@@ -114,7 +114,7 @@ export async function mayApprove(actor: Actor, row: Assessment): Promise<boolean
 export async function approve(actor: Actor, id: number): Promise<Assessment> {
 	const found = await Assessment.findByPk(id);
 	if (!found) error(404, 'No such assessment.');
-	await ownAsset(actor, found.assetId);
+	await ownAsset(actor, found.assetId, 'No such assessment.');
 	return db().transaction(async (transaction) => {
 		const draft = await Assessment.findByPk(id, { transaction, lock: transaction.LOCK.UPDATE });
 		if (!draft || draft.state !== 'draft') error(409, 'Only a draft can be approved.');
@@ -178,7 +178,7 @@ export async function history(actor: Actor, assetId: number): Promise<Assessment
 export async function getAssessment(actor: Actor, id: number): Promise<Assessment> {
 	const found = await Assessment.findByPk(id);
 	if (!found) error(404, 'No such assessment.');
-	const { access } = await visibleAsset(actor, found.assetId);
+	const { access } = await visibleAsset(actor, found.assetId, 'No such assessment.');
 	if (found.state === 'draft' && !seesDrafts(actor, access)) error(404, 'No such assessment.');
 	return found;
 }

@@ -79,3 +79,18 @@ export function summarise(row: ApiToken): TokenSummary {
 		createdAt: row.createdAt
 	};
 }
+
+/**
+ * Revokes every live token of the user, in every organisation: after a password reset or change
+ * whoever held the old password may also have made tokens, and a token outlives any session.
+ */
+export async function revokeAllApiTokens(
+	userId: number,
+	transaction?: Transaction
+): Promise<number> {
+	const [revoked] = await ApiToken.update(
+		{ revokedAt: new Date() },
+		{ where: { userId, revokedAt: null }, transaction }
+	);
+	return revoked;
+}

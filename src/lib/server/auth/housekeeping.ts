@@ -1,5 +1,6 @@
 import { building } from '$app/environment';
-import { Op } from 'sequelize';
+import { Op, QueryTypes } from 'sequelize';
+import { db } from '../db';
 import { SignInThrottle } from '../db/models';
 import { lucia } from './lucia';
 import { FAILURE_WINDOW_SECONDS } from './throttle-rules';
@@ -31,6 +32,12 @@ async function sweep(): Promise<void> {
 				updatedAt: { [Op.lt]: forgotten },
 				[Op.or]: [{ lockedUntil: null }, { lockedUntil: { [Op.lt]: new Date() } }]
 			}
+		});
+		// Rate counters of windows long over (no window is longer than a day); a caller's own
+		// next hit clears its older rows, but one who never comes back (an address asked about
+		// once) would otherwise stay.
+		await db().query('DELETE FROM api_rate_counters WHERE window_start < NOW() - INTERVAL 2 DAY', {
+			type: QueryTypes.DELETE
 		});
 	} catch (err) {
 		console.error('auth housekeeping:', err instanceof Error ? err.message : err);

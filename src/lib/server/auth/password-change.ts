@@ -4,10 +4,12 @@ import { Op } from 'sequelize';
 import { recordAudit } from '../audit';
 import { hashPassword, verifyPassword } from './password';
 import { storedSessionId } from './adapter';
+import { revokeAllApiTokens } from './api-tokens';
 
 /**
- * Changes a password after checking the current one, and signs out every other device: whoever
- * may have learnt the old password loses the sessions it opened.
+ * Changes a password after checking the current one, signs out every other device and revokes
+ * every API token: whoever may have learnt the old password loses the sessions and tokens it
+ * opened (the user makes new tokens on the tokens page).
  */
 export async function changePassword(input: {
 	userId: number;
@@ -29,6 +31,7 @@ export async function changePassword(input: {
 			},
 			transaction
 		});
+		await revokeAllApiTokens(user.id, transaction);
 		await recordAudit({ action: 'auth.password_changed', userId: user.id }, transaction);
 	});
 	return true;

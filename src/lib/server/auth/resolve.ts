@@ -30,14 +30,16 @@ function readBearer(event: RequestEvent): string | null {
 
 /**
  * Guessing tokens is throttled per address like guessing passwords; returns the lock's end
- * when one is in force (the hook then answers 429 without looking at the token).
+ * when one is in force (the hook then answers 429). The token is looked up first: a valid token
+ * (32 random bytes, nothing to guess) is accepted even from an address that is locked for wrong
+ * tokens or failed sign-ins, so nobody sharing an address can lock a script out.
  */
 async function resolveToken(event: RequestEvent, secret: string): Promise<Date | null> {
-	const key = { scope: 'token' as const, subject: clientAddress(event) };
-	const until = await lockedUntil([key]);
-	if (until) return until;
 	const token = await verifyApiToken(secret);
 	if (!token) {
+		const key = { scope: 'token' as const, subject: clientAddress(event) };
+		const until = await lockedUntil([key]);
+		if (until) return until;
 		await recordFailure([key]);
 		return null;
 	}

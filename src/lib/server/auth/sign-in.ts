@@ -4,15 +4,22 @@ import { recordAudit } from '../audit';
 import { hashPassword, verifyPassword } from './password';
 import { lucia } from './lucia';
 import { clientAddress, setCookie } from './request';
-import { clearFailures, lockedUntil, recordFailure, type ThrottleKey } from './throttle';
-import { lockedMessage } from './throttle-rules';
+import {
+	accountKey,
+	clearFailures,
+	lockedUntil,
+	recordFailure,
+	type ThrottleKey
+} from './throttle';
+import { lockedMessage, retryAfterSeconds } from './throttle-rules';
 
 export { clientAddress };
 
 /** One message for an unknown address and a wrong password, so neither can be told apart. */
 export const SIGN_IN_REFUSED = 'That e-mail address and password do not match an account.';
 
-export type SignInOutcome = { ok: true; user: User } | { ok: false; message: string };
+export type SignInOutcome =
+	{ ok: true; user: User } | { ok: false; message: string; retryAfterSeconds?: number };
 
 let dummyHash: Promise<string> | null = null;
 
@@ -25,12 +32,15 @@ export async function attemptSignIn(
 	password: string,
 	address: string
 ): Promise<SignInOutcome> {
-	const keys: ThrottleKey[] = [
-		{ scope: 'account', subject: email },
-		{ scope: 'address', subject: address }
-	];
+	const keys: ThrottleKey[] = [accountKey(email, address), { scope: 'address', subject: address }];
 	const until = await lockedUntil(keys);
-	if (until) return { ok: false, message: lockedMessage(until) };
+	if (until) {
+		return {
+			ok: false,
+			message: lockedMessage(until),
+			retryAfterSeconds: retryAfterSeconds(until)
+		};
+	}
 	const user = await User.findOne({ where: { email } });
 	dummyHash ??= hashPassword('no account has this password');
 	const matches = await verifyPassword(user?.passwordHash ?? (await dummyHash), password);

@@ -1,4 +1,5 @@
-import { QueryTypes } from 'sequelize';
+import { createHash } from 'node:crypto';
+import { Op, QueryTypes, type Transaction } from 'sequelize';
 import { db } from '../db';
 import { SignInThrottle } from '../db/models';
 import { FAILURE_WINDOW_SECONDS, lockSeconds, type ThrottleScope } from './throttle-rules';
@@ -6,6 +7,27 @@ import { FAILURE_WINDOW_SECONDS, lockSeconds, type ThrottleScope } from './throt
 export interface ThrottleKey {
 	scope: ThrottleScope;
 	subject: string;
+}
+
+/** The part of an 'account' subject that names the account: a hash, so that it has one length. */
+function accountPart(email: string): string {
+	return createHash('sha256').update(email.toLowerCase(), 'utf8').digest('hex').slice(0, 32);
+}
+
+/**
+ * The 'account' key is an account as tried from one address (throttle-rules.ts): failures from
+ * a stranger's address lock that address out of the account, never its owner elsewhere.
+ */
+export function accountKey(email: string, address: string): ThrottleKey {
+	return { scope: 'account', subject: `${accountPart(email)}@${address}`.slice(0, 254) };
+}
+
+/** Forgets every address's failures on an account (its password was just reset). */
+export async function clearAccountFailures(email: string, transaction?: Transaction) {
+	await SignInThrottle.destroy({
+		where: { scope: 'account', subject: { [Op.like]: `${accountPart(email)}@%` } },
+		transaction
+	});
 }
 
 /** The latest lock in force for any of the keys, or null. Counters live in MariaDB (issue 9). */
@@ -44,8 +66,8 @@ export async function recordFailure(keys: ThrottleKey[]): Promise<void> {
 	}
 }
 
-/** A successful sign-in clears the account's count (not the address's: an attacker's own
- * account must not wash out the count of the addresses they guess from). */
+/** A successful sign-in clears the account's count from that address (not the address's own:
+ * an attacker's own account must not wash out the count of the addresses they guess from). */
 export async function clearFailures(key: ThrottleKey): Promise<void> {
 	await SignInThrottle.destroy({ where: { scope: key.scope, subject: key.subject } });
 }

@@ -33,7 +33,7 @@ export const tokenHash = (token: string) =>
 async function ownApproved(actor: Actor, assessmentId: number): Promise<Assessment> {
 	const row = await Assessment.findByPk(assessmentId, { attributes: { exclude: ['snapshot'] } });
 	if (!row) error(404, 'No such assessment.');
-	const { own } = await visibleAsset(actor, row.assetId);
+	const { own } = await visibleAsset(actor, row.assetId, 'No such assessment.');
 	if (!own) error(404, 'No such assessment.');
 	if (row.state !== 'approved') error(409, 'Only an approved assessment can be shared.');
 	return row;

@@ -113,6 +113,6 @@ export async function assetView(actor: Actor, assetId: number) {
 export async function readableAssessment(actor: Actor, assessmentId: number): Promise<Assessment> {
 	const row = await Assessment.findByPk(assessmentId);
 	if (!row || row.state === 'draft') error(404, 'No such assessment.');
-	await visibleAsset(actor, row.assetId);
+	await visibleAsset(actor, row.assetId, 'No such assessment.');
 	return row;
 }

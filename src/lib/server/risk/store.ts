@@ -55,7 +55,7 @@ export async function saveRisk(
 ): Promise<RiskAnnex> {
 	const assessment = await Assessment.findByPk(assessmentId);
 	if (!assessment) error(404, 'No such assessment.');
-	const { own } = await visibleAsset(actor, assessment.assetId);
+	const { own } = await visibleAsset(actor, assessment.assetId, 'No such assessment.');
 	if (!own) error(404, 'No such assessment.');
 	if (assessment.state !== 'draft')
 		error(409, 'The durability parameters of an approved assessment cannot change.');

@@ -22,7 +22,7 @@ export const actions = {
 			...parsed.data
 		});
 		if (!changed) {
-			return formMessage(400, parsed.form, 'The current password is not right.', {
+			return formMessage(400, parsed.values, 'The current password is not right.', {
 				currentPassword: 'This is not your current password.'
 			});
 		}

@@ -28,7 +28,7 @@ export const actions = {
 		const parsed = await parseForm(event.request, acceptInvitationSchema);
 		if (!parsed.ok) return parsed.failure;
 		const user = await acceptInvitation(event.params.token, { newAccount: parsed.data });
-		if (!user) return formMessage(400, parsed.form, GONE);
+		if (!user) return formMessage(400, parsed.values, GONE);
 		await startSession(event, user.id);
 		redirect(303, '/dashboard');
 	},

@@ -13,7 +13,7 @@ export const actions = {
 		const parsed = await parseForm(request, resetPasswordSchema);
 		if (!parsed.ok) return parsed.failure;
 		if (!(await completePasswordReset(params.token, parsed.data.password))) {
-			return formMessage(400, parsed.form, 'This link has expired or was already used.');
+			return formMessage(400, parsed.values, 'This link has expired or was already used.');
 		}
 		redirect(303, '/sign-in?reset=done');
 	}

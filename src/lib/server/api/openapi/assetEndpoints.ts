@@ -27,7 +27,7 @@ export const assetEndpoints: Endpoint[] = [
 		operationId: 'listSurveys',
 		tag: 'Assets',
 		summary: 'Surveys of an asset',
-		action: 'asset:read',
+		action: 'survey:read',
 		params: z.object({ assetId: idParam('asset') }),
 		response: { mediaType: 'application/json', schema: surveyListSchema, description: 'Surveys.' }
 	},
@@ -37,7 +37,7 @@ export const assetEndpoints: Endpoint[] = [
 		operationId: 'listMembers',
 		tag: 'Assets',
 		summary: 'Members of a survey with their specified cover',
-		action: 'asset:read',
+		action: 'survey:read',
 		params: z.object({ surveyId: idParam('survey') }),
 		response: { mediaType: 'application/json', schema: memberListSchema, description: 'Members.' }
 	},
@@ -47,7 +47,7 @@ export const assetEndpoints: Endpoint[] = [
 		operationId: 'listReadings',
 		tag: 'Assets',
 		summary: "A member's readings, a page at a time (cursor pagination)",
-		action: 'asset:read',
+		action: 'survey:read',
 		params: z.object({ memberId: idParam('member') }),
 		query: pageQuerySchema,
 		exampleQuery: 'limit=100',

@@ -11,7 +11,9 @@ export const load: PageServerLoad = async (event) => {
 	const actor = pageActor(event, 'asset:read');
 	const assetId = idParam(event.params.assetId);
 	const asset = await loadOr404(() => scopedAsset(actor, assetId, 'read'));
-	const surveys = await listSurveys(actor, assetId);
+	// Owners read an asset's assessments and reports, not its surveys (docs/roles.md).
+	const canReadSurveys = can(actor.role, 'survey:read');
+	const surveys = canReadSurveys ? await listSurveys(actor, assetId) : [];
 	const own = asset.organisationId === actor.organisationId;
 	return {
 		asset: asset.get({ plain: true }),
@@ -21,6 +23,7 @@ export const load: PageServerLoad = async (event) => {
 			surveyDate: s.surveyDate,
 			status: s.status
 		})),
+		canReadSurveys,
 		canCreateSurvey: own && can(actor.role, 'survey:create'),
 		canEdit: own && can(actor.role, 'asset:write')
 	};

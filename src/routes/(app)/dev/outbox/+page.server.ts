@@ -1,12 +1,13 @@
 import { error } from '@sveltejs/kit';
 import type { PageServerLoad } from './$types';
-import { env } from '$env/dynamic/private';
 import { pageActor } from '$lib/server/guard';
-import { readFakeOutbox } from '$lib/server/mail/fake-outbox';
+import { devOutboxEnabled, devOutboxFor } from '$lib/server/mail/dev-outbox';
 
-/** What the local mail fake received. Off unless DEV_OUTBOX=1 (never set it in production). */
+/** The signed-in user's own mail, as the local mail fake received it (development and demo only). */
 export const load: PageServerLoad = async (event) => {
-	if (env.DEV_OUTBOX !== '1' || !env.MAIL_FAKE_DIR) error(404, 'Not found.');
-	pageActor(event, 'mail:read');
-	return { mails: await readFakeOutbox(env.MAIL_FAKE_DIR) };
+	if (!devOutboxEnabled()) error(404, 'Not found.');
+	const actor = pageActor(event, 'account:manage');
+	const mails = await devOutboxFor(actor.userId);
+	if (!mails) error(404, 'Not found.');
+	return { mails, address: event.locals.user?.email ?? '' };
 };

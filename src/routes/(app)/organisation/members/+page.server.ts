@@ -62,7 +62,7 @@ export const actions = {
 			await inviteToOrganisation(actor, parsed.data, locals.user!.displayName);
 		} catch (err) {
 			if (!(err instanceof AlreadyMemberError)) throw err;
-			return formMessage(400, parsed.form, err.message, { email: err.message });
+			return formMessage(400, parsed.values, err.message, { email: err.message });
 		}
 		redirect(303, `/organisation/members?invited=${encodeURIComponent(parsed.data.email)}`);
 	},

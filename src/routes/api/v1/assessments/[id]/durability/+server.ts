@@ -28,7 +28,7 @@ export const GET: RequestHandler = async ({ locals, params }) => {
 	const id = assessmentId(params.id);
 	const row = await Assessment.findByPk(id, { attributes: ['id', 'assetId', 'state'] });
 	if (!row) apiError(404, 'not_found', 'No such assessment.');
-	const { own } = await visibleAsset(actor, row.assetId);
+	const { own } = await visibleAsset(actor, row.assetId, 'No such assessment.');
 	if (row.state === 'draft' && !own) apiError(404, 'not_found', 'No such assessment.');
 	const annex = await loadAnnex(id);
 	return json({

@@ -12,7 +12,7 @@ import { createSurvey, listSurveys } from '$lib/server/intake/surveys';
 import { api, idParam as intakeId } from '$lib/server/intake/respond';
 
 export const GET: RequestHandler = async ({ locals, params }) => {
-	const actor = authorize(locals, 'asset:read');
+	const actor = authorize(locals, 'survey:read');
 	const { assetId } = parseInput(z.object({ assetId: idParam('asset') }), params);
 	const asset = await visibleAsset(actor, assetId);
 	return json({ surveys: await surveysOf(asset.id) });

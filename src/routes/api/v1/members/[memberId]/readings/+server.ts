@@ -13,7 +13,7 @@ import { saveManualReadings } from '$lib/server/intake/manualEntry';
 import { api, idParam as intakeId } from '$lib/server/intake/respond';
 
 export const GET: RequestHandler = async ({ locals, params, url }) => {
-	const actor = authorize(locals, 'asset:read');
+	const actor = authorize(locals, 'survey:read');
 	const { memberId } = parseInput(z.object({ memberId: idParam('member') }), params);
 	const { cursor, limit } = parseInput(pageQuerySchema, queryObject(url));
 	const member = await visibleMember(actor, memberId);

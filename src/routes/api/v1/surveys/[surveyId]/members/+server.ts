@@ -12,7 +12,7 @@ import { createMembers, listMembers } from '$lib/server/intake/members';
 import { api, idParam as intakeId } from '$lib/server/intake/respond';
 
 export const GET: RequestHandler = async ({ locals, params }) => {
-	const actor = authorize(locals, 'asset:read');
+	const actor = authorize(locals, 'survey:read');
 	const { surveyId } = parseInput(z.object({ surveyId: idParam('survey') }), params);
 	const survey = await visibleSurvey(actor, surveyId);
 	return json({ members: await membersOf(survey.id) });
