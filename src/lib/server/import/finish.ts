@@ -71,7 +71,7 @@ export function blockingProblem(job: ImportJob, tally: ImportTally): ImportError
 }
 
 function warningsFor(job: ImportJob, tally: ImportTally): string[] {
-	const warnings: string[] = [];
+	const warnings: string[] = [...tally.sourceWarnings];
 	if (tally.rejected.count > 0) {
 		warnings.push(
 			`${tally.rejected.count} row(s) were not imported; download the rejected rows to see why. ${tally.rejected.describe()}`
