@@ -49,7 +49,10 @@ async function xlsxSettings(path: string, warnings: string[]) {
 
 async function csvSettings(path: string, sample: Uint8Array, bytes: number) {
 	const settings = detectText(sample, bytes <= sample.length);
-	const records = await firstRecords(csvRecordBatches(createReadStream(path), settings), 40);
+	const records = await firstRecords(
+		csvRecordBatches(createReadStream(path, { highWaterMark: 16 * 1024 }), settings),
+		40
+	);
 	return { settings, records };
 }
 

@@ -145,6 +145,8 @@ function otherSheetsWarning(sheets: { name: string }[]): string {
 
 /** Writes a stream to a private file of the staging folder, up to the upload limit. */
 async function spool(input: Readable): Promise<string> {
+	// Held until piped: a byte counter already listening would otherwise let chunks flow past.
+	input.pause();
 	await mkdir(stagingDir(), { recursive: true });
 	const path = join(stagingDir(), `${randomUUID()}.xlsx-reading`);
 	try {
