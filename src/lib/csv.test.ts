@@ -64,7 +64,7 @@ describe('the CSV formula guard holds whatever separator the spreadsheet splits 
 					expect(cell).not.toMatch(RUNS_AS_FORMULA);
 				});
 			}),
-			{ seed: 20261204, numRuns: 2000 }
+			{ seed: 20261204, numRuns: Math.max(2000, 10 * Number(process.env.FUZZ_RUNS ?? 0)) }
 		);
 	});
 
@@ -82,7 +82,7 @@ describe('the CSV formula guard holds whatever separator the spreadsheet splits 
 						expect(piece.replace(/^"+/, '')).not.toMatch(RUNS_AS_FORMULA);
 				}
 			),
-			{ seed: 20261204, numRuns: 2000 }
+			{ seed: 20261204, numRuns: Math.max(2000, 10 * Number(process.env.FUZZ_RUNS ?? 0)) }
 		);
 	});
 });
