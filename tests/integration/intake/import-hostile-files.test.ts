@@ -111,15 +111,14 @@ describe('hostile and careless files over HTTP: the server keeps answering and s
 	/** Uploads (the preview) and imports `content`, measuring /api/health all the while. */
 	async function previewAndImport(name: string, content: Buffer, contentType: string) {
 		const survey = await newSurvey();
-		let batchId = 0;
-		let upload: { status: number; body: Record<string, never> } | null = null;
+		let upload: Awaited<ReturnType<typeof uploadImport>> | null = null;
 		const previewed = await worstHealthLatency(machine, async () => {
 			upload = await uploadImport(machine, survey.id, name, content, contentType);
 		});
-		expect(upload!.status, JSON.stringify(upload!.body)).toBe(201);
-		batchId = (upload!.body as { batchId: number }).batchId;
-		const settings = (upload!.body as { preview: { settings: Record<string, unknown> } }).preview
-			.settings;
+		const uploaded = upload as unknown as Awaited<ReturnType<typeof uploadImport>>;
+		expect(uploaded.status, JSON.stringify(uploaded.body)).toBe(201);
+		const batchId: number = uploaded.body.batchId;
+		const settings: Record<string, unknown> = uploaded.body.preview.settings;
 		let view: Awaited<ReturnType<typeof importEnded>> | null = null;
 		const imported = await worstHealthLatency(machine, async () => {
 			const start = await startImport(machine, batchId, settings);
