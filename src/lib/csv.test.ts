@@ -1,5 +1,10 @@
+import fc from 'fast-check';
+import Papa from 'papaparse';
 import { describe, expect, it } from 'vitest';
 import { csvCell, csvLine, FORMULA_START } from './csv';
+
+/** What a spreadsheet would run as a formula once it has split a line into cells. */
+const RUNS_AS_FORMULA = /^[\s"]*[=+\-@]/;
 
 // OWASP "CSV Injection": cells starting with = + - @ tab CR are run as formulas.
 describe('csvCell guards formulas', () => {
@@ -8,8 +13,8 @@ describe('csvCell guards formulas', () => {
 		['+cmd', "'+cmd"],
 		["-2+3+cmd|' /C calc'!A0", "'-2+3+cmd|' /C calc'!A0"],
 		['@SUM(A1)', "'@SUM(A1)"],
-		['\t=1', "'\t=1"],
-		['\r=1', `"'\r=1"`],
+		['\t=1', `"'\t'=1"`],
+		['\r=1', `"'\r'=1"`],
 		['-', "'-"]
 	])('%j → %j', (text, cell) => {
 		expect(csvCell(text)).toBe(cell);
@@ -28,5 +33,56 @@ describe('csvCell guards formulas', () => {
 		// Text that looks like a number is guarded too: only typed numbers pass as they are.
 		expect(FORMULA_START.test('-12.5')).toBe(true);
 		expect(csvCell(-12.5)).toBe('-12.5');
+	});
+});
+
+describe('the CSV formula guard holds whatever separator the spreadsheet splits at', () => {
+	it('a note "x;=1+1" is quoted and its second piece guarded', () => {
+		expect(csvCell('x;=1+1')).toBe(`"x;'=1+1"`);
+		expect(csvLine(['D-01', 'x;=1+1'])).toBe(`D-01,"x;'=1+1"\r\n`);
+		expect(csvCell('a\tb')).toBe('"a\tb"');
+	});
+
+	// Text of the characters that matter (separators, quotes, breaks, formula signs) and any other.
+	const risky = fc.string({
+		unit: fc.oneof(
+			fc.constantFrom(',', ';', '\t', '"', '\r', '\n', '=', '+', '-', '@', ' ', "'", 'x', '1'),
+			fc.string({ minLength: 1, maxLength: 1 })
+		),
+		maxLength: 24
+	});
+
+	it('property: read back at "," every field is the text written, behind at most added apostrophes', () => {
+		fc.assert(
+			fc.property(fc.array(risky, { minLength: 1, maxLength: 6 }), (fields) => {
+				const line = csvLine(fields).slice(0, -2);
+				// papaparse reads an empty text as no row at all: one empty field is what was written.
+				const parsed = line === '' ? [''] : Papa.parse<string[]>(line, { delimiter: ',' }).data[0];
+				expect(parsed).toHaveLength(fields.length);
+				parsed.forEach((cell, i) => {
+					expect(cell.replaceAll("'", '')).toBe(fields[i].replaceAll("'", ''));
+					expect(cell).not.toMatch(RUNS_AS_FORMULA);
+				});
+			}),
+			{ seed: 20261204, numRuns: Math.max(2000, 10 * Number(process.env.FUZZ_RUNS ?? 0)) }
+		);
+	});
+
+	it('property: split at ";", a tab or a line break instead, no piece runs as a formula', () => {
+		fc.assert(
+			fc.property(
+				fc.array(risky, { minLength: 1, maxLength: 6 }),
+				fc.constantFrom(';', '\t'),
+				(fields, separator) => {
+					const text = csvLine(fields);
+					const rows = Papa.parse<string[]>(text, { delimiter: separator }).data;
+					for (const row of rows) for (const cell of row) expect(cell).not.toMatch(RUNS_AS_FORMULA);
+					// A reader that ignores quotes altogether: every piece between separators and breaks.
+					for (const piece of text.split(/[,;\t\r\n]/))
+						expect(piece.replace(/^"+/, '')).not.toMatch(RUNS_AS_FORMULA);
+				}
+			),
+			{ seed: 20261204, numRuns: Math.max(2000, 10 * Number(process.env.FUZZ_RUNS ?? 0)) }
+		);
 	});
 });

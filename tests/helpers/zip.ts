@@ -3,6 +3,8 @@ import { crc32, deflateRawSync } from 'node:zlib';
 export interface ZipEntry {
 	name: string;
 	data: Buffer;
+	/** The uncompressed size the headers declare, when it should lie (a hidden zip bomb). */
+	declaredSize?: number;
 }
 
 /**
@@ -23,7 +25,7 @@ export function buildZip(entries: ZipEntry[]): Buffer {
 		local.writeUInt16LE(8, 8);
 		local.writeUInt32LE(crc, 14);
 		local.writeUInt32LE(packed.length, 18);
-		local.writeUInt32LE(entry.data.length, 22);
+		local.writeUInt32LE(entry.declaredSize ?? entry.data.length, 22);
 		local.writeUInt16LE(name.length, 26);
 		locals.push(local, name, packed);
 		const central = Buffer.alloc(46);
@@ -33,7 +35,7 @@ export function buildZip(entries: ZipEntry[]): Buffer {
 		central.writeUInt16LE(8, 10);
 		central.writeUInt32LE(crc, 16);
 		central.writeUInt32LE(packed.length, 20);
-		central.writeUInt32LE(entry.data.length, 24);
+		central.writeUInt32LE(entry.declaredSize ?? entry.data.length, 24);
 		central.writeUInt16LE(name.length, 28);
 		central.writeUInt32LE(offset, 42);
 		centrals.push(central, name);

@@ -1,7 +1,7 @@
 /**
  * Bar spacing, bar diameter estimates and bar positions from scans.
  */
-import { mean, sampleStandardDeviation } from 'simple-statistics';
+import { max, mean, min, sampleStandardDeviation } from 'simple-statistics';
 import { requireReadings } from './readings';
 import type { CodeSystem } from './requirements/requirement';
 
@@ -80,8 +80,9 @@ export function spacingSummary(
 		n: spacingsMm.length,
 		meanMm: mean([...spacingsMm]),
 		sdMm: sampleStandardDeviation([...spacingsMm]),
-		minMm: Math.min(...spacingsMm),
-		maxMm: Math.max(...spacingsMm),
+		// Loops, not Math.min(...): a spread of ~120,000 values overflows the call stack.
+		minMm: min(spacingsMm as number[]),
+		maxMm: max(spacingsMm as number[]),
 		shareWithinTolerance: within / spacingsMm.length
 	};
 }

@@ -80,7 +80,7 @@ describe('intake API over HTTP (the built app, the real database)', () => {
 		expect(rejected.headers.get('content-type')).toContain('text/csv');
 		const text = await rejected.text();
 		// The formula is neutralised for spreadsheets, and the reason names the row and field.
-		expect(text).toContain(`3,"cover ""=cmd()"" is not a number",M-02,0,0,"'=cmd()"`);
+		expect(text).toContain(`3,"cover ""=cmd()"" is not a number",M-02,0,0,'=cmd()\r\n`);
 		const undo = await surveyor.postJson(`/api/v1/imports/${uploaded.batchId}/undo`, {});
 		expect(await undo.json()).toEqual({ rowsDeleted: 2 });
 		expect(await countReadings(sequelize, { surveyId: survey.id })).toBe(0);

@@ -7,7 +7,7 @@ describe('CSV cells of research exports (OWASP "CSV injection" guidance)', () =>
 		expect(csvCell('+1')).toBe("'+1");
 		expect(csvCell('-2+3')).toBe("'-2+3");
 		expect(csvCell('@SUM(A1)')).toBe("'@SUM(A1)");
-		expect(csvCell('\tcmd')).toBe("'\tcmd");
+		expect(csvCell('\tcmd')).toBe(`"'\tcmd"`);
 	});
 
 	it('leaves numbers, including negative deviations, as numbers', () => {

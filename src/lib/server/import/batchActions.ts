@@ -13,9 +13,16 @@ import { removeStagedCopies } from './stagedCopies';
 export async function cancelImport(actor: Actor, batchId: number): Promise<void> {
 	const { batch } = await scopedImportBatch(actor, batchId, 'write');
 	if (batch.state === 'pending') {
-		await batch.update({ state: 'cancelled', finishedAt: new Date() });
-		await removeStagedCopies(batch.id);
-		return;
+		// Conditional: a start that claimed the batch meanwhile is asked to stop instead.
+		const [cancelled] = await ImportBatch.update(
+			{ state: 'cancelled', finishedAt: new Date() },
+			{ where: { id: batch.id, state: 'pending' } }
+		);
+		if (cancelled === 1) {
+			await removeStagedCopies(batch.id);
+			return;
+		}
+		await batch.reload();
 	}
 	if (batch.state !== 'running') throw new StateError(`This import is already ${batch.state}.`);
 	await requestCancel(batch.id);

@@ -184,15 +184,33 @@ async function openAndBegin(batch: ImportBatch, input: StartInput): Promise<Read
 		throw new ImportError('storage_unavailable', START_WITHOUT_STORAGE, 503);
 	});
 	try {
-		// Progress first: a running batch always has a heartbeat, so a process that dies between
-		// these two lines leaves nothing that the sweep for abandoned imports cannot see.
-		await beginProgress(batch.id, bytes);
-		await batch.update({ mapping: input.mapping, options: input.options, state: 'running' });
+		await claimPending(batch, input, bytes);
 		return source;
 	} catch (err) {
 		source.destroy();
 		throw err;
 	}
+}
+
+/**
+ * Moves the batch from pending to running as one conditional change, with its heartbeat in
+ * the same transaction (a running batch always has one, for the sweep of abandoned imports).
+ * Two starts of the same batch within milliseconds both passed a read-then-write check and
+ * both wrote the readings; here the second finds no pending row to change and is refused.
+ */
+async function claimPending(batch: ImportBatch, input: StartInput, bytes: number) {
+	await ImportBatch.sequelize!.transaction(async (transaction) => {
+		const [claimed] = await ImportBatch.update(
+			{ mapping: input.mapping, options: input.options, state: 'running' },
+			{ where: { id: batch.id, state: 'pending' }, transaction }
+		);
+		if (claimed !== 1) {
+			throw new StateError(
+				'This import has already been started (or cancelled) by another request; follow its progress instead of starting it again.'
+			);
+		}
+		await beginProgress(batch.id, bytes, transaction);
+	});
 }
 
 async function saveTemplate(actor: Actor, name: string, signature: string, input: StartInput) {

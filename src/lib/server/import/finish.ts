@@ -71,7 +71,7 @@ export function blockingProblem(job: ImportJob, tally: ImportTally): ImportError
 }
 
 function warningsFor(job: ImportJob, tally: ImportTally): string[] {
-	const warnings: string[] = [];
+	const warnings: string[] = [...tally.sourceWarnings];
 	if (tally.rejected.count > 0) {
 		warnings.push(
 			`${tally.rejected.count} row(s) were not imported; download the rejected rows to see why. ${tally.rejected.describe()}`
@@ -97,7 +97,9 @@ export async function finishImport(
 	if (problem) throw problem;
 	const warnings = warningsFor(job, tally);
 	await mergeIntoCoverSets(transaction, tally.covers.sortedByMember());
-	await ImportBatch.update(
+	// Only from running: a batch another process has meanwhile failed (its sweep saw a stopped
+	// heartbeat) or that was never claimed is not completed behind its back.
+	const [updated] = await ImportBatch.update(
 		{
 			state: 'completed',
 			firstReadingId: idRange?.firstReadingId ?? null,
@@ -110,8 +112,14 @@ export async function finishImport(
 			errorMessage: null,
 			finishedAt: new Date()
 		},
-		{ where: { id: job.batchId }, transaction }
+		{ where: { id: job.batchId, state: 'running' }, transaction }
 	);
+	if (updated !== 1) {
+		throw new ImportError(
+			'not-running',
+			'This import was stopped by another process while it ran, so nothing was written. Start it again from a new upload.'
+		);
+	}
 	await recordAudit(
 		{
 			action: 'import.completed',

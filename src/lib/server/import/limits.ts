@@ -11,6 +11,10 @@ export const IMPORT_LIMITS = {
 	/** An XLSX file may unpack to this much; more is treated as a zip bomb. */
 	maxUnpackedXlsxBytes: 256 * 1024 * 1024,
 	maxCompressionRatio: 200,
+	/** An XLSX shared string table is held in memory while the sheet is read. */
+	maxSharedStringsBytes: 64 * 1024 * 1024,
+	/** Columns of a sheet; a readings file has a dozen. */
+	maxColumns: 256,
 	defaultCoverMaxMm: 300,
 	widenedCoverMaxMm: 1000,
 	/** Rows per INSERT batch (connector batch()) inside the import's one transaction. */

@@ -5,8 +5,8 @@ import { IMPORT_LIMITS } from './limits';
 import { headerSignature, suggestMapping, type ReadingField } from './mapping';
 import { sniffFormat, type SourceFormat } from './sniff';
 import { csvRecordBatches, xlsxRecordBatches } from './sources';
+import type { RecordBatch } from './records';
 import { readSample } from './stage';
-import { checkXlsxArchive } from './zipGuard';
 
 export interface FilePreview {
 	format: SourceFormat;
@@ -19,7 +19,7 @@ export interface FilePreview {
 	warnings: string[];
 }
 
-async function firstRecords(source: AsyncGenerator<string[][]>, count: number) {
+async function firstRecords(source: AsyncGenerator<RecordBatch>, count: number) {
 	const records: string[][] = [];
 	for await (const batch of source) {
 		for (const record of batch) if (record.some((c) => c.trim() !== '')) records.push(record);
@@ -29,12 +29,12 @@ async function firstRecords(source: AsyncGenerator<string[][]>, count: number) {
 	return records.slice(0, count);
 }
 
-async function xlsxSettings(path: string, bytes: number) {
-	await checkXlsxArchive(path, bytes);
+async function xlsxSettings(path: string, warnings: string[]) {
 	let records: string[][];
 	try {
-		records = await firstRecords(xlsxRecordBatches(createReadStream(path)), 40);
-	} catch {
+		records = await firstRecords(xlsxRecordBatches(path, warnings), 40);
+	} catch (err) {
+		if (err instanceof ImportError) throw err;
 		throw new ImportError('malformed-xlsx', 'The spreadsheet is damaged and cannot be read.');
 	}
 	const headerRowIndex = detectHeaderRow(records);
@@ -49,7 +49,10 @@ async function xlsxSettings(path: string, bytes: number) {
 
 async function csvSettings(path: string, sample: Uint8Array, bytes: number) {
 	const settings = detectText(sample, bytes <= sample.length);
-	const records = await firstRecords(csvRecordBatches(createReadStream(path), settings), 40);
+	const records = await firstRecords(
+		csvRecordBatches(createReadStream(path, { highWaterMark: 16 * 1024 }), settings),
+		40
+	);
 	return { settings, records };
 }
 
@@ -61,8 +64,9 @@ export async function previewStagedFile(
 ): Promise<FilePreview> {
 	const sample = await readSample(path);
 	const format = await sniffFormat(sample, fileName);
+	const warnings: string[] = [];
 	const { settings, records } =
-		format === 'xlsx' ? await xlsxSettings(path, bytes) : await csvSettings(path, sample, bytes);
+		format === 'xlsx' ? await xlsxSettings(path, warnings) : await csvSettings(path, sample, bytes);
 	const headerAt = settings.headerRowIndex;
 	const width = Math.max(0, ...records.map((r) => r.length));
 	const headers =
@@ -72,7 +76,6 @@ export async function previewStagedFile(
 		throw new ImportError('empty-file', 'The file is empty: it holds no rows of readings.');
 	if (rows.length === 0)
 		throw new ImportError('header-only', 'The file has a header row but no readings under it.');
-	const warnings: string[] = [];
 	if (settings.mixedDecimalMarks) {
 		warnings.push(
 			'The first rows use both "." and "," as decimal marks; rows written with the other mark will be refused.'

@@ -1,3 +1,4 @@
+import type { Transaction } from 'sequelize';
 import { ImportProgress } from '../db/models';
 
 export interface ProgressCounts {
@@ -7,17 +8,24 @@ export interface ProgressCounts {
 	bytesRead: number;
 }
 
-export async function beginProgress(batchId: number, bytesTotal: number): Promise<void> {
-	await ImportProgress.upsert({
-		importBatchId: batchId,
-		bytesTotal,
-		rowsRead: 0,
-		rowsWritten: 0,
-		rowsRejected: 0,
-		bytesRead: 0,
-		cancelRequested: false,
-		heartbeatAt: new Date()
-	});
+export async function beginProgress(
+	batchId: number,
+	bytesTotal: number,
+	transaction?: Transaction
+): Promise<void> {
+	await ImportProgress.upsert(
+		{
+			importBatchId: batchId,
+			bytesTotal,
+			rowsRead: 0,
+			rowsWritten: 0,
+			rowsRejected: 0,
+			bytesRead: 0,
+			cancelRequested: false,
+			heartbeatAt: new Date()
+		},
+		{ transaction }
+	);
 }
 
 /** Records progress (on a pooled connection, outside the import's transaction) and says

@@ -1,9 +1,8 @@
-import Papa from 'papaparse';
 import { IMPORT_LIMITS } from './limits';
 
-// The app's one formula guard (src/lib/csv.ts). It used to let "-" followed by a digit pass, so
-// a rejected cell such as "-2+3+cmd|' /C calc'!A0" reached the spreadsheet as a live formula.
-import { FORMULA_START } from '$lib/csv';
+// The app's one CSV writer and formula guard (src/lib/csv.ts): rejected cells are the file's
+// own text, any of which may be a formula meant for whoever opens the download.
+import { csvLine } from '$lib/csv';
 
 export interface RejectionSummary {
 	code: string;
@@ -48,15 +47,16 @@ export class RejectedRows {
 
 	toCsv(headers: readonly string[]): string | null {
 		if (this.count === 0) return null;
-		const width = Math.max(headers.length, ...this.kept.map((r) => r.length - 2));
+		// A loop, not Math.max(...rows): up to 100,000 kept rows would overflow the call stack.
+		let width = headers.length;
+		for (const row of this.kept) width = Math.max(width, row.length - 2);
 		const names = Array.from({ length: width }, (_, i) => headers[i] || `column ${i + 1}`);
 		const data = [...this.kept];
 		if (this.count > this.kept.length) {
 			data.push(['', `${this.count - this.kept.length} further rejected rows are not listed`]);
 		}
-		return Papa.unparse(
-			{ fields: ['row', 'reason', ...names], data },
-			{ escapeFormulae: FORMULA_START, newline: '\r\n' }
-		);
+		let text = csvLine(['row', 'reason', ...names]);
+		for (const row of data) text += csvLine(row);
+		return text;
 	}
 }

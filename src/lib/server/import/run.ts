@@ -9,6 +9,7 @@ import { IMPORT_LIMITS } from './limits';
 import type { ColumnMapping, ImportOptions } from './mapping';
 import { tickProgress, type ProgressCounts } from './progress';
 import { RejectedRows } from './rejected';
+import type { RecordBatch } from './records';
 import { csvRecordBatches, xlsxRecordBatches } from './sources';
 import type { SourceFormat } from './sniff';
 import { createRowValidator, labelKey } from './validateRow';
@@ -51,9 +52,11 @@ export interface ImportTally extends ProgressCounts {
 	smallCovers: number;
 	/** The covers written, by member, for the members' cover sets. */
 	covers: CoverCollector;
+	/** What the reader noticed about the file as a whole (other sheets of a workbook). */
+	sourceWarnings: string[];
 }
 
-function recordBatches(job: ImportJob, tally: ImportTally): AsyncGenerator<string[][]> {
+function recordBatches(job: ImportJob, tally: ImportTally): AsyncGenerator<RecordBatch> {
 	const counter = new PassThrough();
 	counter.on('data', (chunk: Buffer) => (tally.bytesRead += chunk.length));
 	const input = job.open();
@@ -63,7 +66,7 @@ function recordBatches(job: ImportJob, tally: ImportTally): AsyncGenerator<strin
 	counter.once('close', () => input.destroy());
 	input.pipe(counter);
 	return job.format === 'xlsx'
-		? xlsxRecordBatches(counter)
+		? xlsxRecordBatches(counter, tally.sourceWarnings)
 		: csvRecordBatches(counter, job.options);
 }
 
@@ -102,20 +105,29 @@ async function streamRows(
 	let lastTick = Date.now();
 	let index = -1; // among non-blank records, as detection counts them
 	let recordNumber = 0; // every record, so row numbers match the file's lines
+	let processed = 0;
 	for await (const batch of recordBatches(job, tally))
-		for (const cells of batch) {
-			const rowNumber = ++recordNumber;
-			if (isBlank(cells)) continue;
-			if (++index <= job.options.headerRowIndex) {
-				if (index === job.options.headerRowIndex) tally.headers = cells;
-				continue;
-			}
-			if (++tally.rowsRead > IMPORT_LIMITS.maxRows) {
+		for (let i = 0; i < batch.length; i++) {
+			const cells = batch[i];
+			const rowNumber = batch.rowNumbers ? batch.rowNumbers[i] : ++recordNumber;
+			// Every record counts, blank ones too: the limit and the event loop's turns hold for a
+			// file of millions of empty lines as for one of readings. A turn every 64 records (a few
+			// hundred µs of work): the connector streams each chunk file to the server from this
+			// same loop, one 64 kB read a turn, and other requests wait on it too. Yielding every
+			// 512 rows left LOAD DATA 1.6× slower than alone (docs/performance.md).
+			if (rowNumber > IMPORT_LIMITS.maxRows) {
 				throw new ImportError(
 					'too-many-rows',
 					`The file has more than ${IMPORT_LIMITS.maxRows} rows; split it.`
 				);
 			}
+			if ((++processed & 63) === 0) await setImmediate();
+			if (isBlank(cells)) continue;
+			if (++index <= job.options.headerRowIndex) {
+				if (index === job.options.headerRowIndex) tally.headers = cells;
+				continue;
+			}
+			tally.rowsRead++;
 			const result = validate(cells);
 			if (!result.ok) {
 				tally.rejected.add(rowNumber, result.code, result.reason, cells);
@@ -136,11 +148,6 @@ async function streamRows(
 				}
 			}
 			tally.rowsRejected = tally.rejected.count;
-			// Let the event loop run every 64 rows (a few hundred µs of work): the connector streams
-			// each chunk file to the server from this same loop, one 64 kB read a turn, and other
-			// requests wait on it too. Yielding every 512 rows left LOAD DATA 1.6× slower than alone
-			// (docs/performance.md).
-			if ((tally.rowsRead & 63) === 0) await setImmediate();
 			if (
 				(tally.rowsRead & 1023) === 0 &&
 				Date.now() - lastTick > IMPORT_LIMITS.progressIntervalMs
@@ -167,9 +174,9 @@ export async function runImport(job: ImportJob): Promise<ImportOutcome> {
 		rejected: new RejectedRows(),
 		headers: [],
 		smallCovers: 0,
-		covers: new CoverCollector()
+		covers: new CoverCollector(),
+		sourceWarnings: []
 	};
-	await ImportBatch.update({ state: 'running' }, { where: { id: job.batchId } });
 	let transaction: Transaction | null = null;
 	let writer: ReadingWriter | null = null;
 	try {

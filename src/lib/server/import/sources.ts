@@ -1,10 +1,20 @@
 import { Transform, type Readable } from 'node:stream';
 import Papa from 'papaparse';
 import iconv from 'iconv-lite';
-import ExcelJS from 'exceljs';
+import { randomUUID } from 'node:crypto';
+import { createWriteStream } from 'node:fs';
+import { mkdir, rm, stat } from 'node:fs/promises';
+import { join } from 'node:path';
+import { pipeline } from 'node:stream/promises';
 import type { TextSettings } from './detect';
 import { ImportError } from './errors';
 import { IMPORT_LIMITS } from './limits';
+import type { RecordBatch } from './records';
+import { stagingDir } from './stage';
+import { closeArchive } from './xlsx/archive';
+import { sharedStrings, workbookSheets } from './xlsx/parts';
+import { sheetRecordBatches } from './xlsx/sheet';
+import { openCheckedArchive } from './zipGuard';
 
 /** Refuses a line longer than `maxLineBytes` before the parser has to hold it. */
 export function lineLengthGuard(maxLineBytes: number = IMPORT_LIMITS.maxLineBytes): Transform {
@@ -96,53 +106,70 @@ export async function* csvRecordBatches(
 	}
 }
 
-function cellText(value: ExcelJS.CellValue): string {
-	if (value == null) return '';
-	if (typeof value === 'number') return String(value);
-	if (typeof value === 'string') return value;
-	if (typeof value === 'boolean') return value ? 'true' : 'false';
-	if (value instanceof Date) return value.toISOString();
-	if ('richText' in value) return value.richText.map((r) => r.text).join('');
-	if ('result' in value) return cellText(value.result as ExcelJS.CellValue);
-	if ('text' in value) return String(value.text);
-	if ('error' in value) return String(value.error);
-	return '';
-}
-
-/** Rows of the first worksheet of an XLSX file, streamed with exceljs' streaming reader. */
-export async function* xlsxRecordBatches(input: Readable): AsyncGenerator<string[][]> {
-	let batch: string[][] = [];
-	for await (const record of xlsxRecords(input)) {
-		batch.push(record);
-		if (batch.length >= 1000) {
-			yield batch;
-			batch = [];
-		}
-	}
-	if (batch.length) yield batch;
-}
-
-async function* xlsxRecords(input: Readable): AsyncGenerator<string[]> {
-	const reader = new ExcelJS.stream.xlsx.WorkbookReader(input, {
-		worksheets: 'emit',
-		sharedStrings: 'cache',
-		hyperlinks: 'ignore',
-		styles: 'ignore',
-		entries: 'emit'
-	});
+/**
+ * Rows of the first worksheet of an XLSX file, read from `source` (a path, or a stream that is
+ * first written to a private file: the zip directory sits at the file's end). Other sheets are
+ * named in `warnings`.
+ *
+ * Our own reader over yauzl (zip) and saxes (strict XML) rather than exceljs: exceljs' streaming
+ * reader cannot count what it inflates, skips a broken sheet's remaining rows without an error,
+ * and pulls in deprecated packages (unzipper 0.10 with fstream, rimraf 2, glob 7).
+ */
+export async function* xlsxRecordBatches(
+	source: string | Readable,
+	warnings: string[] = []
+): AsyncGenerator<RecordBatch> {
+	const spooled = typeof source === 'string' ? null : await spool(source);
+	const path = spooled ?? (source as string);
 	try {
-		for await (const worksheet of reader) {
-			let expected = 1;
-			for await (const row of worksheet as AsyncIterable<ExcelJS.Row>) {
-				// Empty rows are absent from the stream; keep row numbers true to the sheet.
-				for (; expected < row.number; expected++) yield [];
-				const values = (row.values as ExcelJS.CellValue[]).slice(1);
-				yield Array.from(values, cellText);
-				expected = row.number + 1;
-			}
-			return; // the first worksheet only
+		const archive = await openCheckedArchive(path, (await stat(path)).size);
+		try {
+			const sheets = await workbookSheets(archive);
+			if (!sheets.length)
+				throw new ImportError('malformed-xlsx', 'The spreadsheet has no worksheet to read.');
+			if (sheets.length > 1) warnings.push(otherSheetsWarning(sheets));
+			const strings = await sharedStrings(archive);
+			yield* sheetRecordBatches(archive, sheets[0], strings);
+		} finally {
+			closeArchive(archive);
 		}
 	} finally {
-		input.destroy();
+		if (spooled) await rm(spooled, { force: true });
 	}
+}
+
+function otherSheetsWarning(sheets: { name: string }[]): string {
+	const others = sheets.slice(1).map((s) => `"${s.name}"`);
+	return `The workbook has ${sheets.length} sheets; only the first, "${sheets[0].name}", was read. Not read: ${others.slice(0, 10).join(', ')}${others.length > 10 ? ` and ${others.length - 10} more` : ''}. Import each sheet as a file of its own if it holds readings.`;
+}
+
+/** Writes a stream to a private file of the staging folder, up to the upload limit. */
+async function spool(input: Readable): Promise<string> {
+	// Held until piped: a byte counter already listening would otherwise let chunks flow past.
+	input.pause();
+	await mkdir(stagingDir(), { recursive: true });
+	const path = join(stagingDir(), `${randomUUID()}.xlsx-reading`);
+	try {
+		await stageTo(input, path);
+	} catch (err) {
+		await rm(path, { force: true });
+		throw err;
+	}
+	return path;
+}
+
+async function stageTo(input: Readable, path: string) {
+	let bytes = 0;
+	const meter = new Transform({
+		transform(chunk: Buffer, _encoding, done) {
+			bytes += chunk.length;
+			if (bytes > IMPORT_LIMITS.maxFileBytes) {
+				return done(
+					new ImportError('too-large', 'The spreadsheet is larger than the upload limit.', 413)
+				);
+			}
+			done(null, chunk);
+		}
+	});
+	await pipeline(input, meter, createWriteStream(path));
 }

@@ -38,6 +38,21 @@ function zodVerdict(values: Record<string, unknown>) {
 const withoutLabel = ({ memberLabel: _label, ...rest }: Record<string, unknown>) => rest;
 
 describe('checking a row of an import', () => {
+	it('a spreadsheet error value in the cover (#DIV/0!) is named as such, not as an empty cover', () => {
+		const validate = createRowValidator(mapping, options, members);
+		const result = validate(['D-01', '0', '0', '#DIV/0!', '12', 'top']);
+		expect(result).toEqual({
+			ok: false,
+			code: 'cover.spreadsheet-error',
+			reason:
+				'cover holds the spreadsheet error #DIV/0! (a formula that failed in the spreadsheet), not a number'
+		});
+		expect(validate(['D-01', '#N/A', '0', '30', '12', 'top'])).toMatchObject({
+			ok: false,
+			reason: expect.stringMatching(/^x holds the spreadsheet error #N\/A/)
+		});
+	});
+
 	it('gives zod’s answer for every row, the first time a value is seen and every time after', () => {
 		const validate = createRowValidator(mapping, options, members);
 		// Values on both sides of each limit, repeated so that remembered answers are used.

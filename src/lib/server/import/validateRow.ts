@@ -22,6 +22,11 @@ export const labelKey = (label: string) => label.trim().toLowerCase();
 
 const LENGTH_FIELDS = ['x', 'y', 'cover', 'diameter', 'spacing'] as const;
 
+/** The error values a spreadsheet writes in place of a formula's result (ECMA-376 Part 1,
+ * §18.17.7 error values, and the later #SPILL!, #CALC!). */
+const SPREADSHEET_ERROR =
+	/^#(?:DIV\/0!|N\/A|NAME\?|NULL!|NUM!|REF!|VALUE!|SPILL!|CALC!|GETTING_DATA)$/i;
+
 type ReadingSchema = ReturnType<typeof readingSchema>;
 type ReadingKey = keyof ReadingSchema['shape'];
 
@@ -135,6 +140,12 @@ export function createRowValidator(
 		const raw = cell(cells, field);
 		const value = parseDecimal(raw, options.decimalMark);
 		if (typeof value !== 'string') return value === null ? null : value * factor;
+		if (SPREADSHEET_ERROR.test(raw.trim())) {
+			return {
+				code: `${field}.spreadsheet-error`,
+				reason: `${FIELD_LABELS[field]} holds the spreadsheet error ${raw.trim()} (a formula that failed in the spreadsheet), not a number`
+			};
+		}
 		const what =
 			value === 'wrong-decimal-mark'
 				? `uses the wrong decimal mark (this import reads '${options.decimalMark}')`

@@ -40,3 +40,20 @@ export function idParam(value: string | undefined): number {
 	}
 	return id;
 }
+
+/**
+ * Why an upload route got no body to read (SvelteKit gives none to an empty body, nor to a
+ * request without a Content-Type): an empty file is named as such, not as a missing header.
+ */
+export function noBodyAnswer(request: Request): never {
+	const length = request.headers.get('content-length');
+	if (length === '0' || request.headers.get('content-type')) {
+		apiError(
+			400,
+			'empty-file',
+			'The file is empty (0 bytes): it holds nothing to read. Choose the file again; if it is empty on your computer too, export it again.',
+			'file'
+		);
+	}
+	apiError(400, 'empty-file', 'Send the file as the request body, with a Content-Type header.');
+}

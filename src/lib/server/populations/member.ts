@@ -3,6 +3,8 @@
  * verification from every hole of the member's survey (one meter per survey).
  */
 import { Member, Reading, Survey } from '$lib/server/db';
+import type { CoverMapGrid } from '$lib/populations/coverMap';
+import { coverMapGrid } from './coverMapGrid';
 import { meterCheck, type MeterCheck } from './detail';
 import { groupRequirement, type GroupRequirement } from './requirement';
 
@@ -29,22 +31,32 @@ export interface MemberView {
 		gridHeightMm: number | null;
 	};
 	requirement: GroupRequirement;
+	/** The map, binned on the server: its size does not grow with the readings. */
+	coverMap: CoverMapGrid;
+	/** The first readings (by id) for the table; readingsTotal says how many there are. */
 	readings: MemberReading[];
+	readingsTotal: number;
 	/** Holes of this member only. */
 	memberHoles: MeterCheck['holes'];
 	/** The meter's verification from all holes of the survey. */
 	surveyMeter: MeterCheck;
 }
 
+/** Readings listed in the member's view; the rest are counted (the survey's export has all). */
+export const MEMBER_READINGS_LISTED = 1000;
+
 export async function memberView(member: Member): Promise<MemberView> {
-	const [survey, readings, surveyMembers] = await Promise.all([
+	const [survey, readings, readingsTotal, coverMap, surveyMembers] = await Promise.all([
 		Survey.findByPk(member.surveyId),
 		Reading.findAll({
 			attributes: ['id', 'xMm', 'yMm', 'coverMm', 'barDiameterMm', 'flags'],
 			where: { memberId: member.id },
 			order: [['id', 'ASC']],
+			limit: MEMBER_READINGS_LISTED,
 			raw: true
 		}),
+		Reading.count({ where: { memberId: member.id } }),
+		coverMapGrid(member),
 		Member.findAll({ attributes: ['id'], where: { surveyId: member.surveyId }, raw: true })
 	]);
 	const surveyMeter = await meterCheck(surveyMembers.map((m) => m.id));
@@ -62,7 +74,9 @@ export async function memberView(member: Member): Promise<MemberView> {
 			gridHeightMm: member.gridHeightMm
 		},
 		requirement: groupRequirement([member]),
+		coverMap,
 		readings: readings as MemberReading[],
+		readingsTotal,
 		memberHoles: surveyMeter.holes.filter((h) => h.memberId === member.id),
 		surveyMeter
 	};

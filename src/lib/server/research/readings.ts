@@ -70,19 +70,20 @@ export async function readingBatch(
 			type: QueryTypes.SELECT,
 			replacements: { ...replacements, untilId, n }
 		});
+	// Appended in loops: push(...rows) of a large page would overflow the call stack.
 	if (members.has(after.memberId)) {
-		rows.push(
-			...(await select(
-				'r.member_id = :m AND r.id > :id',
-				{ m: after.memberId, id: after.id },
-				limit
-			))
+		const own = await select(
+			'r.member_id = :m AND r.id > :id',
+			{ m: after.memberId, id: after.id },
+			limit
 		);
+		for (const row of own) rows.push(row);
 	}
 	let next = ids.findIndex((id) => id > after.memberId);
 	while (next >= 0 && next < ids.length && rows.length < limit) {
 		const part = ids.slice(next, next + MEMBERS_PER_QUERY);
-		rows.push(...(await select('r.member_id IN (:part)', { part }, limit - rows.length)));
+		for (const row of await select('r.member_id IN (:part)', { part }, limit - rows.length))
+			rows.push(row);
 		next += part.length;
 	}
 	const out: ResearchReading[] = [];

@@ -2,6 +2,7 @@
  * The risk annex: what the engine says about each population's future, computed once from the
  * readings while the assessment is a draft and then kept with it (the snapshot has no readings).
  */
+import { max, min } from 'simple-statistics';
 import { ENGINE_VERSION, toPlainJson, toSortedCovers } from '$lib/analysis';
 import { populationRisk, type PopulationRisk } from './compute';
 import { modelKindFor } from './model';
@@ -61,8 +62,9 @@ function summarise(
 		face,
 		n,
 		meanMm: n ? c.reduce((s, x) => s + x, 0) / n : null,
-		minMm: n ? Math.min(...c) : null,
-		maxMm: n ? Math.max(...c) : null,
+		// simple-statistics' loops: Math.min(...c) overflows the call stack near 120,000 covers.
+		minMm: n ? min(c) : null,
+		maxMm: n ? max(c) : null,
 		belowCMin: cMinMm === null ? 0 : c.filter((x) => x < cMinMm).length,
 		gridWidthMm: data.gridWidthMm,
 		gridHeightMm: data.gridHeightMm
@@ -110,7 +112,7 @@ export function buildAnnex(
 				data.get(m.id) ?? { coversMm: [], gridWidthMm: null, gridHeightMm: null }
 			)
 		);
-		members.push(...own);
+		for (const member of own) members.push(member);
 		const covers = toSortedCovers(p.members.flatMap((m) => data.get(m.id)?.coversMm ?? []));
 		const expected = p.assessment?.description.n ?? covers.length;
 		if (covers.length !== expected) {

@@ -6,7 +6,7 @@ import { apiError } from '$lib/server/http';
 import { ATTACHMENT_MAX_BYTES, uploadAttachment } from '$lib/server/storage/attachments';
 import { attachmentUploadQuerySchema } from '$lib/server/storage/attachmentQuery';
 import { scopedSurvey } from '$lib/server/scope';
-import { api, idParam } from '$lib/server/intake/respond';
+import { api, idParam, noBodyAnswer } from '$lib/server/intake/respond';
 
 export const GET: RequestHandler = async ({ locals, params }) => {
 	const actor = authorize(locals, 'attachment:read');
@@ -34,9 +34,7 @@ export const POST: RequestHandler = async ({ locals, params, request, url }) => 
 		);
 	}
 	// SvelteKit gives no body to a request without a Content-Type.
-	if (!request.body) {
-		apiError(400, 'empty-file', 'Send the file as the request body, with a Content-Type header.');
-	}
+	if (!request.body) noBodyAnswer(request);
 	const input = {
 		kind: q.data.kind,
 		fileName: q.data.fileName,

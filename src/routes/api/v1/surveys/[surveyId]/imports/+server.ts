@@ -6,7 +6,7 @@ import { listImports } from '$lib/server/import/batchActions';
 import { receiveUpload } from '$lib/server/import/batches';
 import { IMPORT_LIMITS } from '$lib/server/import/limits';
 import { importUploadQuerySchema } from '$lib/server/import/mapping';
-import { api, idParam } from '$lib/server/intake/respond';
+import { api, idParam, noBodyAnswer } from '$lib/server/intake/respond';
 
 export const GET: RequestHandler = async ({ locals, params }) => {
 	const actor = authorize(locals, 'survey:read');
@@ -31,8 +31,7 @@ export const POST: RequestHandler = async ({ locals, params, request, url }) => 
 		);
 	}
 	// SvelteKit gives no body to a request without a Content-Type.
-	if (!request.body)
-		apiError(400, 'empty-file', 'Send the file as the request body, with a Content-Type header.');
+	if (!request.body) noBodyAnswer(request);
 	const { fileName } = importUploadQuerySchema.parse(Object.fromEntries(url.searchParams));
 	const result = await api(() => receiveUpload(actor, surveyId, fileName, request.body!));
 	return json(result, { status: 201 });
