@@ -73,11 +73,28 @@ ensure_env() {
 	load_env "$ENV_FILE"
 }
 
+# A node that crashed (killed, power lost) leaves no position in grastate.dat (seqno -1): without
+# one it would ask for a full copy (SST). Its last committed write-set is in InnoDB, and
+# `mariadbd --wsrep-recover` reads it out (what Debian's galera_recovery does under systemd), so
+# the node can ask for just the write-sets it missed (IST) while a survivor's gcache holds them.
+recovered_position() {
+	local n="$1" dir="$LOCAL_DIR/mariadb-galera$1"
+	grep -q '^seqno: *-1' "$dir/grastate.dat" 2>/dev/null && [ -d "$dir/mysql" ] || return 0
+	mariadbd --no-defaults --datadir="$dir" --user="${DB_OS_USER:-$(id -un)}" --skip-networking \
+		--socket="$dir/recover.sock" --pid-file="$dir/recover.pid" \
+		--innodb-buffer-pool-size="$DB_BUFFER_POOL" $(node_args "$n") --wsrep-recover \
+		--log-error="$dir/recover.log" >/dev/null 2>&1 || true
+	{ grep -o 'WSREP: Recovered position: [^ ]*' "$dir/recover.log" 2>/dev/null || true; } | tail -1 | awk '{print $NF}'
+}
+
 # Starts node N: `new` bootstraps a new primary component from it, `join` joins the others.
 start_node() {
 	local n="$1" how="$2" extra
 	extra="$(node_args "$n")"
 	[ "$how" = new ] && extra="$extra --wsrep-new-cluster"
+	local position
+	position="$(recovered_position "$n")"
+	[ -n "$position" ] && extra="$extra --wsrep-start-position=$position"
 	DB_SKIP_PROVISION=1 DB_START_TRIES=600 DB_EXTRA_ARGS="$extra" bash scripts/db.sh start "galera$n"
 	for _ in $(seq 1 300); do
 		[ "$(wsrep_status "$n" wsrep_local_state_comment)" = Synced ] && return 0
