@@ -16,6 +16,7 @@ import { decodeCovers } from '../../src/lib/server/readings/coverSetCodec';
 import { clearAllData, isDatabaseEmpty, loadDemoScenario } from '../../seeds/load';
 import {
 	importEnded,
+	importView,
 	readingsCsv,
 	startImport,
 	startMachine,
@@ -170,6 +171,9 @@ describe('two app processes on a three-node Galera cluster', () => {
 			60_000,
 			25
 		);
+		// Asked through the other node, whose process list does not hold the import's connection,
+		// the running import is still running (the abandoned-import sweep runs on every such read).
+		expect((await importView(onNode2, batchOn1)).state).toBe('running');
 		const batchOn2 = await uploadAndStart(onNode2, two.survey.id, csv);
 
 		clusterScript('kill', '1');
