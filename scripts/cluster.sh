@@ -96,11 +96,24 @@ start_node() {
 	position="$(recovered_position "$n")"
 	[ -n "$position" ] && extra="$extra --wsrep-start-position=$position"
 	DB_SKIP_PROVISION=1 DB_START_TRIES=600 DB_EXTRA_ARGS="$extra" bash scripts/db.sh start "galera$n"
-	for _ in $(seq 1 300); do
-		[ "$(wsrep_status "$n" wsrep_local_state_comment)" = Synced ] && return 0
+	wait_synced "$n"
+}
+
+wait_synced() {
+	for _ in $(seq 1 600); do
+		[ "$(wsrep_status "$1" wsrep_local_state_comment)" = Synced ] && return 0
 		sleep 0.2
 	done
-	die "node $n did not reach Synced, see $LOCAL_DIR/mariadb-galera$n/mysqld.log"
+	die "node $1 did not reach Synced, see $LOCAL_DIR/mariadb-galera$1/mysqld.log"
+}
+
+primary() { node_up "$1" && [ "$(wsrep_status "$1" wsrep_cluster_status)" = Primary ]; }
+
+# Running nodes, the one that has committed the most write-sets first.
+nodes_by_position() {
+	for n in 1 2 3; do
+		node_up "$n" && echo "$(wsrep_status "$n" wsrep_last_committed) $n"
+	done | sort -rn | awk '{print $2}'
 }
 
 # The node a stopped cluster must start from: the one that stopped last (grastate.dat says so);
@@ -118,13 +131,33 @@ bootstrap_node() {
 start() {
 	ensure_env
 	local first=""
-	for n in 1 2 3; do node_up "$n" && { first="$n"; break; }; done
+	for n in 1 2 3; do primary "$n" && { first="$n"; break; }; done
+	if [ -z "$first" ]; then
+		# Nodes running but none in a primary component: the cluster lost its quorum (two of the
+		# three nodes died at once). The survivor with the most write-sets is made the primary
+		# component again; the others then rejoin it. In production this is a person's decision,
+		# made once the other nodes are known to be down (two halves both made primary diverge).
+		for n in $(nodes_by_position); do
+			node_up "$n" || continue
+			say "the cluster has no quorum: node $n becomes the primary component again (pc.bootstrap)"
+			on_node "$n" -e "SET GLOBAL wsrep_provider_options='pc.bootstrap=YES'"
+			first="$n"
+			break
+		done
+	fi
 	if [ -z "$first" ]; then
 		first="$(bootstrap_node)"
 		say "bootstrapping the cluster from node $first"
 		start_node "$first" new
 	fi
-	for n in 1 2 3; do node_up "$n" || start_node "$n" join; done
+	for n in 1 2 3; do
+		if [ "$n" != "$first" ] && pid_alive "$(node_pid "$n")"; then
+			# A node still waiting to join (it started while there was no quorum) joins now.
+			wait_synced "$n"
+		else
+			node_up "$n" || start_node "$n" join
+		fi
+	done
 	# The database and user, made on one node; Galera replicates both to the others.
 	DB_EXTRA_ARGS="" bash scripts/db.sh start "galera$first" >/dev/null
 	say "migrating the cluster's database"
