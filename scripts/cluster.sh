@@ -141,6 +141,7 @@ start() {
 			node_up "$n" || continue
 			say "the cluster has no quorum: node $n becomes the primary component again (pc.bootstrap)"
 			on_node "$n" -e "SET GLOBAL wsrep_provider_options='pc.bootstrap=YES'"
+			wait_synced "$n"
 			first="$n"
 			break
 		done

@@ -138,8 +138,9 @@ async function mixed(run: Run, cookie: string, importSurveyId: number) {
 	const imports: ImportRun[] = [];
 	const ends = Date.now() + run.seconds * 1000;
 	do {
-		// Each import's rows differ from every other's (the run number shifts y).
-		const number = run.users * 100 + imports.length;
+		// Each import's rows differ from every other's (the run number shifts y by a metre, so it
+		// stays small: y must stay under the import's 10 m limit).
+		const number = run.users * 10 + imports.length;
 		imports.push(await importScenario(APP, { cookie }, importSurveyId, number));
 	} while (run.importsThroughout && Date.now() < ends);
 	return { figures: await load, imports };
