@@ -199,7 +199,6 @@ describe('two app processes on a three-node Galera cluster', () => {
 			importEnded(onNode1, batchOn1),
 			importEnded(onNode2, batchOn2)
 		]);
-		console.log('imports ended:', JSON.stringify([ended1, ended2]), Date.now() - killedAt);
 		// Killed under it: either it committed before the node died, or nothing of it remains.
 		if (ended1.state === 'completed') {
 			expect(ended1.rowsImported).toBe(ROWS);

@@ -64,12 +64,15 @@ async function nextReadingId(sequelize: Sequelize): Promise<number> {
 	return Number(row?.id ?? 0) + 1;
 }
 
-/** Whether the server replicates through Galera (wsrep on): its sequences need INCREMENT BY 0. */
+/**
+ * Whether the server replicates through Galera (wsrep on): its sequences need INCREMENT BY 0.
+ * SHOW VARIABLES, since a server built without wsrep has no such variable to SELECT.
+ */
 async function isGaleraNode(sequelize: Sequelize): Promise<boolean> {
-	const [row] = await sequelize.query<{ on: number | string }>('SELECT @@wsrep_on AS `on`', {
+	const rows = await sequelize.query<{ Value: string }>("SHOW VARIABLES LIKE 'wsrep_on'", {
 		type: QueryTypes.SELECT
 	});
-	return Number(row?.on) === 1;
+	return rows[0]?.Value === 'ON';
 }
 
 export const coverSets: Migration = {
