@@ -66,7 +66,13 @@ port_of() { local p="GALERA_PORT_$1"; echo "${!p}"; }
 
 ensure_env() {
 	ensure_debian_package mariadbd mariadb-server mariadb-client
-	[ -f "$PROVIDER" ] || { DEBIAN_FRONTEND=noninteractive apt-get install -y -qq galera-4 >/dev/null || die "apt-get install galera-4 failed"; }
+	if [ ! -f "$PROVIDER" ]; then
+		# galera-4 comes with mariadb-server on Debian 12; a system without it gets it here.
+		local sudo=""
+		[ "$(id -u)" -ne 0 ] && sudo="sudo"
+		DEBIAN_FRONTEND=noninteractive $sudo apt-get install -y -qq --no-install-recommends galera-4 >/dev/null \
+			|| die "apt-get install galera-4 failed"
+	fi
 	ensure_debian_package rsync rsync
 	# Writes .env.cluster's ports and credentials on first use, without starting anything.
 	bash scripts/db.sh env galera1
