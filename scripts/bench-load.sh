@@ -1,7 +1,8 @@
 #!/usr/bin/env bash
 # `npm run bench:load`: the built app under mixed load on loopback (tests/bench/load.bench.ts).
 # Uses the test instance (a fresh database with the demo scenario), builds the app, starts it on
-# the test port, runs the bench, and stops what it started. BENCH_SECONDS sets each run's length.
+# the test port, runs the bench, and stops what it started. BENCH_SECONDS sets the 20- and 50-user
+# runs' length, BENCH_LONG_SECONDS the 100-user run's, BENCH_RUNS picks runs (users:seconds,...).
 set -euo pipefail
 . "$(dirname "$0")/lib.sh"
 cd "$ROOT"

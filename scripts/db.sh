@@ -11,6 +11,8 @@
 # test: port $TEST_DB_PORT (3308), data in .local/mariadb-test, settings in .env.test (throwaway)
 # primary, replica: the replication pair on 3311 and 3312 (scripts/replication.sh drives them;
 #       settings in .env.replication)
+# galera1, galera2, galera3: the Galera cluster's nodes on 3321-3323 (scripts/cluster.sh drives
+#       them with their wsrep settings; settings in .env.cluster)
 set -euo pipefail
 . "$(dirname "$0")/lib.sh"
 
@@ -31,10 +33,18 @@ case "$instance" in
 		DEFAULT_PORT="${PRIMARY_DB_PORT:-3311}"; DEFAULT_NAME=fractile_replicated
 		[ "$instance" = replica ] && PORT_KEY=REPLICA_DB_PORT
 		;;
-	*) die "unknown instance '$instance' (dev, test, fault, primary or replica)" ;;
+	galera1 | galera2 | galera3)
+		ENV_FILE="$ROOT/.env.cluster"; DATA_DIR="$LOCAL_DIR/mariadb-$instance"
+		DEFAULT_PORT="${GALERA_PORT_1:-3321}"; DEFAULT_NAME=fractile_cluster
+		PORT_KEY="GALERA_PORT_${instance#galera}"
+		;;
+	*) die "unknown instance '$instance' (dev, test, fault, primary, replica, galera1-3)" ;;
 esac
 
 SOCKET="$DATA_DIR/mysqld.sock"
+# The system user the server runs as: ours, unless told (the Galera nodes run as `mysql` when
+# started by root, because rsync's snapshot transfer would otherwise write as `nobody`).
+OS_USER="${DB_OS_USER:-$(id -un)}"
 PID_FILE="$DATA_DIR/mysqld.pid"
 LOG_FILE="$DATA_DIR/mysqld.log"
 
@@ -48,6 +58,20 @@ write_env_defaults() {
 		env_default "$ENV_FILE" REPLICA_DB_PORT "${REPLICA_DB_PORT:-3312}"
 		env_default "$ENV_FILE" DB_READ_REPLICAS "127.0.0.1:${REPLICA_DB_PORT:-3312}"
 		env_default "$ENV_FILE" REPLICATION_PASSWORD "$(random_secret 18)"
+	fi
+	if [ "$ENV_FILE" = "$ROOT/.env.cluster" ]; then
+		# Each node's SQL, group-communication, incremental (IST) and snapshot (SST) ports;
+		# overridable before the file is first written, so that checkouts can run side by side.
+		local n sql gcomm ist sst hosts=""
+		for n in 1 2 3; do
+			sql="GALERA_PORT_$n"; gcomm="GALERA_GCOMM_PORT_$n"; ist="GALERA_IST_PORT_$n"; sst="GALERA_SST_PORT_$n"
+			env_default "$ENV_FILE" "$sql" "${!sql:-$((3320 + n))}"
+			env_default "$ENV_FILE" "$gcomm" "${!gcomm:-$((4320 + n))}"
+			env_default "$ENV_FILE" "$ist" "${!ist:-$((4330 + n))}"
+			env_default "$ENV_FILE" "$sst" "${!sst:-$((4340 + n))}"
+			hosts="$hosts${hosts:+,}127.0.0.1:$(grep "^$sql=" "$ENV_FILE" | cut -d'"' -f2)"
+		done
+		env_default "$ENV_FILE" DB_HOSTS "$hosts"
 	fi
 	load_env "$ENV_FILE"
 	LISTEN_PORT="${!PORT_KEY}"
@@ -67,6 +91,8 @@ running() {
 # A replica gets both through replication from its primary, so it is left alone.
 provision() {
 	[ "$instance" = replica ] && return 0
+	# A cluster node that joins gets both from the cluster (scripts/cluster.sh provisions node 1).
+	[ "${DB_SKIP_PROVISION:-0}" = 1 ] && return 0
 	sql <<SQL
 CREATE DATABASE IF NOT EXISTS \`$DB_NAME\` CHARACTER SET utf8mb4 COLLATE utf8mb4_unicode_ci;
 CREATE USER IF NOT EXISTS '$DB_USER'@'127.0.0.1' IDENTIFIED BY '$DB_PASSWORD';
@@ -95,7 +121,8 @@ start() {
 	if [ ! -d "$DATA_DIR/mysql" ]; then
 		say "initialising MariaDB data folder $DATA_DIR"
 		mkdir -p "$DATA_DIR"
-		mariadb-install-db --no-defaults --datadir="$DATA_DIR" --user="$(id -un)" \
+		chown "$OS_USER" "$DATA_DIR"
+		mariadb-install-db --no-defaults --datadir="$DATA_DIR" --user="$OS_USER" \
 			--auth-root-authentication-method=normal --skip-test-db >"$DATA_DIR/install.log" 2>&1 \
 			|| die "mariadb-install-db failed, see $DATA_DIR/install.log"
 	fi
@@ -103,14 +130,17 @@ start() {
 	# utf8mb4 throughout (a --no-defaults server is latin1 otherwise); local_infile for the
 	# import benchmark's LOAD DATA comparison; a larger packet for batched inserts.
 	nohup mariadbd --no-defaults --datadir="$DATA_DIR" --socket="$SOCKET" --pid-file="$PID_FILE" \
-		--port="$LISTEN_PORT" --bind-address=127.0.0.1 --user="$(id -un)" \
+		--port="$LISTEN_PORT" --bind-address=127.0.0.1 --user="$OS_USER" \
 		--character-set-server=utf8mb4 --collation-server=utf8mb4_unicode_ci \
 		--local-infile=1 --max-allowed-packet=256M --skip-name-resolve \
 		--innodb-buffer-pool-size="${DB_BUFFER_POOL:-512M}" --innodb-log-file-size=256M \
 		--innodb-flush-log-at-trx-commit="${DB_FLUSH_AT_COMMIT:-1}" \
 		--log-error="$LOG_FILE" ${DB_EXTRA_ARGS:-} >/dev/null 2>&1 &
-	for _ in $(seq 1 150); do
+	local server=$!
+	# A Galera node that joins first receives the cluster's data (SST), so it may take longer.
+	for _ in $(seq 1 "${DB_START_TRIES:-150}"); do
 		running && break
+		pid_alive "$server" || break
 		sleep 0.2
 	done
 	running || die "MariaDB did not start, see $LOG_FILE"
@@ -141,6 +171,7 @@ case "$action" in
 		provision
 		say "database $DB_NAME recreated empty"
 		;;
+	env) write_env_defaults ;;
 	status) if running; then echo "running"; else echo "stopped"; exit 3; fi ;;
 	*) die "usage: scripts/db.sh start|stop|reset|status [dev|test]" ;;
 esac

@@ -20,6 +20,7 @@ cleanup() {
 	fi
 	bash scripts/services.sh stop test >/dev/null 2>&1 || true
 	bash scripts/replication.sh stop >/dev/null 2>&1 || true
+	bash scripts/cluster.sh stop >/dev/null 2>&1 || true
 	exit "$code"
 }
 trap cleanup EXIT INT TERM
@@ -51,6 +52,8 @@ export APP_URL="$ORIGIN"
 
 # The primary/replica pair for the test of several app processes (docs/scaling.md).
 bash scripts/replication.sh start
+# The three-node Galera cluster for the test of a node killed under two app processes.
+bash scripts/cluster.sh start
 
 say "integration tests (real MariaDB, the built app over HTTP)"
 npx vitest run --project integration

@@ -3,8 +3,10 @@
  * autocannon — the population overview (API and page), a population detail and sign-in, each
  * its share of the simulated users, all at once, with a 100,000-row import through the import
  * API started alongside (tests/bench/loadImport.ts), at 20 and then 50 concurrent users for
- * BENCH_SECONDS (20 s) each. Prints throughput, p50/p95/p99 and errors per part as a Markdown
- * table for docs/performance.md. It measures; it asserts nothing about time.
+ * BENCH_SECONDS (20 s) each; then 100 users for BENCH_LONG_SECONDS (60 s) with imports one after
+ * another for the whole run. BENCH_RUNS ("100:60", "20:20,50:20") picks runs as users:seconds.
+ * Prints throughput, p50/p95/p99 and errors per part as a Markdown table for
+ * docs/performance.md. It measures; it asserts nothing about time.
  */
 import autocannon from 'autocannon';
 import { loadTestEnv } from '../helpers/env';
@@ -14,6 +16,27 @@ import { importScenario, prepareImportSurvey, type ImportRun } from './loadImpor
 loadTestEnv();
 const APP = process.env.APP_URL ?? process.env.ORIGIN!;
 const SECONDS = Number(process.env.BENCH_SECONDS ?? 20);
+const LONG_SECONDS = Number(process.env.BENCH_LONG_SECONDS ?? 60);
+
+interface Run {
+	users: number;
+	seconds: number;
+	/** Imports back to back for the whole run, rather than one started with it. */
+	importsThroughout: boolean;
+}
+
+/** The runs: BENCH_RUNS as users:seconds pairs, or 20 and 50 users short and 100 users long. */
+function runs(): Run[] {
+	const listed = (process.env.BENCH_RUNS ?? '').split(',').filter(Boolean);
+	const pairs = listed.length
+		? listed.map((pair) => pair.split(':').map(Number) as [number, number])
+		: ([
+				[20, SECONDS],
+				[50, SECONDS],
+				[100, LONG_SECONDS]
+			] as [number, number][]);
+	return pairs.map(([users, seconds]) => ({ users, seconds, importsThroughout: users >= 100 }));
+}
 
 interface Part {
 	name: string;
@@ -72,13 +95,18 @@ const quantile = (sorted: number[], p: number) =>
 	sorted.length ? sorted[Math.min(sorted.length - 1, Math.floor(p * sorted.length))] : NaN;
 
 /** One part at `connections` users; every response time is kept, for exact percentiles. */
-async function runPart(part: Part, connections: number, cookie: string): Promise<Figures> {
+async function runPart(
+	part: Part,
+	connections: number,
+	cookie: string,
+	seconds: number
+): Promise<Figures> {
 	const times: number[] = [];
 	let wrong = 0;
 	const instance = autocannon({
 		url: APP,
 		connections,
-		duration: SECONDS,
+		duration: seconds,
 		timeout: 30,
 		requests: [part.request(cookie)]
 	});
@@ -92,7 +120,7 @@ async function runPart(part: Part, connections: number, cookie: string): Promise
 		name: part.name,
 		users: connections,
 		requests: times.length,
-		perSecond: times.length / SECONDS,
+		perSecond: times.length / seconds,
 		p50: quantile(times, 0.5),
 		p95: quantile(times, 0.95),
 		p99: quantile(times, 0.99),
@@ -100,12 +128,22 @@ async function runPart(part: Part, connections: number, cookie: string): Promise
 	};
 }
 
-/** Every part at once, and one 100,000-row import started with them. */
-async function mixed(users: number, cookie: string, importSurveyId: number) {
-	const counts = PARTS.map((p) => Math.max(1, Math.round(users * p.share)));
-	const load = Promise.all(PARTS.map((p, i) => runPart(p, counts[i], cookie)));
-	const imported: ImportRun = await importScenario(APP, { cookie }, importSurveyId, users);
-	return { figures: await load, imported };
+/**
+ * Every part at once, and one 100,000-row import started with them, or (importsThroughout)
+ * one import after another until the run ends.
+ */
+async function mixed(run: Run, cookie: string, importSurveyId: number) {
+	const counts = PARTS.map((p) => Math.max(1, Math.round(run.users * p.share)));
+	const load = Promise.all(PARTS.map((p, i) => runPart(p, counts[i], cookie, run.seconds)));
+	const imports: ImportRun[] = [];
+	const ends = Date.now() + run.seconds * 1000;
+	do {
+		// Each import's rows differ from every other's (the run number shifts y by a metre, so it
+		// stays small: y must stay under the import's 10 m limit).
+		const number = run.users * 10 + imports.length;
+		imports.push(await importScenario(APP, { cookie }, importSurveyId, number));
+	} while (run.importsThroughout && Date.now() < ends);
+	return { figures: await load, imports };
 }
 
 function table(rows: Figures[]): string {
@@ -124,14 +162,15 @@ function table(rows: Figures[]): string {
 async function main() {
 	const engineer = await signInAs('engineer', APP);
 	const importSurveyId = await prepareImportSurvey(APP, engineer);
-	for (const users of [20, 50]) {
-		const { figures, imported } = await mixed(users, engineer.cookie, importSurveyId);
+	for (const run of runs()) {
+		const { figures, imports } = await mixed(run, engineer.cookie, importSurveyId);
 		const total = figures.reduce((s, r) => s + r.perSecond, 0);
+		const errors = figures.reduce((s, r) => s + r.errors, 0);
 		console.log(
-			`\n### ${users} concurrent users, ${SECONDS} s (total ${total.toFixed(1)} req/s)\n`
+			`\n### ${run.users} concurrent users, ${run.seconds} s (total ${total.toFixed(1)} req/s, ${errors} error(s))\n`
 		);
 		console.log(table(figures));
-		console.log(`\n${imported.summary}`);
+		for (const imported of imports) console.log(`\n${imported.summary}`);
 	}
 }
 

@@ -11,7 +11,9 @@ const CONNECTION_CODES = new Set([
 	'ER_GET_CONNECTION_TIMEOUT',
 	'ER_CONNECTION_ALREADY_CLOSED',
 	'ER_CMD_CONNECTION_CLOSED',
-	'ER_SERVER_SHUTDOWN'
+	'ER_SERVER_SHUTDOWN',
+	// A Galera node without quorum (errno 1047) refuses every query until the cluster is whole.
+	'ER_UNKNOWN_COM_ERROR'
 ]);
 
 /** An error raised by the database layer: one of Sequelize's, or the mariadb connector's. */

@@ -31,4 +31,9 @@ describe('isAbandoned', () => {
 		const silent = run({ heartbeatAt: new Date(NOW - IMPORT_LIMITS.staleAfterMs - 1) });
 		expect(isAbandoned(silent, new Set([42]), NOW)).toBe(true);
 	});
+
+	it('judges by the heartbeat alone where the process list cannot tell (several writable nodes)', () => {
+		expect(isAbandoned(run(), null, NOW)).toBe(false);
+		expect(isAbandoned(run(), null, NOW + IMPORT_LIMITS.staleAfterMs + 1)).toBe(true);
+	});
 });

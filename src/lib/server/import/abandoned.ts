@@ -1,6 +1,7 @@
 import { QueryTypes } from 'sequelize';
 import { ImportBatch } from '../db/models';
 import { recordAudit } from '../audit';
+import { writesThroughSeveralNodes } from '../db/connection';
 import { isDatabaseUnavailable } from '../db/unavailable';
 import { IMPORT_LIMITS } from './limits';
 import { removeStagedCopies } from './stagedCopies';
@@ -30,10 +31,13 @@ export const ABANDONED_MESSAGE =
  */
 export function isAbandoned(
 	run: RunningImport,
-	openConnections: ReadonlySet<number>,
+	/** The open connections, or null when the process list cannot tell (see below). */
+	openConnections: ReadonlySet<number> | null,
 	nowMs: number
 ): boolean {
-	if (run.connectionId !== null && !openConnections.has(run.connectionId)) return true;
+	if (openConnections && run.connectionId !== null && !openConnections.has(run.connectionId)) {
+		return true;
+	}
 	return nowMs - (run.heartbeatAt?.getTime() ?? 0) > IMPORT_LIMITS.staleAfterMs;
 }
 
@@ -112,9 +116,14 @@ async function failAbandoned(run: RunningImport): Promise<boolean> {
 export async function failAbandonedImports(): Promise<number> {
 	const running = await runningImports();
 	if (running.length === 0) return 0;
-	const open = await openConnections(
-		running.flatMap((r) => (r.connectionId === null ? [] : [r.connectionId]))
-	);
+	// Writing through several nodes of a cluster (DB_HOSTS), each node numbers and lists only
+	// its own connections: an import running through another node is missing from this node's
+	// list, and would be failed while it runs. Only the heartbeat can tell there.
+	const open = writesThroughSeveralNodes(sequelize())
+		? null
+		: await openConnections(
+				running.flatMap((r) => (r.connectionId === null ? [] : [r.connectionId]))
+			);
 	const nowMs = Date.now();
 	let failed = 0;
 	for (const run of running.filter((r) => isAbandoned(r, open, nowMs))) {

@@ -64,6 +64,17 @@ async function nextReadingId(sequelize: Sequelize): Promise<number> {
 	return Number(row?.id ?? 0) + 1;
 }
 
+/**
+ * Whether the server replicates through Galera (wsrep on): its sequences need INCREMENT BY 0.
+ * SHOW VARIABLES, since a server built without wsrep has no such variable to SELECT.
+ */
+async function isGaleraNode(sequelize: Sequelize): Promise<boolean> {
+	const rows = await sequelize.query<{ Value: string }>("SHOW VARIABLES LIKE 'wsrep_on'", {
+		type: QueryTypes.SELECT
+	});
+	return rows[0]?.Value === 'ON';
+}
+
 export const coverSets: Migration = {
 	name: '009-cover-sets',
 	async up({ context: qi }) {
@@ -99,8 +110,13 @@ export const coverSets: Migration = {
 			{ type: QueryTypes.UPDATE }
 		);
 		// CACHE: ids are handed out from memory, a thousand at a time, in increasing order.
+		// On a Galera node the increment must be 0 (MariaDB refuses CACHE with any other under
+		// wsrep, MDEV-30388): each node then steps by auto_increment_increment from its own
+		// offset, which wsrep_auto_increment_control sets from the cluster's size, so two nodes
+		// never hand out one id and each node's ids still rise. A standalone server gets 1, as before.
+		const increment = (await isGaleraNode(sequelize)) ? 0 : 1;
 		await sequelize.query(
-			`CREATE SEQUENCE reading_ids START WITH ${await nextReadingId(sequelize)} INCREMENT BY 1 CACHE 1000`,
+			`CREATE SEQUENCE reading_ids START WITH ${await nextReadingId(sequelize)} INCREMENT BY ${increment} CACHE 1000`,
 			raw
 		);
 		const [foreignKey] = await sequelize.query<{ name: string }>(FIND_BATCH_FOREIGN_KEY, {
