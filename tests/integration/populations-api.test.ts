@@ -3,7 +3,7 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { assessPopulation } from '../../src/lib/analysis';
 import type { PopulationOverview } from '../../src/lib/server/populations';
 import { testSequelize } from '../helpers/database';
-import { CAR_PARK, FOOTBRIDGE, assetIdByName, coversBySql } from '../helpers/actors';
+import { CAR_PARK, assetIdByName, coversBySql, unsharedAsset } from '../helpers/actors';
 import { anonymousClient, signInAs, type HttpClient } from '../helpers/session';
 
 const JSON_ACCEPT = { accept: 'application/json' };
@@ -59,14 +59,14 @@ describe('the population API over HTTP', () => {
 			(await anonymousClient().get(`/api/v1/assets/${carParkId}/populations`, JSON_ACCEPT)).status
 		).toBe(401);
 		const owner = await signInAs('owner');
-		const footbridgeId = await assetIdByName(sequelize, FOOTBRIDGE);
+		const unsharedId = await unsharedAsset(sequelize, `populations-api${Date.now()}`);
 		// Owners read approved assessments of shared assets, not live populations.
 		expect((await owner.get(`/api/v1/assets/${carParkId}/populations`, JSON_ACCEPT)).status).toBe(
 			403
 		);
-		expect(
-			(await owner.get(`/api/v1/assets/${footbridgeId}/assessments`, JSON_ACCEPT)).status
-		).toBe(404);
+		expect((await owner.get(`/api/v1/assets/${unsharedId}/assessments`, JSON_ACCEPT)).status).toBe(
+			404
+		);
 		const saved = await engineer.postJson(`/api/v1/assets/${carParkId}/assessments`, {
 			title: 'API draft'
 		});

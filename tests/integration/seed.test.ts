@@ -19,7 +19,7 @@ describe('demo scenario seeding', () => {
 		await scratch.drop();
 	});
 
-	it('is deterministic: two runs give the same counts and summary figures', async () => {
+	it('is deterministic: two runs give the same counts, summary figures and assessments', async () => {
 		await loadDemoScenario(scratch.sequelize);
 		const first = await summariseDemo(scratch.sequelize);
 		await clearAllData(scratch.sequelize);
@@ -42,6 +42,12 @@ describe('demo scenario seeding', () => {
 			if (p.n >= 20) expect(p.sdMm).toBeGreaterThan(3);
 			if (p.n >= 20) expect(p.sdMm).toBeLessThan(14);
 		}
+		// One approved assessment a structure, each with its risk annex, for the owner's pages.
+		expect(summary.counts.assessments).toBe(summary.counts.assets);
+		expect(summary.counts.assessment_risks).toBe(summary.counts.assets);
+		expect(summary.assessments.map((a) => a.state)).toEqual(
+			Array(summary.counts.assets).fill('approved')
+		);
 		// One small population, for the "not enough data" verdict.
 		expect(summary.populations.some((p) => p.n < 20)).toBe(true);
 	});
