@@ -21,6 +21,7 @@ export const ACTIONS = [
 	'reading:import',
 	'reading:edit',
 	'hole:write',
+	'measurement:write',
 	'attachment:upload',
 	'attachment:read',
 	'population:read',
@@ -56,6 +57,7 @@ const engineer: Action[] = [
 	'reading:import',
 	'reading:edit',
 	'hole:write',
+	'measurement:write',
 	'attachment:upload',
 	'attachment:read',
 	'population:read',
@@ -81,6 +83,7 @@ export const PERMISSIONS: Record<Role, ReadonlySet<Action>> = {
 		'reading:import',
 		'reading:edit',
 		'hole:write',
+		'measurement:write',
 		'attachment:upload',
 		'attachment:read',
 		// Live population figures, to check a survey before handing it over; no sign-off.

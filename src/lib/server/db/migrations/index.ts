@@ -7,6 +7,7 @@ import { assessmentRisk } from './006-assessment-risk';
 import { apiRateLimits } from './007-api-rate-limits';
 import { intakeProgress } from './008-intake-progress';
 import { coverSets } from './009-cover-sets';
+import { durabilityMeasurements } from './010-durability-measurements';
 import type { Migration } from './types';
 
 /**
@@ -22,5 +23,6 @@ export const migrations: Migration[] = [
 	assessmentRisk,
 	apiRateLimits,
 	intakeProgress,
-	coverSets
+	coverSets,
+	durabilityMeasurements
 ];
