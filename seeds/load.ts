@@ -16,6 +16,7 @@ import { READING_INSERT_FIELDS } from '../src/lib/server/db/models/Reading';
 import { useDatabase } from '../src/lib/server/db';
 import { rebuildCoverSets } from '../src/lib/server/readings/coverSets';
 import { signOffDemoAssessments } from './assessments';
+import { loadDemoMeasurements } from './loadMeasurements';
 import { generateHoles, generateReadings, specifiedCover } from './generate';
 import { SeededRandom } from './random';
 import {
@@ -158,6 +159,7 @@ async function loadRecords(sequelize: Sequelize): Promise<{ readings: number; me
 				memberCount += counts.members;
 			}
 		}
+		await loadDemoMeasurements(transaction);
 	});
 	return { readings: readingCount, members: memberCount };
 }
@@ -283,6 +285,8 @@ async function loadSurvey(
 
 export interface DemoSummary {
 	counts: Record<string, number>;
+	/** Every measurement as stored, in id order (the seeded generator must give the same). */
+	measurements: { carbonation: unknown[]; chloride: unknown[] };
 	/** Each assessment with its snapshot and annex, the moment of computing left out. */
 	assessments: { title: string; state: string; snapshot: unknown; annex: unknown }[];
 	populations: {
@@ -309,6 +313,9 @@ export async function summariseDemo(sequelize: Sequelize): Promise<DemoSummary> 
 		'members',
 		'readings',
 		'verification_holes',
+		'carbonation_tests',
+		'chloride_profiles',
+		'chloride_increments',
 		'assessments',
 		'assessment_risks'
 	]) {
@@ -329,6 +336,21 @@ export async function summariseDemo(sequelize: Sequelize): Promise<DemoSummary> 
 	return {
 		counts,
 		assessments: await assessmentContents(sequelize),
+		measurements: {
+			carbonation: await sequelize.query(
+				`SELECT m.label AS member, c.label, c.x_mm, c.y_mm, c.tested_on, c.depths_mm, c.depth_min_mm,
+				        c.depth_mean_mm, c.depth_max_mm, c.method
+				   FROM carbonation_tests c JOIN members m ON m.id = c.member_id ORDER BY c.id`,
+				{ type: QueryTypes.SELECT }
+			),
+			chloride: await sequelize.query(
+				`SELECT p.label, p.basis, p.binder_content_kg_m3, p.initial_content_percent, i.position,
+				        i.from_mm, i.to_mm, i.chloride_percent, i.outermost
+				   FROM chloride_profiles p JOIN chloride_increments i ON i.profile_id = p.id
+				  ORDER BY p.id, i.position`,
+				{ type: QueryTypes.SELECT }
+			)
+		},
 		populations: populations.map((p) => ({
 			...p,
 			n: Number(p.n),

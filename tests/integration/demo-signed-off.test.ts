@@ -93,4 +93,21 @@ describe('the demo as loaded: one approved assessment per asset, shared with the
 			'assessment.approved'
 		]);
 	});
+
+	it('shows the measured chloride profiles of the car park and carbonation tests of the office', async () => {
+		const engineer = await signInAs('engineer');
+		for (const [plan, words] of [
+			[demoAssessments[0], ['Chloride profile CP-03', 'L2-COL-C1', 'outermost: left out of fits']],
+			[demoAssessments[1], ['CT-12', 'B-502', 'mean of 5 readings', 'as read']]
+		] as const) {
+			const [survey] = await sequelize.query<{ id: number }>(
+				'SELECT id FROM surveys WHERE title = ?',
+				{ replacements: [plan.surveyTitle], type: QueryTypes.SELECT }
+			);
+			const response = await engineer.get(`/surveys/${survey.id}/measurements`);
+			expect(response.status).toBe(200);
+			const html = await response.text();
+			for (const word of words) expect(html, word).toContain(word);
+		}
+	});
 });

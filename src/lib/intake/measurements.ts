@@ -205,3 +205,12 @@ export function carbonationDepths(
 		meanSource: t.depthMeanMm !== null ? 'as read' : `mean of ${n} readings`
 	};
 }
+
+/**
+ * Age of the concrete at a test, in years, from the year of construction: only the year is
+ * recorded, so mid-year (1 July) is taken as the casting date; a Julian year of 365.25 days.
+ */
+export function concreteAgeYears(yearOfConstruction: number, testedOn: string): number {
+	const tested = Date.parse(`${testedOn}T00:00:00Z`);
+	return (tested - Date.UTC(yearOfConstruction, 6, 1)) / (365.25 * 86_400_000);
+}

@@ -80,6 +80,11 @@ export async function getChlorideProfile(actor: Actor, id: number) {
 const contents = (input: Pick<ChlorideProfileInput, 'increments'>) =>
 	input.increments.map((i) => [i.fromMm, i.toMm, i.chloridePercent]);
 
+/** The rows of a profile's increments: the schema has them from the surface inwards, so the first is the outermost. */
+export function incrementRows(profileId: number, increments: ChlorideProfileInput['increments']) {
+	return increments.map((i, n) => ({ ...i, profileId, position: n + 1, outermost: n === 0 }));
+}
+
 export async function createChlorideProfile(
 	actor: Actor,
 	memberId: number,
@@ -91,16 +96,7 @@ export async function createChlorideProfile(
 		await assertLabelFree(ChlorideProfile, 'Chloride profile', memberId, input.label, transaction);
 		const { increments, ...fields } = input;
 		const profile = await ChlorideProfile.create({ ...fields, memberId }, { transaction });
-		// The schema has them from the surface inwards: the first is the outermost.
-		await ChlorideIncrement.bulkCreate(
-			increments.map((i, n) => ({
-				...i,
-				profileId: profile.id,
-				position: n + 1,
-				outermost: n === 0
-			})),
-			{ transaction }
-		);
+		await ChlorideIncrement.bulkCreate(incrementRows(profile.id, increments), { transaction });
 		const detail = { basis: input.basis, increments: contents(input) };
 		await auditMeasurement(actor, 'chloride_profile', 'created', profile, detail, transaction);
 		await profile.reload({

@@ -7,7 +7,8 @@ import { fieldErrors, safeValues } from '$lib/server/forms';
 import {
 	carbonationDepths,
 	carbonationTestSchema,
-	chlorideProfileSchema
+	chlorideProfileSchema,
+	concreteAgeYears
 } from '$lib/intake/measurements';
 import {
 	carbonationTestsOfSurvey,
@@ -25,14 +26,6 @@ import { frozenReason } from '$lib/server/intake/frozen';
 import { idParam } from '$lib/server/intake/respond';
 import { scopedSurvey } from '$lib/server/scope';
 
-/** Age of the concrete at a test, in years, from the year of construction (mid-year assumed). */
-function ageYears(yearOfConstruction: number | null, testedOn: string): number | null {
-	if (yearOfConstruction === null) return null;
-	const tested = new Date(`${testedOn}T00:00:00Z`);
-	const cast = Date.UTC(yearOfConstruction, 6, 1);
-	return (tested.getTime() - cast) / (365.25 * 24 * 3600 * 1000);
-}
-
 export const load: PageServerLoad = async (event) => {
 	const actor = pageActor(event, 'survey:read');
 	const surveyId = idParam(event.params.surveyId);
@@ -43,7 +36,9 @@ export const load: PageServerLoad = async (event) => {
 		carbonationTestsOfSurvey(actor, surveyId),
 		chlorideProfilesOfSurvey(actor, surveyId)
 	]);
-	const age = (testedOn: string) => ageYears(asset.yearOfConstruction, testedOn);
+	const { yearOfConstruction } = asset;
+	const age = (testedOn: string) =>
+		yearOfConstruction === null ? null : concreteAgeYears(yearOfConstruction, testedOn);
 	return {
 		survey: { id: survey.id, title: survey.title, status: survey.status },
 		asset: { id: asset.id, name: asset.name, yearOfConstruction: asset.yearOfConstruction },
