@@ -98,7 +98,7 @@ describe('the demo as loaded: one approved assessment per asset, shared with the
 		const engineer = await signInAs('engineer');
 		for (const [plan, words] of [
 			[demoAssessments[0], ['Chloride profile CP-03', 'L2-COL-C1', 'outermost: left out of fits']],
-			[demoAssessments[1], ['CT-12', 'B-502', 'mean of 5 readings', 'as read']]
+			[demoAssessments[1], ['CT-12', 'B-502', 'from the 5 readings', 'as read']]
 		] as const) {
 			const [survey] = await sequelize.query<{ id: number }>(
 				'SELECT id FROM surveys WHERE title = ?',

@@ -187,6 +187,16 @@ export function conversionNote(
 	return `% by mass of concrete × ${profile.concreteDensityKgM3} kg/m³ (assumed concrete density) ÷ ${profile.binderContentKgM3} kg/m³ (assumed binder content) = % by mass of binder`;
 }
 
+function summarySource(
+	t: Pick<CarbonationTestInput, 'depthMinMm' | 'depthMeanMm' | 'depthMaxMm'>,
+	readings: number
+): string {
+	const given = [t.depthMinMm, t.depthMeanMm, t.depthMaxMm].filter((v) => v !== null).length;
+	if (given === 3 || readings === 0) return 'as read';
+	if (given === 0) return `from the ${readings} readings`;
+	return `as read where given, else from the ${readings} readings`;
+}
+
 /** Min, mean and max of a carbonation test: as read where given, else from its readings. */
 export function carbonationDepths(
 	t: Pick<CarbonationTestInput, 'depthsMm' | 'depthMinMm' | 'depthMeanMm' | 'depthMaxMm'>
@@ -201,8 +211,8 @@ export function carbonationDepths(
 		minMm: t.depthMinMm ?? fromReadings.min,
 		meanMm: t.depthMeanMm ?? fromReadings.mean!,
 		maxMm: t.depthMaxMm ?? fromReadings.max,
-		/** Where the mean comes from, in words for the tables. */
-		meanSource: t.depthMeanMm !== null ? 'as read' : `mean of ${n} readings`
+		/** Where min, mean and max come from, in words for the tables. */
+		meanSource: summarySource(t, n)
 	};
 }
 
