@@ -15,6 +15,18 @@ interface Summary {
 	title: string;
 	state: string;
 	approvedBy: string | null;
+	approvedAt: string | null;
+}
+
+/**
+ * Signed off by the seed. Files that run earlier on the shared database may supersede it (that
+ * needs an approved one), so 'superseded' is accepted; it was approved all the same. The seed's
+ * own test, on a database of its own, checks that each is approved.
+ */
+function expectSignedOff(summary: Summary) {
+	expect(['approved', 'superseded']).toContain(summary.state);
+	expect(summary.approvedBy).toBe('Imogen Hartley');
+	expect(summary.approvedAt).not.toBeNull();
 }
 
 /** The seeded assessment of a plan, as the API lists it to this client. */
@@ -58,7 +70,7 @@ describe('the demo as loaded: one approved assessment per asset, shared with the
 		const owner = await signInAs('owner');
 		for (const [i, plan] of demoAssessments.entries()) {
 			const summary = await seeded(owner, assetIds[i], plan.title);
-			expect(summary.state).toBe('approved');
+			expectSignedOff(summary);
 			const report = await owner.get(`/api/v1/assessments/${summary.id}/report`);
 			expect(report.status).toBe(200);
 			expect(report.headers.get('content-type')).toBe('application/pdf');
@@ -77,8 +89,7 @@ describe('the demo as loaded: one approved assessment per asset, shared with the
 		const engineer = await signInAs('engineer');
 		const plan = demoAssessments[0];
 		const summary = await seeded(engineer, assetIds[0], plan.title);
-		expect(summary.state).toBe('approved');
-		expect(summary.approvedBy).toBe('Imogen Hartley');
+		expectSignedOff(summary);
 		const detail = await engineer.get(`/api/v1/assessments/${summary.id}`, JSON_ACCEPT);
 		expect(detail.status).toBe(200);
 		const body = await detail.json();
