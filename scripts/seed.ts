@@ -1,12 +1,16 @@
 // Loads the demo scenario: `tsx scripts/seed.ts` (refuses a database that holds data),
 // `--if-empty` (quietly skips one that does), `--reset` (wipes every table first).
+import { register } from 'node:module';
 import { createSequelize, readDatabaseSettings } from '../src/lib/server/db/connection';
 import { initModels } from '../src/lib/server/db/models';
-import { clearAllData, isDatabaseEmpty, loadDemoScenario } from '../seeds/load';
 import { DEMO_PASSWORD, demoPeople } from '../seeds/scenario';
 import { loadProjectEnv } from './env';
 
 loadProjectEnv();
+// The demo's assessments are saved through the app's services, which import SvelteKit's aliases
+// ($lib, $env): resolve them before the seed is loaded (scripts/kit/hooks.mjs).
+register('./kit/hooks.mjs', import.meta.url);
+const { clearAllData, isDatabaseEmpty, loadDemoScenario } = await import('../seeds/load');
 const sequelize = createSequelize(readDatabaseSettings(process.env));
 initModels(sequelize);
 const args = new Set(process.argv.slice(2));
@@ -24,9 +28,9 @@ try {
 		await clearAllData(sequelize);
 	}
 	const started = performance.now();
-	const { readings, members } = await loadDemoScenario(sequelize);
+	const { readings, members, assessments } = await loadDemoScenario(sequelize);
 	console.log(
-		`demo scenario loaded: ${members} members, ${readings} readings in ${Math.round(performance.now() - started)} ms`
+		`demo scenario loaded: ${members} members, ${readings} readings, ${assessments} approved assessments in ${Math.round(performance.now() - started)} ms`
 	);
 	console.log(`demo sign-ins (password "${DEMO_PASSWORD}"):`);
 	for (const p of demoPeople) console.log(`  ${p.role.padEnd(10)} ${p.email}`);

@@ -13,11 +13,15 @@ import {
 	VerificationHole
 } from '../src/lib/server/db/models';
 import { READING_INSERT_FIELDS } from '../src/lib/server/db/models/Reading';
+import { useDatabase } from '../src/lib/server/db';
 import { rebuildCoverSets } from '../src/lib/server/readings/coverSets';
+import { signOffDemoAssessments } from './assessments';
+import { loadDemoMeasurements } from './loadMeasurements';
 import { generateHoles, generateReadings, specifiedCover } from './generate';
 import { SeededRandom } from './random';
 import {
 	DEMO_PASSWORD,
+	demoAssessments,
 	demoAssets,
 	demoOrganisations,
 	demoPeople,
@@ -32,10 +36,14 @@ const DATA_TABLES = [
 	'audit_events',
 	'research_exports',
 	'report_links',
+	'assessment_risks',
 	'assessments',
 	'column_templates',
 	'attachments',
 	'verification_holes',
+	'chloride_increments',
+	'chloride_profiles',
+	'carbonation_tests',
 	'readings',
 	'import_progress',
 	'import_batches',
@@ -73,10 +81,27 @@ export async function clearAllData(sequelize: Sequelize): Promise<void> {
 	}
 }
 
-/** Writes the whole demo scenario in one transaction: all of it or nothing. */
+/**
+ * Writes the demo scenario: the records in one transaction, then the assessments through the
+ * app's services (each its own transaction, as in the app). All of it or nothing: if signing off
+ * fails, every table is emptied again.
+ */
 export async function loadDemoScenario(
 	sequelize: Sequelize
-): Promise<{ readings: number; members: number }> {
+): Promise<{ readings: number; members: number; assessments: number }> {
+	const counts = await loadRecords(sequelize);
+	// The services reach the database through db(): make it this instance, not a second pool.
+	useDatabase(sequelize);
+	try {
+		const ids = await signOffDemoAssessments(demoAssessments);
+		return { ...counts, assessments: ids.length };
+	} catch (e) {
+		await clearAllData(sequelize);
+		throw e;
+	}
+}
+
+async function loadRecords(sequelize: Sequelize): Promise<{ readings: number; members: number }> {
 	const rng = new SeededRandom(DEMO_SEED);
 	const passwordHash = await hashPassword(DEMO_PASSWORD);
 	let readingCount = 0;
@@ -134,6 +159,7 @@ export async function loadDemoScenario(
 				memberCount += counts.members;
 			}
 		}
+		await loadDemoMeasurements(transaction);
 	});
 	return { readings: readingCount, members: memberCount };
 }
@@ -259,6 +285,10 @@ async function loadSurvey(
 
 export interface DemoSummary {
 	counts: Record<string, number>;
+	/** Every measurement as stored, in id order (the seeded generator must give the same). */
+	measurements: { carbonation: unknown[]; chloride: unknown[] };
+	/** Each assessment with its snapshot and annex, the moment of computing left out. */
+	assessments: { title: string; state: string; snapshot: unknown; annex: unknown }[];
 	populations: {
 		memberType: string;
 		exposureClass: string;
@@ -282,7 +312,12 @@ export async function summariseDemo(sequelize: Sequelize): Promise<DemoSummary> 
 		'surveys',
 		'members',
 		'readings',
-		'verification_holes'
+		'verification_holes',
+		'carbonation_tests',
+		'chloride_profiles',
+		'chloride_increments',
+		'assessments',
+		'assessment_risks'
 	]) {
 		const row = await sequelize.query<{ n: number }>(`SELECT COUNT(*) AS n FROM \`${table}\``, {
 			type: QueryTypes.SELECT,
@@ -300,6 +335,22 @@ export async function summariseDemo(sequelize: Sequelize): Promise<DemoSummary> 
 	);
 	return {
 		counts,
+		assessments: await assessmentContents(sequelize),
+		measurements: {
+			carbonation: await sequelize.query(
+				`SELECT m.label AS member, c.label, c.x_mm, c.y_mm, c.tested_on, c.depths_mm, c.depth_min_mm,
+				        c.depth_mean_mm, c.depth_max_mm, c.method
+				   FROM carbonation_tests c JOIN members m ON m.id = c.member_id ORDER BY c.id`,
+				{ type: QueryTypes.SELECT }
+			),
+			chloride: await sequelize.query(
+				`SELECT p.label, p.basis, p.binder_content_kg_m3, p.initial_content_percent, i.position,
+				        i.from_mm, i.to_mm, i.chloride_percent, i.outermost
+				   FROM chloride_profiles p JOIN chloride_increments i ON i.profile_id = p.id
+				  ORDER BY p.id, i.position`,
+				{ type: QueryTypes.SELECT }
+			)
+		},
 		populations: populations.map((p) => ({
 			...p,
 			n: Number(p.n),
@@ -307,4 +358,29 @@ export async function summariseDemo(sequelize: Sequelize): Promise<DemoSummary> 
 			sdMm: Number(p.sdMm)
 		}))
 	};
+}
+
+/** The stored assessments as plain objects, without the computing time (the one thing a rerun changes). */
+async function assessmentContents(sequelize: Sequelize): Promise<DemoSummary['assessments']> {
+	const rows = await sequelize.query<{
+		title: string;
+		state: string;
+		snapshot: string;
+		annex: string | null;
+	}>(
+		`SELECT a.title, a.state, a.snapshot, r.annex FROM assessments a
+		   LEFT JOIN assessment_risks r ON r.assessment_id = a.id ORDER BY a.id`,
+		{ type: QueryTypes.SELECT }
+	);
+	const timeless = (text: string | null) => {
+		if (text === null) return null;
+		const { computedAt: _computedAt, ...rest } = JSON.parse(text) as Record<string, unknown>;
+		return rest;
+	};
+	return rows.map((r) => ({
+		title: r.title,
+		state: r.state,
+		snapshot: timeless(r.snapshot),
+		annex: timeless(r.annex)
+	}));
 }

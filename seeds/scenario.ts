@@ -289,14 +289,14 @@ export const demoAssets: DemoAssetPlan[] = [
 		description: 'Three-span footbridge over a tidal creek; salt spray on the deck edges.',
 		yearOfConstruction: 1986,
 		designServiceLifeYears: 60,
-		sharedWith: [],
+		sharedWith: [OWNER],
 		researchOptIn: false,
 		surveys: [
 			{
 				title: 'Deck and edge beams, principal inspection',
 				surveyDate: '2025-09-23',
 				surveyorEmail: 'surveyor@kestrel-lane.example',
-				status: 'draft',
+				status: 'submitted',
 				...meter,
 				meterCalibration: 'Checked on calibration block 2025-09-01',
 				notes: 'Access from the deck only; edge beams scanned on their outer faces.',
@@ -331,5 +331,47 @@ export const demoAssets: DemoAssetPlan[] = [
 				]
 			}
 		]
+	}
+];
+
+export interface DemoAssessmentPlan {
+	assetName: string;
+	surveyTitle: string;
+	title: string;
+	recommendations: string;
+	/** Saves the draft (policy 'assessment:write'). */
+	savedBy: string;
+	/** Approves it (policy 'assessment:approve'): a second person, as the organisation's rule asks. */
+	approvedBy: string;
+}
+
+/** One approved assessment a demo asset, each of one survey, shared with the owner. */
+export const demoAssessments: DemoAssessmentPlan[] = [
+	{
+		assetName: demoAssets[0].name,
+		surveyTitle: demoAssets[0].surveys[0].title,
+		title: 'Level 2 deck and soffits: cover assessment',
+		recommendations:
+			'Take chloride profiles in bays L2-BAY-04 and L2-BAY-07, where cover is lowest, before deciding on repairs. Plan a protective coating of the Level 2 deck within five years; recheck the columns at the next principal inspection.',
+		savedBy: 'engineer@kestrel-lane.example',
+		approvedBy: 'admin@kestrel-lane.example'
+	},
+	{
+		assetName: demoAssets[1].name,
+		surveyTitle: demoAssets[1].surveys[0].title,
+		title: 'Perimeter frame: cover assessment before refurbishment',
+		recommendations:
+			'Measure carbonation depths on beam B-502, the member with the thinnest cover, and on two columns before the refurbishment is designed. Keep the parapets under review: too few readings to judge them.',
+		savedBy: 'engineer@kestrel-lane.example',
+		approvedBy: 'admin@kestrel-lane.example'
+	},
+	{
+		assetName: demoAssets[2].name,
+		surveyTitle: demoAssets[2].surveys[0].title,
+		title: 'Deck and edge beams: cover assessment',
+		recommendations:
+			'Take chloride samples on the deck edges exposed to spray at the next principal inspection; no action on cover alone.',
+		savedBy: 'engineer@kestrel-lane.example',
+		approvedBy: 'admin@kestrel-lane.example'
 	}
 ];

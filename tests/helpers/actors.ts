@@ -48,3 +48,18 @@ export const ADMIN = 'admin@kestrel-lane.example';
 export const ENGINEER = 'engineer@kestrel-lane.example';
 export const SURVEYOR = 'surveyor@kestrel-lane.example';
 export const OWNER = 'owner@northmoor.example';
+
+/**
+ * A fresh asset of the demo consultancy shared with nobody: the demo shares every structure with
+ * its owner, so tests of "neither owned nor shared" make their own.
+ */
+export async function unsharedAsset(sequelize: Sequelize, tag: string): Promise<number> {
+	const [id] = await sequelize.query(
+		`INSERT INTO assets (organisation_id, name, design_code, unit_system, design_service_life_years,
+		                     research_opt_in, created_at, updated_at)
+		 SELECT organisation_id, ?, 'EN 1992-1-1', 'mm', 50, 0, NOW(), NOW()
+		   FROM memberships m JOIN users u ON u.id = m.user_id WHERE u.email = ?`,
+		{ replacements: [`Unshared store ${tag}`, ENGINEER], type: QueryTypes.INSERT }
+	);
+	return Number(id);
+}

@@ -16,6 +16,8 @@ export interface OrganisationIds {
 	surveyId: number;
 	memberId: number;
 	holeId: number;
+	carbonationTestId: number;
+	chlorideProfileId: number;
 	assessmentId: number;
 	membershipId: number;
 	tokenId: number;
@@ -88,7 +90,37 @@ async function copyRecords(sequelize: Sequelize, organisationId: number, marker:
 		   measured_cover_mm, method, created_at) VALUES (?, 'H1', 0, 0, 40, 41.5, 'drilled', NOW())`,
 		[memberId]
 	);
-	return { assetId, surveyId, memberId, holeId };
+	return {
+		assetId,
+		surveyId,
+		memberId,
+		holeId,
+		...(await insertMeasurements(sequelize, memberId))
+	};
+}
+
+/** A carbonation test and a chloride profile (one increment) on `memberId`, by SQL. */
+export async function insertMeasurements(sequelize: Sequelize, memberId: number) {
+	const label = `HOSTILE-${randomBytes(4).toString('hex')}`;
+	const carbonationTestId = await insert(
+		sequelize,
+		`INSERT INTO carbonation_tests (member_id, label, tested_on, depths_mm, depth_mean_mm, created_at)
+		 VALUES (?, ?, '2026-01-10', '[]', 12, NOW())`,
+		[memberId, label]
+	);
+	const chlorideProfileId = await insert(
+		sequelize,
+		`INSERT INTO chloride_profiles (member_id, label, tested_on, basis, created_at)
+		 VALUES (?, ?, '2026-01-10', 'binder', NOW())`,
+		[memberId, label]
+	);
+	await insert(
+		sequelize,
+		`INSERT INTO chloride_increments (profile_id, position, from_mm, to_mm, chloride_percent, outermost)
+		 VALUES (?, 1, 0, 5, 1.2, 1)`,
+		[chlorideProfileId]
+	);
+	return { carbonationTestId, chlorideProfileId };
 }
 
 /** A draft assessment of `assetId` and an API token, both made over HTTP by `client`. */

@@ -12,6 +12,7 @@ import { routeIdsWithParams } from '../helpers/routes';
 import {
 	createOtherOrganisation,
 	draftAndToken,
+	insertMeasurements,
 	researchExportOf,
 	type OrganisationIds,
 	type OtherOrganisation
@@ -42,7 +43,14 @@ const VALID = {
 		cNomMm: '35',
 		deltaCDevMm: '10'
 	},
-	hole: { label: 'STOLEN-H', meterReadingMm: '40', measuredCoverMm: '41' }
+	hole: { label: 'STOLEN-H', meterReadingMm: '40', measuredCoverMm: '41' },
+	carbonationTest: { label: 'STOLEN-CT', testedOn: '2026-01-01', depthsMm: [10] },
+	chlorideProfile: {
+		label: 'STOLEN-CP',
+		testedOn: '2026-01-01',
+		basis: 'binder',
+		increments: [{ fromMm: 0, toMm: 5, chloridePercent: 1 }]
+	}
 };
 
 /** For each route with an organisation's id: the requests an attacker would try with a victim's ids. */
@@ -226,6 +234,48 @@ const ORG_ROUTES: Record<string, (v: OrganisationIds, own: OrganisationIds) => P
 		{ method: 'GET', path: `/api/v1/members/${v.memberId}` },
 		{ method: 'PUT', path: `/api/v1/members/${v.memberId}`, body: { label: 'STOLEN' } }
 	],
+	'/api/v1/members/[memberId]/carbonation-tests': (v) => [
+		{ method: 'GET', path: `/api/v1/members/${v.memberId}/carbonation-tests` },
+		{
+			method: 'POST',
+			path: `/api/v1/members/${v.memberId}/carbonation-tests`,
+			body: VALID.carbonationTest
+		}
+	],
+	'/api/v1/members/[memberId]/chloride-profiles': (v) => [
+		{ method: 'GET', path: `/api/v1/members/${v.memberId}/chloride-profiles` },
+		{
+			method: 'POST',
+			path: `/api/v1/members/${v.memberId}/chloride-profiles`,
+			body: VALID.chlorideProfile
+		}
+	],
+	'/api/v1/carbonation-tests/[carbonationTestId]': (v) => [
+		{ method: 'GET', path: `/api/v1/carbonation-tests/${v.carbonationTestId}` },
+		{ method: 'DELETE', path: `/api/v1/carbonation-tests/${v.carbonationTestId}` }
+	],
+	'/api/v1/chloride-profiles/[chlorideProfileId]': (v) => [
+		{ method: 'GET', path: `/api/v1/chloride-profiles/${v.chlorideProfileId}` },
+		{ method: 'DELETE', path: `/api/v1/chloride-profiles/${v.chlorideProfileId}` }
+	],
+	'/surveys/[surveyId]/measurements': (v) => [
+		{ method: 'GET', path: `/surveys/${v.surveyId}/measurements` },
+		{
+			method: 'FORM',
+			path: `/surveys/${v.surveyId}/measurements?/addCarbonation`,
+			body: { ...VALID.carbonationTest, memberId: String(v.memberId), depthsMm: '10' }
+		},
+		{
+			method: 'FORM',
+			path: `/surveys/${v.surveyId}/measurements?/deleteCarbonation`,
+			body: { id: String(v.carbonationTestId) }
+		},
+		{
+			method: 'FORM',
+			path: `/surveys/${v.surveyId}/measurements?/deleteChloride`,
+			body: { id: String(v.chlorideProfileId) }
+		}
+	],
 	'/api/v1/members/[memberId]/holes': (v) => [
 		{ method: 'GET', path: `/api/v1/members/${v.memberId}/holes` },
 		{
@@ -318,6 +368,8 @@ const GHOST: OrganisationIds = {
 	surveyId: NOWHERE,
 	memberId: NOWHERE,
 	holeId: NOWHERE,
+	carbonationTestId: NOWHERE,
+	chlorideProfileId: NOWHERE,
 	assessmentId: NOWHERE,
 	membershipId: NOWHERE,
 	tokenId: NOWHERE,
@@ -361,6 +413,7 @@ beforeAll(async () => {
 		surveyId: 1,
 		memberId: 1,
 		holeId: hole!.id,
+		...(await insertMeasurements(sequelize, 1)),
 		membershipId: membership!.id,
 		...made,
 		exportId,
@@ -377,6 +430,12 @@ afterAll(async () => {
 		replacements: [demo.assessmentId]
 	});
 	await sequelize.query('DELETE FROM api_tokens WHERE id = ?', { replacements: [demo.tokenId] });
+	await sequelize.query('DELETE FROM carbonation_tests WHERE id = ?', {
+		replacements: [demo.carbonationTestId]
+	});
+	await sequelize.query('DELETE FROM chloride_profiles WHERE id = ?', {
+		replacements: [demo.chlorideProfileId]
+	});
 	await sequelize.query('DELETE FROM research_exports WHERE id = ?', {
 		replacements: [demo.exportId]
 	});
@@ -461,7 +520,9 @@ describe('after the attacks', () => {
 		const stolen = await sequelize.query(
 			`SELECT id FROM members WHERE label LIKE 'STOLEN%' UNION ALL SELECT id FROM surveys WHERE title LIKE 'Stolen%'
 			 UNION ALL SELECT id FROM assets WHERE name LIKE 'Stolen%'
-			 UNION ALL SELECT id FROM verification_holes WHERE label LIKE 'STOLEN%'`,
+			 UNION ALL SELECT id FROM verification_holes WHERE label LIKE 'STOLEN%'
+			 UNION ALL SELECT id FROM carbonation_tests WHERE label LIKE 'STOLEN%'
+			 UNION ALL SELECT id FROM chloride_profiles WHERE label LIKE 'STOLEN%'`,
 			{ type: QueryTypes.SELECT }
 		);
 		expect(stolen).toEqual([]);
@@ -470,6 +531,19 @@ describe('after the attacks', () => {
 			{ replacements: [demo.batchId, other.ids.batchId], type: QueryTypes.SELECT }
 		);
 		expect(states.map((r) => r.state)).toEqual(['completed', 'pending']);
+	});
+
+	it("the victims' carbonation tests and chloride profiles are still there", async () => {
+		for (const [table, key] of [
+			['carbonation_tests', 'carbonationTestId'],
+			['chloride_profiles', 'chlorideProfileId']
+		] as const) {
+			const rows = await sequelize.query(`SELECT id FROM ${table} WHERE id IN (?, ?)`, {
+				replacements: [demo[key], other.ids[key]],
+				type: QueryTypes.SELECT
+			});
+			expect(rows, table).toHaveLength(2);
+		}
 	});
 
 	it("the victims' holes are still there", async () => {

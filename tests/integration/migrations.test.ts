@@ -123,6 +123,7 @@ describe('migration 009 on a database that already holds readings', () => {
 			'PRIMARY.id'
 		]);
 
+		// Down through 009 itself (umzug's `to` is inclusive), whatever came after it.
 		await migrator.down({ to: '009-cover-sets' });
 		const back = await select<{ Key_name: string }>('SHOW INDEX FROM readings');
 		expect(new Set(back.map((k) => k.Key_name))).toEqual(

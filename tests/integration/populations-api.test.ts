@@ -3,7 +3,7 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { assessPopulation } from '../../src/lib/analysis';
 import type { PopulationOverview } from '../../src/lib/server/populations';
 import { testSequelize } from '../helpers/database';
-import { CAR_PARK, FOOTBRIDGE, assetIdByName, coversBySql } from '../helpers/actors';
+import { CAR_PARK, assetIdByName, coversBySql, unsharedAsset } from '../helpers/actors';
 import { anonymousClient, signInAs, type HttpClient } from '../helpers/session';
 
 const JSON_ACCEPT = { accept: 'application/json' };
@@ -89,34 +89,55 @@ describe('the population API over HTTP', () => {
 	});
 
 	it('leaves a draft survey out of a default assessment, and names an unapproved one chosen', async () => {
-		const footbridgeId = await assetIdByName(sequelize, FOOTBRIDGE);
-		const [draft] = await surveysOf(footbridgeId);
-		expect(draft.status).toBe('draft');
-		const byDefault = await engineer.postJson(`/api/v1/assets/${footbridgeId}/assessments`, {
-			title: 'Footbridge, default selection'
+		const surveys = await surveysOf(carParkId);
+		const approved = surveys.filter((s) => s.status === 'approved').map((s) => s.id);
+		const other = surveys.find((s) => s.status !== 'approved')!;
+		const snapshotOf = async (response: Response) => {
+			expect(response.status).toBe(201);
+			const row = await sequelize.query<{ snapshot: string }>(
+				'SELECT snapshot FROM assessments WHERE id = ?',
+				{
+					replacements: [(await response.json()).assessment.id],
+					type: QueryTypes.SELECT,
+					plain: true
+				}
+			);
+			return JSON.parse(row!.snapshot);
+		};
+		// The car park's second survey, set back to a draft for this test.
+		await sequelize.query("UPDATE surveys SET status = 'draft' WHERE id = ?", {
+			replacements: [other.id]
 		});
-		// Its only survey is a draft: nothing is approved or submitted, so nothing is included.
-		expect(byDefault.status).toBe(400);
-		expect((await byDefault.json()).error).toMatchObject({
-			field: 'surveys',
-			message: expect.stringMatching(/choose the surveys/)
+		try {
+			const byDefault = await snapshotOf(
+				await engineer.postJson(`/api/v1/assets/${carParkId}/assessments`, {
+					title: 'Car park, default selection'
+				})
+			);
+			expect(byDefault.scope.surveyIds).toEqual(approved);
+			expect(byDefault.surveys.map((s: { id: number }) => s.id)).toEqual(approved);
+			expect(byDefault.scope.selectionWords).toMatch(/^Approved surveys only/);
+			const chosen = await snapshotOf(
+				await engineer.postJson(`/api/v1/assets/${carParkId}/assessments`, {
+					title: 'Car park, the draft survey chosen',
+					surveys: [other.id]
+				})
+			);
+			expect(chosen.readingCount).toBeGreaterThan(0);
+			expect(chosen.surveys.map((s: { status: string }) => s.status)).toEqual(['draft']);
+			expect(chosen.scope.selectionWords).toMatch(/not approved/);
+		} finally {
+			await sequelize.query('UPDATE surveys SET status = ? WHERE id = ?', {
+				replacements: [other.status, other.id]
+			});
+		}
+		// An asset with no approved or submitted survey has nothing to assess by default.
+		const empty = await engineer.postJson(`/api/v1/assets/${carParkId}/assessments`, {
+			title: 'No survey at all',
+			surveys: []
 		});
-		const chosen = await engineer.postJson(`/api/v1/assets/${footbridgeId}/assessments`, {
-			title: 'Footbridge, the draft survey chosen',
-			surveys: [draft.id]
-		});
-		const chosenRow = await sequelize.query<{ snapshot: string }>(
-			'SELECT snapshot FROM assessments WHERE id = ?',
-			{
-				replacements: [(await chosen.json()).assessment.id],
-				type: QueryTypes.SELECT,
-				plain: true
-			}
-		);
-		const snapshot = JSON.parse(chosenRow!.snapshot);
-		expect(snapshot.readingCount).toBeGreaterThan(0);
-		expect(snapshot.surveys.map((s: { status: string }) => s.status)).toEqual(['draft']);
-		expect(snapshot.scope.selectionWords).toMatch(/not approved/);
+		expect(empty.status).toBe(400);
+		expect((await empty.json()).error.field).toBe('surveys');
 	});
 
 	it('refuses a bad method choice with the field named', async () => {
@@ -134,14 +155,14 @@ describe('the population API over HTTP', () => {
 			(await anonymousClient().get(`/api/v1/assets/${carParkId}/populations`, JSON_ACCEPT)).status
 		).toBe(401);
 		const owner = await signInAs('owner');
-		const footbridgeId = await assetIdByName(sequelize, FOOTBRIDGE);
+		const unsharedId = await unsharedAsset(sequelize, `populations-api${Date.now()}`);
 		// Owners read approved assessments of shared assets, not live populations.
 		expect((await owner.get(`/api/v1/assets/${carParkId}/populations`, JSON_ACCEPT)).status).toBe(
 			403
 		);
-		expect(
-			(await owner.get(`/api/v1/assets/${footbridgeId}/assessments`, JSON_ACCEPT)).status
-		).toBe(404);
+		expect((await owner.get(`/api/v1/assets/${unsharedId}/assessments`, JSON_ACCEPT)).status).toBe(
+			404
+		);
 		const saved = await engineer.postJson(`/api/v1/assets/${carParkId}/assessments`, {
 			title: 'API draft'
 		});

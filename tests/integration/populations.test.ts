@@ -13,11 +13,11 @@ import {
 import {
 	CAR_PARK,
 	ENGINEER,
-	FOOTBRIDGE,
 	OWNER,
 	assetIdByName,
 	coversBySql,
-	demoActor
+	demoActor,
+	unsharedAsset
 } from '../helpers/actors';
 
 describe('the population service on the demo data', () => {
@@ -100,7 +100,7 @@ describe('the population service on the demo data', () => {
 		const engineer = await demoActor(sequelize, ENGINEER);
 		expect((await visibleAsset(owner, carParkId)).access).toBe('shared');
 		expect((await visibleAsset(engineer, carParkId)).access).toBe('own');
-		const footbridgeId = await assetIdByName(sequelize, FOOTBRIDGE);
-		await expect(visibleAsset(owner, footbridgeId)).rejects.toMatchObject({ status: 404 });
+		const unsharedId = await unsharedAsset(sequelize, `populations${Date.now()}`);
+		await expect(visibleAsset(owner, unsharedId)).rejects.toMatchObject({ status: 404 });
 	});
 });

@@ -19,7 +19,7 @@ describe('demo scenario seeding', () => {
 		await scratch.drop();
 	});
 
-	it('is deterministic: two runs give the same counts and summary figures', async () => {
+	it('is deterministic: two runs give the same counts, summary figures and assessments', async () => {
 		await loadDemoScenario(scratch.sequelize);
 		const first = await summariseDemo(scratch.sequelize);
 		await clearAllData(scratch.sequelize);
@@ -41,6 +41,25 @@ describe('demo scenario seeding', () => {
 		for (const p of summary.populations) {
 			if (p.n >= 20) expect(p.sdMm).toBeGreaterThan(3);
 			if (p.n >= 20) expect(p.sdMm).toBeLessThan(14);
+		}
+		// One approved assessment a structure, each with its risk annex, for the owner's pages.
+		expect(summary.counts.assessments).toBe(summary.counts.assets);
+		expect(summary.counts.assessment_risks).toBe(summary.counts.assets);
+		expect(summary.assessments.map((a) => a.state)).toEqual(
+			Array(summary.counts.assets).fill('approved')
+		);
+		// Measured durability: chloride profiles on the car park (six on decks, two on columns) and a
+		// dozen carbonation tests on the office frame, within the invented scenario's ranges.
+		expect(summary.counts.chloride_profiles).toBe(8);
+		expect(summary.counts.carbonation_tests).toBe(12);
+		const increments = summary.measurements.chloride as { position: number; outermost: number }[];
+		expect(increments.filter((i) => i.outermost).map((i) => i.position)).toEqual(Array(8).fill(1));
+		for (const test of summary.measurements.carbonation as Record<string, string | number>[]) {
+			const depths = (JSON.parse(String(test.depths_mm)) as number[]).concat(
+				test.depth_mean_mm === null ? [] : [Number(test.depth_mean_mm)]
+			);
+			for (const d of depths) expect(d).toBeGreaterThanOrEqual(5);
+			for (const d of depths) expect(d).toBeLessThanOrEqual(30);
 		}
 		// One small population, for the "not enough data" verdict.
 		expect(summary.populations.some((p) => p.n < 20)).toBe(true);

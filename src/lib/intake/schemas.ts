@@ -5,6 +5,8 @@ import { cNomProblem } from './specifiedCover';
 export const DESIGN_CODES = ['EN 1992-1-1', 'ACI 318', 'project'] as const;
 export const MEMBER_TYPES = ['slab', 'beam', 'column', 'wall', 'footing', 'deck', 'other'] as const;
 export const MEMBER_FACES = ['top', 'bottom', 'side'] as const;
+/** What a chloride content is a percentage of, by mass (measurements.ts converts to binder). */
+export const CHLORIDE_BASES = ['binder', 'concrete'] as const;
 export const EXPOSURE_CLASSES_EN = [
 	'X0',
 	'XC1',
@@ -22,15 +24,15 @@ export const EXPOSURE_CLASSES_EN = [
 // Optional fields end in a plain schema (the pipe) and a default rather than a bare transform, so
 // that the API document generated from these (src/lib/server/api/openapi) can say what they are:
 // optional in a request, string or number or null in the saved record.
-const text = (max: number) => z.string().trim().max(max, `At most ${max} characters.`);
-const optionalText = (max: number) =>
+export const text = (max: number) => z.string().trim().max(max, `At most ${max} characters.`);
+export const optionalText = (max: number) =>
 	text(max)
 		.transform((v) => v || null)
 		.pipe(z.string().nullable())
 		.nullable()
 		.default(null);
 /** A number from a form field or JSON; '' means not given. */
-const optionalNumber = (label: string, min: number, max: number) =>
+export const optionalNumber = (label: string, min: number, max: number) =>
 	z
 		.preprocess(
 			(v) =>
@@ -42,7 +44,7 @@ const optionalNumber = (label: string, min: number, max: number) =>
 				.nullable()
 		)
 		.default(null);
-const requiredNumber = (label: string, min: number, max: number) =>
+export const requiredNumber = (label: string, min: number, max: number) =>
 	z.preprocess(
 		(v) =>
 			v === '' || v == null ? undefined : typeof v === 'string' ? Number(v.replace(',', '.')) : v,

@@ -20,6 +20,7 @@ export const ACTIONS = [
 	'reading:import',
 	'reading:edit',
 	'hole:write',
+	'measurement:write',
 	'attachment:upload',
 	'attachment:read',
 	'population:read',
@@ -54,6 +55,7 @@ const engineer: Action[] = [
 	'reading:import',
 	'reading:edit',
 	'hole:write',
+	'measurement:write',
 	'attachment:upload',
 	'attachment:read',
 	'population:read',
@@ -79,6 +81,7 @@ export const PERMISSIONS: Record<Role, ReadonlySet<Action>> = {
 		'reading:import',
 		'reading:edit',
 		'hole:write',
+		'measurement:write',
 		'attachment:upload',
 		'attachment:read',
 		// Live population figures, to check a survey before handing it over; no sign-off.

@@ -1,6 +1,15 @@
 import { error } from '@sveltejs/kit';
 import { Op, type Model, type ModelStatic, type Transaction, type WhereOptions } from 'sequelize';
-import { Asset, AssetShare, ImportBatch, Member, Survey, VerificationHole } from './db/models';
+import {
+	Asset,
+	AssetShare,
+	CarbonationTest,
+	ChlorideProfile,
+	ImportBatch,
+	Member,
+	Survey,
+	VerificationHole
+} from './db/models';
 import { NotFoundError, ReadOnlyError } from './domainErrors';
 import type { Actor } from './policy';
 
@@ -96,6 +105,36 @@ export async function scopedHole(
 		notFoundAs('The hole')
 	);
 	return { hole, ...scoped };
+}
+
+/** A member's carbonation test, through its member. */
+export async function scopedCarbonationTest(
+	actor: Actor,
+	id: number,
+	access: Access,
+	transaction?: Transaction
+) {
+	const record = await byId(CarbonationTest, id, transaction);
+	if (!record) throw new NotFoundError('The carbonation test');
+	const scoped = await scopedMember(actor, record.memberId, access, transaction).catch(
+		notFoundAs('The carbonation test')
+	);
+	return { record, ...scoped };
+}
+
+/** A member's chloride profile, through its member. */
+export async function scopedChlorideProfile(
+	actor: Actor,
+	id: number,
+	access: Access,
+	transaction?: Transaction
+) {
+	const record = await byId(ChlorideProfile, id, transaction);
+	if (!record) throw new NotFoundError('The chloride profile');
+	const scoped = await scopedMember(actor, record.memberId, access, transaction).catch(
+		notFoundAs('The chloride profile')
+	);
+	return { record, ...scoped };
 }
 
 export async function scopedImportBatch(actor: Actor, batchId: number, access: Access) {

@@ -2,6 +2,7 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { Sequelize } from 'sequelize';
 import { Asset } from '../../../src/lib/server/db/models';
 import { testSequelize } from '../../helpers/database';
+import { unsharedAsset } from '../../helpers/actors';
 import { identifyingTextsIn } from '../../helpers/research';
 import { startBuiltApp } from '../../helpers/server';
 import { signInAs, tokenClient, type HttpClient } from '../../helpers/session';
@@ -75,11 +76,11 @@ describe('research API over HTTP', () => {
 	});
 
 	it('answers 404, not 403, for an asset the caller cannot see', async () => {
-		const footbridge = await Asset.findOne({ where: { name: 'Millrace Footbridge' } });
+		const unsharedId = await unsharedAsset(sequelize, `research-api${Date.now()}`);
 		const owner = await signInAs('owner');
 		const seen = await (await owner.get('/api/v1/assets', { accept: 'application/json' })).json();
-		expect(seen.assets.map((a: { name: string }) => a.name)).not.toContain('Millrace Footbridge');
-		const response = await owner.get(`/api/v1/assets/${footbridge!.id}/surveys`, {
+		expect(seen.assets.map((a: { id: number }) => a.id)).not.toContain(unsharedId);
+		const response = await owner.get(`/api/v1/assets/${unsharedId}/surveys`, {
 			accept: 'application/json'
 		});
 		expect(response.status).toBe(404);

@@ -1,7 +1,14 @@
 import { Validator } from '@seriousme/openapi-schema-validator';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { Sequelize } from 'sequelize';
-import { Asset, Member, Survey, VerificationHole } from '../../../src/lib/server/db/models';
+import {
+	Asset,
+	CarbonationTest,
+	ChlorideProfile,
+	Member,
+	Survey,
+	VerificationHole
+} from '../../../src/lib/server/db/models';
 import { ENDPOINTS } from '../../../src/lib/server/api/openapi/document';
 import type { Endpoint } from '../../../src/lib/server/api/openapi/endpoint';
 import { FROZEN } from '../../../src/lib/server/api/openapi/errors';
@@ -10,6 +17,7 @@ import { testSequelize } from '../../helpers/database';
 import { appUrl } from '../../helpers/env';
 import { actorFor, csv, freshSurvey, importFile } from '../../helpers/intake';
 import { identifyingTextsIn } from '../../helpers/research';
+import { insertMeasurements } from '../../helpers/otherOrganisation';
 import { anonymousClient, DEMO_USERS, type HttpClient } from '../../helpers/session';
 import { tokenFor } from '../../helpers/tokens';
 import { until } from '../../helpers/until';
@@ -181,6 +189,7 @@ describe('the OpenAPI document', () => {
 			barDiameterMm: null,
 			method: null
 		});
+		const measured = await insertMeasurements(sequelize, members[0].id);
 		const { batch } = await importFile(
 			actor,
 			survey.id,
@@ -193,7 +202,8 @@ describe('the OpenAPI document', () => {
 			surveyId: survey.id,
 			memberId: members[0].id,
 			holeId: hole.id,
-			batchId: batch.id
+			batchId: batch.id,
+			...measured
 		};
 		const frozenWrites = ENDPOINTS.filter((e) => e.errors?.['409']?.startsWith(FROZEN));
 		expect(frozenWrites.length).toBeGreaterThanOrEqual(12);
@@ -208,5 +218,7 @@ describe('the OpenAPI document', () => {
 			]);
 		}
 		expect(await VerificationHole.count({ where: { memberId: members[0].id } })).toBe(1);
+		expect(await CarbonationTest.count({ where: { memberId: members[0].id } })).toBe(1);
+		expect(await ChlorideProfile.count({ where: { memberId: members[0].id } })).toBe(1);
 	});
 });

@@ -1,5 +1,10 @@
 import { z } from 'zod';
 import { assetSchema, holeSchema, memberSchema, surveySchema } from '$lib/intake/schemas';
+import {
+	carbonationTestSchema,
+	chlorideIncrementSchema,
+	chlorideProfileSchema
+} from '$lib/intake/measurements';
 import { ATTACHMENT_KINDS } from '../db/migrations/003-readings';
 import { SURVEY_STATES } from '../db/migrations/002-surveys';
 
@@ -45,6 +50,32 @@ export const holeRecordSchema = holeSchema
 	.extend({ id: id('verification hole'), memberId: id('member'), createdAt: isoTime })
 	.meta({ id: 'HoleRecord' });
 
+export const carbonationTestRecordSchema = carbonationTestSchema
+	.extend({ id: id('carbonation test'), memberId: id('member'), createdAt: isoTime })
+	.meta({ id: 'CarbonationTestRecord' });
+
+// safeExtend: the record's increments replace the input's (a refined schema's keys may only be
+// overwritten by a subtype), adding what the server works out.
+export const chlorideProfileRecordSchema = chlorideProfileSchema
+	.safeExtend({
+		id: id('chloride profile'),
+		memberId: id('member'),
+		createdAt: isoTime,
+		conversion: z
+			.string()
+			.nullable()
+			.describe('How contents of concrete become % of binder, with the values assumed.'),
+		increments: z.array(
+			chlorideIncrementSchema.extend({
+				percentOfBinder: z.number().describe('The content as % by mass of binder.'),
+				outermost: z
+					.boolean()
+					.describe('The increment at the surface, which a fit of the profile leaves out.')
+			})
+		)
+	})
+	.meta({ id: 'ChlorideProfileRecord' });
+
 export const attachmentRecordSchema = z
 	.object({
 		id: id('attachment'),
@@ -67,6 +98,18 @@ export const assetAnswerSchema = z.object({ asset: assetRecordSchema });
 export const surveyAnswerSchema = z.object({ survey: surveyRecordSchema });
 export const memberAnswerSchema = z.object({ member: memberRecordSchema });
 export const holeAnswerSchema = z.object({ hole: holeRecordSchema });
+export const carbonationTestAnswerSchema = z.object({
+	carbonationTest: carbonationTestRecordSchema
+});
+export const carbonationTestsAnswerSchema = z.object({
+	carbonationTests: z.array(carbonationTestRecordSchema)
+});
+export const chlorideProfileAnswerSchema = z.object({
+	chlorideProfile: chlorideProfileRecordSchema
+});
+export const chlorideProfilesAnswerSchema = z.object({
+	chlorideProfiles: z.array(chlorideProfileRecordSchema)
+});
 export const attachmentAnswerSchema = z.object({ attachment: attachmentRecordSchema });
 export const membersCreatedSchema = z.object({
 	created: z.number().int().describe('Members created: every row of the table.')

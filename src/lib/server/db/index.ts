@@ -14,6 +14,16 @@ export function db(): Sequelize {
 	return instance;
 }
 
+/**
+ * Makes `sequelize` the app's instance. Scripts that call the app's services (the seed saves and
+ * approves its assessments through them) bring their own instance; without this, db() would open
+ * a second pool and rebind every model to it.
+ */
+export function useDatabase(sequelize: Sequelize): void {
+	initModels(sequelize);
+	instance = sequelize;
+}
+
 /** Closes the pool (graceful shutdown, STACK.md pitfall 5). */
 export async function closeDb(): Promise<void> {
 	if (instance) {

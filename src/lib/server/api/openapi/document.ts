@@ -6,6 +6,7 @@ import { errorResponses } from './errors';
 import { attachmentEndpoints } from './attachmentEndpoints';
 import { importEndpoints } from './importEndpoints';
 import { intakeRecordEndpoints } from './intakeRecordEndpoints';
+import { measurementEndpoints } from './measurementEndpoints';
 import { toOpenApiSchema, type JsonSchema } from './jsonSchema';
 import { populationEndpoints } from './populationEndpoints';
 import { researchEndpoints } from './researchEndpoints';
@@ -21,6 +22,7 @@ export const ENDPOINTS: Endpoint[] = [
 	...researchEndpoints,
 	// In the order a survey is taken in, which is the order the test calls them.
 	...intakeRecordEndpoints,
+	...measurementEndpoints,
 	...importEndpoints,
 	...attachmentEndpoints,
 	...surveyStateEndpoints,

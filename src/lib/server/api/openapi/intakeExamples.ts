@@ -50,3 +50,31 @@ export const exampleStart = {
 	options: { failingRows: 'import-valid', headerRowIndex: 0 }
 };
 export const exampleMeterFile = 'scan,x,y,cover\n1,0,100,42\n1,200,100,38.5\n';
+/** A carbonation test on member W-01: four depths read along a split core's face. */
+export const exampleCarbonationTest = {
+	label: 'CT1',
+	xMm: 1200,
+	yMm: 300,
+	testedOn: '2026-02-10',
+	depthsMm: [8, 11, 9.5, 12],
+	method: 'Phenolphthalein sprayed on a freshly split core face'
+};
+/** A chloride profile on member W-01, contents by mass of concrete with the conversion's values. */
+export const exampleChlorideProfile = {
+	label: 'CP1',
+	xMm: 1500,
+	yMm: 600,
+	testedOn: '2026-02-10',
+	basis: 'concrete',
+	binderContentKgM3: 340,
+	concreteDensityKgM3: 2350,
+	initialContentPercent: 0.01,
+	method: 'Dust drilled in steps, acid-soluble chloride by titration',
+	increments: [
+		{ fromMm: 0, toMm: 5, chloridePercent: 0.42 },
+		{ fromMm: 5, toMm: 10, chloridePercent: 0.36 },
+		{ fromMm: 10, toMm: 20, chloridePercent: 0.22 },
+		{ fromMm: 20, toMm: 30, chloridePercent: 0.11 },
+		{ fromMm: 30, toMm: 40, chloridePercent: 0.05 }
+	]
+};

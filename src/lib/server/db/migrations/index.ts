@@ -8,6 +8,7 @@ import { apiRateLimits } from './007-api-rate-limits';
 import { intakeProgress } from './008-intake-progress';
 import { coverSets } from './009-cover-sets';
 import { secondApprover } from './010-second-approver';
+import { durabilityMeasurements } from './011-durability-measurements';
 import type { Migration } from './types';
 
 /**
@@ -24,5 +25,6 @@ export const migrations: Migration[] = [
 	apiRateLimits,
 	intakeProgress,
 	coverSets,
-	secondApprover
+	secondApprover,
+	durabilityMeasurements
 ];

@@ -6,6 +6,9 @@ import { Asset } from './Asset';
 import { AssetShare } from './AssetShare';
 import { Attachment } from './Attachment';
 import { AuditEvent } from './AuditEvent';
+import { CarbonationTest } from './CarbonationTest';
+import { ChlorideIncrement } from './ChlorideIncrement';
+import { ChlorideProfile } from './ChlorideProfile';
 import { ColumnTemplate } from './ColumnTemplate';
 import { ImportBatch } from './ImportBatch';
 import { ImportProgress } from './ImportProgress';
@@ -33,6 +36,9 @@ export {
 	AssetShare,
 	Attachment,
 	AuditEvent,
+	CarbonationTest,
+	ChlorideIncrement,
+	ChlorideProfile,
 	ColumnTemplate,
 	ImportBatch,
 	ImportProgress,
@@ -61,6 +67,9 @@ const allModels = [
 	AssetShare,
 	Attachment,
 	AuditEvent,
+	CarbonationTest,
+	ChlorideIncrement,
+	ChlorideProfile,
 	ColumnTemplate,
 	ImportBatch,
 	ImportProgress,
@@ -114,6 +123,11 @@ function associate(): void {
 	Reading.belongsTo(Member, { foreignKey: 'memberId' });
 	Member.hasMany(VerificationHole, { foreignKey: 'memberId' });
 	VerificationHole.belongsTo(Member, { foreignKey: 'memberId' });
+	Member.hasMany(CarbonationTest, { foreignKey: 'memberId' });
+	CarbonationTest.belongsTo(Member, { foreignKey: 'memberId' });
+	Member.hasMany(ChlorideProfile, { foreignKey: 'memberId' });
+	ChlorideProfile.belongsTo(Member, { foreignKey: 'memberId' });
+	ChlorideProfile.hasMany(ChlorideIncrement, { foreignKey: 'profileId', as: 'increments' });
 
 	Survey.hasMany(ImportBatch, { foreignKey: 'surveyId' });
 	ImportBatch.belongsTo(Survey, { foreignKey: 'surveyId' });

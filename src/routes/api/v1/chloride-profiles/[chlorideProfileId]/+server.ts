@@ -1,0 +1,19 @@
+import { json } from '@sveltejs/kit';
+import type { RequestHandler } from './$types';
+import { authorize } from '$lib/server/policy';
+import { deleteChlorideProfile, getChlorideProfile } from '$lib/server/intake/chloride';
+import { api, idParam } from '$lib/server/intake/respond';
+
+export const GET: RequestHandler = async ({ locals, params }) => {
+	const actor = authorize(locals, 'survey:read');
+	const id = idParam(params.chlorideProfileId);
+	return json({ chlorideProfile: await api(() => getChlorideProfile(actor, id)) });
+};
+
+/** Removes a profile recorded in error, with its increments (audited). */
+export const DELETE: RequestHandler = async ({ locals, params }) => {
+	const actor = authorize(locals, 'measurement:write');
+	const id = idParam(params.chlorideProfileId);
+	await api(() => deleteChlorideProfile(actor, id));
+	return new Response(null, { status: 204 });
+};
