@@ -2,6 +2,12 @@
 import { RISK_WORDS, type RiskLevel } from './levels';
 import type { AssessedSource } from './portfolio';
 import { worstFirst } from './summary';
+import {
+	indicativeWords,
+	parameterProvenance,
+	verdictAndRiskWords,
+	type InputProvenance
+} from './provenance';
 
 export interface PopulationRiskView {
 	id: string;
@@ -9,6 +15,10 @@ export interface PopulationRiskView {
 	level: RiskLevel;
 	words: string;
 	reason: string;
+	/** Where the cover verdict and the projection point different ways, one sentence on why. */
+	explanation: string | null;
+	/** Set when the projection rests on assumed inputs only. */
+	indicative: string | null;
 	n: number;
 	areaM2: number | null;
 	shareBelowCMin: number | null;
@@ -39,6 +49,8 @@ export interface AssessmentRiskView {
 	shareBelowCMin: number | null;
 	shareDepassivatedAtDesignLife: number | null;
 	populations: PopulationRiskView[];
+	/** Every input of the projections: value, measured / fitted / assumed, source. */
+	provenance: InputProvenance[];
 }
 
 export function toRiskView(source: AssessedSource): AssessmentRiskView {
@@ -58,6 +70,11 @@ export function toRiskView(source: AssessedSource): AssessmentRiskView {
 		reason: risk.reason,
 		shareBelowCMin: risk.shareBelowCMin,
 		shareDepassivatedAtDesignLife: risk.shareDepassivatedAtDesignLife,
+		provenance: source.projected
+			? Object.entries(annex.parameters).flatMap(([exposure, p]) =>
+					parameterProvenance(exposure, p)
+				)
+			: [],
 		// Worst first, then the largest area: the order an owner should read them in.
 		populations: [...annex.populations].sort(worstFirst).map((p) => ({
 			id: p.populationId,
@@ -65,6 +82,8 @@ export function toRiskView(source: AssessedSource): AssessmentRiskView {
 			level: p.level,
 			words: RISK_WORDS[p.level],
 			reason: p.reason,
+			explanation: verdictAndRiskWords(p.verdict, p.level, p.model),
+			indicative: p.model && p.curve.length > 0 ? indicativeWords(p.model) : null,
 			n: p.n,
 			areaM2: p.areaM2,
 			shareBelowCMin: p.shareBelowCMin,

@@ -1,0 +1,105 @@
+/**
+ * What each durability figure rests on: for every input of an exposure class's model, its
+ * value and whether it was measured, fitted or assumed, with its source. The stored parameters
+ * carry no mark of who set them, so a value equal to the class default is read as the default
+ * (assumed, with the default's source) and any other value as the engineer's own entry
+ * (assumed by the engineer). Measured carbonation depths and chloride profiles are kept with
+ * the survey; until a projection is made from them, every input here is assumed.
+ */
+import type { ExposureParameters } from './parameters';
+import { CARBONATION_DEFAULTS, CHLORIDE_DEFAULTS, type SourcedValue } from './parameters';
+
+export type InputBasis = 'measured' | 'fitted' | 'assumed';
+
+export interface InputProvenance {
+	exposureClass: string;
+	input: string;
+	value: string;
+	basis: InputBasis;
+	source: string;
+}
+
+const ENTERED = 'Entered by the engineer for this assessment; no measurement is recorded with it.';
+
+function row(
+	exposureClass: string,
+	input: string,
+	value: number,
+	unit: string,
+	fallback: SourcedValue | undefined
+): InputProvenance {
+	const isDefault = fallback !== undefined && fallback.value === value;
+	return {
+		exposureClass,
+		input,
+		value: `${value}${unit}`,
+		basis: 'assumed',
+		source: isDefault ? `Default: ${fallback.source}` : ENTERED
+	};
+}
+
+/** The inputs of one exposure class's model, each with its basis and source. */
+export function parameterProvenance(
+	exposureClass: string,
+	p: ExposureParameters
+): InputProvenance[] {
+	if (p.kind === 'carbonation') {
+		const d = CARBONATION_DEFAULTS[exposureClass];
+		return [
+			row(exposureClass, 'Carbonation coefficient k', p.kMmPerSqrtYear, ' mm/√year', d?.k),
+			row(exposureClass, 'Scatter of the carbonation depth (CoV)', p.depthCov, '', d?.depthCov)
+		];
+	}
+	const d = CHLORIDE_DEFAULTS[exposureClass];
+	return [
+		row(
+			exposureClass,
+			'Surface chloride content C_s',
+			p.surfaceContent,
+			' % of binder',
+			d?.surfaceContent
+		),
+		row(
+			exposureClass,
+			'Initial chloride content C_0',
+			p.initialContent,
+			' % of binder',
+			d?.initialContent
+		),
+		row(
+			exposureClass,
+			'Critical chloride content C_crit',
+			p.criticalContent,
+			' % of binder',
+			d?.criticalContent
+		),
+		row(exposureClass, 'Apparent diffusion coefficient D', p.dM2PerS, ' m²/s', d?.dM2PerS),
+		row(exposureClass, 'Scatter of D (CoV)', p.dCov, '', d?.dCov)
+	];
+}
+
+/** The words that follow a projection resting only on assumed inputs. */
+export function indicativeWords(kind: ExposureParameters['kind']): string {
+	return kind === 'chloride'
+		? 'Indicative: assumed, not measured. Take chloride samples (a profile by depth) before acting on this.'
+		: 'Indicative: assumed, not measured. Measure carbonation depths on fresh breaks or drilled cores before acting on this.';
+}
+
+/**
+ * One plain sentence where the cover verdict and the projected protection point different ways,
+ * so "complies" and "act now" never stand side by side unexplained; null where they agree.
+ */
+export function verdictAndRiskWords(
+	verdict: 'pass' | 'fail' | 'not-enough-data' | null,
+	level: string,
+	kind: ExposureParameters['kind'] | null
+): string | null {
+	const agent = kind === 'chloride' ? 'chlorides' : 'carbonation';
+	if (verdict === 'pass' && (level === 'act-now' || level === 'plan-repairs')) {
+		return `The cover meets its specification, yet the ${agent} front is projected to reach the steel: the specified cover may be too little for this exposure, or the assumed ${agent} figures are too pessimistic — measure them before acting.`;
+	}
+	if (verdict === 'fail' && (level === 'low-concern' || level === 'keep-watching')) {
+		return `The cover falls short of its specification, but the ${agent} front is not projected to reach the steel within the design life: the shortfall matters less here than the rules assume, if the assumed figures hold.`;
+	}
+	return null;
+}
