@@ -44,23 +44,26 @@ describe('per-member figures of a population come from each member’s own readi
 		['type=deck&exposure=XD3', 7],
 		['type=deck&exposure=XD3&percentile=6', 6],
 		['type=column&exposure=XD3', 7]
-	] as const)('every box of %s equals its member’s least, quartiles, median, greatest and mean', async (query, type) => {
-		const { population, boxes } = await detail(query);
-		expect(boxes.length).toBe(population.members.filter((m) => m.readings > 0).length);
-		for (const box of boxes) {
-			const own = await memberReadings(sequelize, box.memberId);
-			// Hyndman & Fan (1996) quartiles of the member's own readings, same type as asked.
-			expect(box.n).toBe(own.length);
-			expect(box.minMm).toBe(own[0]);
-			expect(box.maxMm).toBe(own[own.length - 1]);
-			expect(box.q1Mm).toBeCloseTo(percentileSorted(own, 0.25, type), 9);
-			expect(box.medianMm).toBeCloseTo(percentileSorted(own, 0.5, type), 9);
-			expect(box.q3Mm).toBeCloseTo(percentileSorted(own, 0.75, type), 9);
-			const mean = own.reduce((s, c) => s + c, 0) / own.length;
-			expect(box.meanMm!).toBeCloseTo(mean, 9);
+	] as const)(
+		'every box of %s equals its member’s least, quartiles, median, greatest and mean',
+		async (query, type) => {
+			const { population, boxes } = await detail(query);
+			expect(boxes.length).toBe(population.members.filter((m) => m.readings > 0).length);
+			for (const box of boxes) {
+				const own = await memberReadings(sequelize, box.memberId);
+				// Hyndman & Fan (1996) quartiles of the member's own readings, same type as asked.
+				expect(box.n).toBe(own.length);
+				expect(box.minMm).toBe(own[0]);
+				expect(box.maxMm).toBe(own[own.length - 1]);
+				expect(box.q1Mm).toBeCloseTo(percentileSorted(own, 0.25, type), 9);
+				expect(box.medianMm).toBeCloseTo(percentileSorted(own, 0.5, type), 9);
+				expect(box.q3Mm).toBeCloseTo(percentileSorted(own, 0.75, type), 9);
+				const mean = own.reduce((s, c) => s + c, 0) / own.length;
+				expect(box.meanMm!).toBeCloseTo(mean, 9);
+			}
+			for (const member of population.members) {
+				expect(member.readings).toBe((await memberReadings(sequelize, member.id)).length);
+			}
 		}
-		for (const member of population.members) {
-			expect(member.readings).toBe((await memberReadings(sequelize, member.id)).length);
-		}
-	});
+	);
 });

@@ -15,7 +15,7 @@ export interface ModelFit extends FittedModel {
 	sdMm: number;
 	andersonDarling: AndersonDarlingResult | null;
 	kolmogorovSmirnov: KolmogorovSmirnovResult | null;
-	/** Anderson–Darling p < FIT_SIGNIFICANCE; null when there are too few readings to test. */
+	/** Anderson–Darling p < FIT_SIGNIFICANCE; null with too few readings or none apart (σ = 0). */
 	rejected: boolean | null;
 }
 
@@ -38,7 +38,8 @@ function testModel(sorted: Float64Array, fit: FittedModel): ModelFit {
 					Math.exp(fit.location + (fit.scale * fit.scale) / 2) *
 						Math.sqrt(Math.expm1(fit.scale * fit.scale))
 				];
-	if (sorted.length < 8) {
+	// Too few readings to test, or every reading equal (σ = 0: a point, nothing to test).
+	if (sorted.length < 8 || fit.scale === 0) {
 		return { ...fit, meanMm, sdMm, andersonDarling: null, kolmogorovSmirnov: null, rejected: null };
 	}
 	const probabilities = modelProbabilities(sorted, fit);
@@ -53,7 +54,14 @@ function pText(fit: ModelFit): string {
 	return p < 0.001 ? 'p < 0.001' : `p = ${p.toFixed(3)}`;
 }
 
-function fitWarnings(normal: ModelFit, lognormal: ModelFit | null, n: number): string[] {
+function fitWarnings(normal: ModelFit, lognormal: ModelFit | null, sorted: Float64Array): string[] {
+	const n = sorted.length;
+	if (normal.scale === 0) {
+		return [
+			`All ${n} readings are ${sorted[0]} mm: with no spread no model can be tested, and every ` +
+				'figure is that one value.'
+		];
+	}
 	if (normal.rejected === null) {
 		return [`Only ${n} readings: too few to test whether a model fits (8 are needed).`];
 	}
@@ -103,6 +111,6 @@ export function compareModels(sorted: Float64Array): ModelComparison {
 		lognormal,
 		better: betterOf(normal, lognormal),
 		significance: FIT_SIGNIFICANCE,
-		warnings: fitWarnings(normal, lognormal, sorted.length)
+		warnings: fitWarnings(normal, lognormal, sorted)
 	};
 }

@@ -33,7 +33,16 @@ export {
 	type ModelComparison,
 	type ModelFit
 } from './goodnessOfFit';
-export { erf, erfc, erfcInverse, normalCdf, normalPdf, normalQuantile } from './normalDistribution';
+export {
+	erf,
+	erfc,
+	erfcInverse,
+	logNormalCdf,
+	normalCdf,
+	normalPdf,
+	normalQuantile,
+	normalUpperQuantile
+} from './normalDistribution';
 export { noncentralTCdf } from './noncentralT';
 export {
 	predictionFactor,
@@ -60,7 +69,8 @@ export {
 	type CoverRequirement,
 	type CodeSystem,
 	DEFAULT_ALLOWED_FRACTION_BELOW,
-	projectRequirement
+	projectRequirement,
+	roundMm
 } from './requirements/requirement';
 export {
 	cMinDurMm,
