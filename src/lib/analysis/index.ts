@@ -147,3 +147,17 @@ export {
 	type LengthUnit
 } from './units';
 export { toPlainJson } from './plainJson';
+export { pooledRanks, poolSorted, type PooledRanks } from './midRanks';
+export { kruskalWallis, kruskalWallisFromRanks, type KruskalWallisResult } from './kruskalWallis';
+export { oneWayAnova, type OneWayAnovaResult } from './oneWayAnova';
+export { mannWhitney, mannWhitneyFromRanks, type MannWhitneyResult } from './mannWhitney';
+export { holmAdjust } from './holm';
+export { detectResolutionMm, METER_STEPS_MM } from './resolution';
+export { groupedChiSquare, type GroupedFitResult } from './groupedFit';
+export {
+	compareMembers,
+	MEMBER_SIGNIFICANCE,
+	type MemberComparison,
+	type MemberCovers,
+	type MemberDifference
+} from './memberComparison';

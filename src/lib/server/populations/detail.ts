@@ -3,7 +3,9 @@
  * from the check holes of the members — every figure by the engine.
  */
 import {
+	compareMembers,
 	describeSorted,
+	type MemberComparison,
 	MIN_VERIFICATION_HOLES,
 	percentileSorted,
 	verifyMeter,
@@ -48,6 +50,19 @@ export function memberBoxes(group: GatheredGroup, type: PercentileType): MemberB
 		});
 	}
 	return boxes;
+}
+
+/**
+ * Whether the members share one distribution and which stand apart (engine: compareMembers),
+ * each member from its own covers. Detail only: O(N log N) for N readings, not paid by the
+ * overview of every population. null with fewer than 2 members with readings.
+ */
+export function memberComparison(group: GatheredGroup): MemberComparison | null {
+	const members = group.members.flatMap((m) => {
+		const coversMm = group.coversByMember.get(m.id);
+		return coversMm ? [{ label: m.label, coversMm }] : [];
+	});
+	return compareMembers(members, group.coversMm);
 }
 
 export interface HoleRow {

@@ -1,9 +1,11 @@
 import { error, json } from '@sveltejs/kit';
 import type { RequestHandler } from './$types';
+import { toPlainJson } from '$lib/analysis';
 import { authorize } from '$lib/server/policy';
 import {
 	groupSchema,
 	memberBoxes,
+	memberComparison,
 	meterCheck,
 	methodSchema,
 	paramsOf,
@@ -15,7 +17,7 @@ import {
 	visibleSurvey
 } from '$lib/server/populations';
 
-/** One population with chart data, per-member box figures and the meter's verification. */
+/** One population with chart data, per-member box figures and comparison, and the meter's verification. */
 export const GET: RequestHandler = async ({ locals, params, url }) => {
 	const actor = authorize(locals, 'population:read');
 	const assetId = pathId(params.assetId);
@@ -31,6 +33,7 @@ export const GET: RequestHandler = async ({ locals, params, url }) => {
 	return json({
 		population: detail.result,
 		boxes: memberBoxes(detail.group, type),
+		members: toPlainJson(memberComparison(detail.group)),
 		meter: await meterCheck(detail.group.members.map((m) => m.id))
 	});
 };
