@@ -152,6 +152,13 @@ export { kruskalWallis, kruskalWallisFromRanks, type KruskalWallisResult } from 
 export { oneWayAnova, type OneWayAnovaResult } from './oneWayAnova';
 export { mannWhitney, mannWhitneyFromRanks, type MannWhitneyResult } from './mannWhitney';
 export { holmAdjust } from './holm';
+export {
+	fitNormalMixture,
+	lowComponentShare,
+	type MixtureComponent,
+	type MixtureOptions,
+	type NormalMixture
+} from './normalMixture';
 export { detectResolutionMm, METER_STEPS_MM } from './resolution';
 export { groupedChiSquare, type GroupedFitResult } from './groupedFit';
 export {

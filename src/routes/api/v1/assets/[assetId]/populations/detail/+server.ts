@@ -6,6 +6,7 @@ import {
 	groupSchema,
 	memberBoxes,
 	memberComparison,
+	populationMixture,
 	meterCheck,
 	methodSchema,
 	paramsOf,
@@ -34,6 +35,7 @@ export const GET: RequestHandler = async ({ locals, params, url }) => {
 		population: detail.result,
 		boxes: memberBoxes(detail.group, type),
 		members: toPlainJson(memberComparison(detail.group)),
+		mixture: toPlainJson(populationMixture(detail.group, detail.result.assessment)),
 		meter: await meterCheck(detail.group.members.map((m) => m.id))
 	});
 };
