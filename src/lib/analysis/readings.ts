@@ -53,11 +53,16 @@ function checkReading(value: unknown, index: number): void {
  * @example toSortedCovers([50, 40, 45]) // Float64Array [40, 45, 50]
  */
 export function toSortedCovers(coversMm: readonly number[] | Float64Array): Float64Array {
-	for (let i = 0; i < coversMm.length; i++) checkReading(coversMm[i], i);
+	// A typed array holds only numbers; a plain array may hold '' or null, which would become 0.
+	if (!(coversMm instanceof Float64Array)) {
+		for (let i = 0; i < coversMm.length; i++) checkReading(coversMm[i], i);
+	}
 	const sorted = Float64Array.from(coversMm);
 	let ascending = true;
-	for (let i = 1; i < sorted.length; i++) {
-		if (sorted[i] < sorted[i - 1]) ascending = false;
+	for (let i = 0; i < sorted.length; i++) {
+		const value = sorted[i];
+		if (!(value >= 0 && value < Infinity)) checkReading(value, i);
+		if (i > 0 && value < sorted[i - 1]) ascending = false;
 	}
 	return ascending ? sorted : sorted.sort();
 }
