@@ -9,7 +9,7 @@ export {
 	type ResolvedOptions,
 	resolveOptions
 } from './assessOptions';
-export { toSortedCovers, countBelowSorted, countAtOrBelowSorted } from './readings';
+export { toSortedCovers, toSortedValues, countBelowSorted, countAtOrBelowSorted } from './readings';
 export { percentileSorted, type PercentileType } from './percentile';
 export { describeSorted, type CoverDescription } from './describe';
 export {

@@ -30,15 +30,40 @@ export function requireOpenUnit(name: string, what: string, value: number): void
 }
 
 /**
- * Check one reading as given: a finite number of 0 mm or more. An empty string, null or
- * undefined would otherwise become 0 mm in a Float64Array and pass as a real reading.
+ * Check one value as given: a finite number (and, for a cover, 0 mm or more). An empty string,
+ * null or undefined would otherwise become 0 mm in a Float64Array and pass as a real reading.
  */
-function checkReading(value: unknown, index: number): void {
+function checkReading(value: unknown, index: number, signed: boolean): void {
 	if (typeof value !== 'number' || !Number.isFinite(value)) {
 		const shown = value === '' ? 'empty' : value === null ? 'null' : String(value);
 		throw new Error(`reading ${index + 1} is not a finite number (${shown})`);
 	}
-	if (value < 0) throw new Error(`reading ${index + 1} is negative (${value} mm): cover is ≥ 0 mm`);
+	if (!signed && value < 0)
+		throw new Error(`reading ${index + 1} is negative (${value} mm): cover is ≥ 0 mm`);
+}
+
+function toSorted(values: readonly number[] | Float64Array, signed: boolean): Float64Array {
+	// A typed array holds only numbers; a plain array may hold '' or null, which would become 0.
+	if (!(values instanceof Float64Array)) {
+		for (let i = 0; i < values.length; i++) checkReading(values[i], i, signed);
+	}
+	const sorted = Float64Array.from(values);
+	let ascending = true;
+	for (let i = 0; i < sorted.length; i++) {
+		const value = sorted[i];
+		if (!((signed || value >= 0) && Number.isFinite(value))) checkReading(value, i, signed);
+		if (i > 0 && value < sorted[i - 1]) ascending = false;
+	}
+	return ascending ? sorted : sorted.sort();
+}
+
+/**
+ * Signed values (mm) sorted as toSortedCovers sorts covers — deviations from c_nom or margins
+ * over c_min may be below 0 — with the same refusal of non-numbers.
+ * @example toSortedValues([5, -2, 0]) // Float64Array [-2, 0, 5]
+ */
+export function toSortedValues(valuesMm: readonly number[] | Float64Array): Float64Array {
+	return toSorted(valuesMm, true);
 }
 
 /**
@@ -53,18 +78,7 @@ function checkReading(value: unknown, index: number): void {
  * @example toSortedCovers([50, 40, 45]) // Float64Array [40, 45, 50]
  */
 export function toSortedCovers(coversMm: readonly number[] | Float64Array): Float64Array {
-	// A typed array holds only numbers; a plain array may hold '' or null, which would become 0.
-	if (!(coversMm instanceof Float64Array)) {
-		for (let i = 0; i < coversMm.length; i++) checkReading(coversMm[i], i);
-	}
-	const sorted = Float64Array.from(coversMm);
-	let ascending = true;
-	for (let i = 0; i < sorted.length; i++) {
-		const value = sorted[i];
-		if (!(value >= 0 && value < Infinity)) checkReading(value, i);
-		if (i > 0 && value < sorted[i - 1]) ascending = false;
-	}
-	return ascending ? sorted : sorted.sort();
+	return toSorted(coversMm, false);
 }
 
 /**
