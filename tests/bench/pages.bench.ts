@@ -15,8 +15,9 @@ loadTestEnv();
 it('measures the population pages', { timeout: 600_000 }, async () => {
 	// In the test database itself (the app's own `$env` points there), as an extra organisation
 	// and asset removed at the end.
-	const { populationOverview, populationDetail, methodSchema } =
+	const { populationOverview, populationDetail, memberComparison, methodSchema } =
 		await import('../../src/lib/server/populations');
+	const { fitNormalMixture } = await import('../../src/lib/analysis');
 	const { db, closeDb } = await import('../../src/lib/server/db');
 	const sequelize = db();
 	const q = (sql: string, replacements: unknown[] = []) =>
@@ -123,6 +124,14 @@ it('measures the population pages', { timeout: 600_000 }, async () => {
 	console.log(
 		`detail, 100,000 readings with chart data: median ${median(detail).toFixed(0)} ms (runs ${detail.map((x) => x.toFixed(0)).join(', ')})`
 	);
+	// The detail's extras, paid only there: members compared, and the mixture (fitted on the
+	// page only when neither model fits; timed here whatever the fit).
+	const members = await time(async () => memberComparison(one.group));
+	console.log(
+		`  + members compared (${one.group.members.length} members): median ${median(members).toFixed(0)} ms`
+	);
+	const mixture = await time(async () => fitNormalMixture(one.group.coversMm, { seed: 1 }));
+	console.log(`  + two-component mixture by EM: median ${median(mixture).toFixed(0)} ms`);
 	await conn.query('DELETE FROM readings WHERE member_id IN (?)', [memberIds]);
 	await conn.query('DELETE FROM members WHERE asset_id = ?', [assetId]);
 	await conn.query('DELETE FROM surveys WHERE asset_id = ?', [assetId]);

@@ -61,6 +61,18 @@ describe('the engineer looks at the car-park deck', () => {
 		await screenshot(page, 'population-detail-deck-p10');
 	});
 
+	it('shows beside the box plot whether the members differ, and names them in the reasons', async () => {
+		const table = page.getByTestId('member-differences');
+		await table.waitFor();
+		await expect(table.locator('tbody tr').count()).resolves.toBe(16);
+		await expect(page.getByTestId('member-reasons').textContent()).resolves.toMatch(
+			/Kruskal–Wallis/
+		);
+		await expect(page.getByTestId('mixture').textContent()).resolves.toMatch(/by EM \(seed\s+1/);
+		await table.scrollIntoViewIfNeeded();
+		await screenshot(page, 'population-detail-members');
+	});
+
 	it('opens a member’s cover map', async () => {
 		await page.locator('a[href^="/members/"]').first().click();
 		await page.waitForURL('**/members/**');

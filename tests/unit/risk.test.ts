@@ -7,7 +7,7 @@ import {
 	durabilityParametersSchema,
 	withDefaults
 } from '../../src/lib/server/risk/parameters';
-import { modelKindFor } from '../../src/lib/server/risk/model';
+import { modelKindFor, toDurabilityModel } from '../../src/lib/server/risk/model';
 
 const base: LevelInput = {
 	shareBelowCMin: 0.02,
@@ -53,6 +53,25 @@ describe('durability parameters', () => {
 		expect(modelKindFor('XS1')).toBe('chloride');
 		expect(modelKindFor('XF1')).toBeNull();
 		expect(defaultParameters('XD3')?.kind).toBe('chloride');
+	});
+	it('passes the chloride ageing exponent it was given (fib Bulletin 34 D(t) = D_ref(t_ref/t)^α)', () => {
+		const parsed = durabilityParametersSchema.parse({
+			XD3: {
+				kind: 'chloride',
+				surfaceContent: 3,
+				initialContent: 0.1,
+				criticalContent: 0.6,
+				dM2PerS: 1e-12,
+				dCov: 0.2,
+				ageingExponent: 0.4,
+				tRefYears: 28 / 365.25
+			}
+		});
+		const model = toDurabilityModel(parsed.XD3);
+		expect(model.kind === 'chloride' && model.chloride.ageingExponent).toBe(0.4);
+		expect(model.kind === 'chloride' && model.chloride.tRefYears).toBeCloseTo(28 / 365.25, 12);
+		const constant = toDurabilityModel(defaultParameters('XD3')!);
+		expect(constant.kind === 'chloride' && constant.chloride.ageingExponent).toBe(0);
 	});
 	it('fills in defaults only for the classes given, keeping what was entered', () => {
 		const entered = { XC3: { kind: 'carbonation' as const, kMmPerSqrtYear: 2.5, depthCov: 0.1 } };

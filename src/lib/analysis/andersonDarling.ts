@@ -31,17 +31,18 @@ export function andersonDarlingPValue(modified: number): number {
 
 /**
  * Anderson–Darling test from precomputed model probabilities of sorted readings.
- * Cost O(n), two logarithms a reading. Needs 8 readings (the p-value formulas start at n = 8).
+ * Sums ln F and ln(1 − F) as given (finite for any reading). Cost O(n). Needs 8 readings (the p-value formulas start at n = 8).
  */
 export function andersonDarlingFromProbabilities(
 	probabilities: ModelProbabilities
 ): AndersonDarlingResult {
-	const { cdf, survival } = probabilities;
-	const n = cdf.length;
+	// In log space: ln F of a reading far in the tail is finite where F itself underflows to 0.
+	const { logCdf, logSurvival } = probabilities;
+	const n = logCdf.length;
 	requireReadings('andersonDarling', n, 8);
 	let sum = 0;
 	for (let i = 0; i < n; i++) {
-		sum += (2 * i + 1) * (Math.log(cdf[i]) + Math.log(survival[n - 1 - i]));
+		sum += (2 * i + 1) * (logCdf[i] + logSurvival[n - 1 - i]);
 	}
 	const statistic = -n - sum / n;
 	const modified = statistic * (1 + 0.75 / n + 2.25 / (n * n));

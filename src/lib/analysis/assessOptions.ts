@@ -5,10 +5,12 @@
 import type { CharacteristicMethod } from './characteristicCover';
 import type { PercentileType } from './percentile';
 import type { CoverRequirement } from './requirements/requirement';
-import { defaultRuleSet, type RuleSetName } from './rules/ruleSets';
+import { defaultRuleSet, RULE_SETS, type RuleSetName } from './rules/ruleSets';
 import type { LengthUnit } from './units';
 
 export type ModelChoice = 'normal' | 'lognormal' | 'best-fit';
+const MODEL_CHOICES: readonly ModelChoice[] = ['normal', 'lognormal', 'best-fit'];
+const METHODS: readonly CharacteristicMethod[] = ['empirical', 'model', 'prediction', 'tolerance'];
 
 export interface AssessOptions {
 	/** Lower fractile p of the characteristic cover (default 0.05). */
@@ -62,6 +64,14 @@ export function resolveOptions(
 		throw new Error('fractile p must be in (0, 0.5)');
 	if (!(resolved.confidence > 0.5 && resolved.confidence < 1))
 		throw new Error('confidence must be in (0.5, 1)');
-	if (!(resolved.minSampleSize >= 2)) throw new Error('minimum sample size must be at least 2');
+	if (!(Number.isInteger(resolved.minSampleSize) && resolved.minSampleSize >= 2))
+		throw new Error('minimum sample size must be a whole number, at least 2');
+	if (resolved.percentileType !== 6 && resolved.percentileType !== 7)
+		throw new Error(`percentile type must be 6 or 7, not ${resolved.percentileType}`);
+	if (!MODEL_CHOICES.includes(resolved.model))
+		throw new Error(`model must be one of ${MODEL_CHOICES.join(', ')}`);
+	if (!METHODS.includes(resolved.characteristicMethod))
+		throw new Error(`characteristic method must be one of ${METHODS.join(', ')}`);
+	if (!(resolved.ruleSet in RULE_SETS)) throw new Error(`unknown rule set ${resolved.ruleSet}`);
 	return resolved;
 }

@@ -101,9 +101,13 @@ export function assessPopulation(
 		method: resolved.characteristicMethod,
 		model: chosenModel,
 		minSampleSize: resolved.minSampleSize,
+		percentileType: type,
 		unit: resolved.displayUnit
 	});
-	const fits = models.lognormal ? [models.normal, models.lognormal] : [models.normal];
+	// A model with no spread (every reading equal) has no curve to draw.
+	const fits = [models.normal, models.lognormal].filter(
+		(fit): fit is NonNullable<typeof fit> => fit !== null && fit.scale > 0
+	);
 	const chosenFit = chosenModel === 'lognormal' ? models.lognormal : models.normal;
 	const judged = judgedCharacteristic(
 		characteristic,

@@ -6,7 +6,7 @@ import type { FittedModel, ModelName } from './fitModels';
 import { modelQuantile } from './fitModels';
 import { normalQuantile } from './normalDistribution';
 import { percentileSorted, type PercentileType } from './percentile';
-import { requireReadings } from './readings';
+import { requireOpenUnit, requireReadings } from './readings';
 
 /** 'empirical' percentile; 'model' μ − z·σ; 'prediction' EN 1990 D7.2; 'tolerance' ISO 16269-6. */
 export type CharacteristicMethod = 'empirical' | 'model' | 'prediction' | 'tolerance';
@@ -57,6 +57,7 @@ export function characteristicCovers(
 ): CharacteristicCovers {
 	const n = sorted.length;
 	requireReadings('characteristicCovers', n, 2);
+	requireOpenUnit('characteristicCovers', 'confidence', confidence);
 	const z = normalQuantile(1 - p);
 	const kn = predictionFactor(n, p);
 	const k = toleranceFactor(n, p, confidence);

@@ -4,18 +4,21 @@
 import jStat from 'jstat';
 import { noncentralTCdf } from './noncentralT';
 import { normalCdf, normalQuantile } from './normalDistribution';
-import { requireReadings } from './readings';
+import { requireOpenUnit, requireSampleSize } from './readings';
 import { remember } from './remember';
 import { solveMonotone } from './solve';
 
 /**
  * Prediction factor k_n of EN 1990 Annex D (D7.2, Table D1, "V_x unknown"):
- * k_n = t(1 − p; n − 1)·√(1 + 1/n), Student's t quantile from jstat.
- * Dimensionless. Cost O(1). Needs 2 readings.
+ * k_n = t(1 − p; n − 1)·√(1 + 1/n), Student's t quantile from jstat. At n = ∞ (Table D1's
+ * last column, σ known) k_n = z(1 − p). Dimensionless. Cost O(1). Needs 2 readings, a whole
+ * number of them, and 0 < p < 1.
  * @example predictionFactor(10, 0.05) // 1.9230 (Table D1: 1.92)
  */
 export function predictionFactor(n: number, p = 0.05): number {
-	requireReadings('predictionFactor', n, 2);
+	requireSampleSize('predictionFactor', n, 2, true);
+	requireOpenUnit('predictionFactor', 'p', p);
+	if (n === Infinity) return normalQuantile(1 - p);
 	return jStat.studentt.inv(1 - p, n - 1) * Math.sqrt(1 + 1 / n);
 }
 
@@ -24,11 +27,14 @@ export function predictionFactor(n: number, p = 0.05): number {
  * with confidence γ (ISO 16269-6; NIST/SEMATECH e-Handbook §7.2.6.3):
  * k = t'⁻¹(γ; ν = n − 1, δ = z(1 − p)·√n)/√n, the noncentral t quantile found numerically.
  * Dimensionless. Cost ≈ 10 noncentral t CDFs the first time for given n, p, γ; remembered
- * after that (a pure function of the three). Needs 2 readings.
+ * after that (a pure function of the three). Needs 2 readings (a whole number), 0 < p < 1 and
+ * 0 < γ < 1.
  * @example toleranceFactor(10, 0.05, 0.95) // 2.911
  */
 export function toleranceFactor(n: number, p = 0.05, confidence = 0.95): number {
-	requireReadings('toleranceFactor', n, 2);
+	requireSampleSize('toleranceFactor', n, 2);
+	requireOpenUnit('toleranceFactor', 'p', p);
+	requireOpenUnit('toleranceFactor', 'confidence', confidence);
 	return rememberedToleranceFactor(n, p, confidence);
 }
 
@@ -53,7 +59,7 @@ function solveToleranceFactor(n: number, p: number, confidence: number): number 
  * (the variables method, ISO 3951 / ISO 16269-6 logic): with t = √n·(x̄ − L)/s, find δ_L such
  * that P(T'(ν, δ_L) ≤ t) = γ; then p_U = Φ(−δ_L/√n). Dimensionless fraction.
  * Cost ≈ 10 noncentral t CDFs the first time for given arguments, remembered after that.
- * Needs 2 readings.
+ * Needs 2 readings (a whole number), 0 < γ < 1 and finite figures.
  * @example fractionBelowUpperBound(62.195, 9.9676, 200, 45, 0.95) // ≈ 0.07
  */
 export function fractionBelowUpperBound(
@@ -63,7 +69,10 @@ export function fractionBelowUpperBound(
 	limit: number,
 	confidence = 0.95
 ): number {
-	requireReadings('fractionBelowUpperBound', n, 2);
+	requireSampleSize('fractionBelowUpperBound', n, 2);
+	requireOpenUnit('fractionBelowUpperBound', 'confidence', confidence);
+	if (![meanValue, sdValue, limit].every(Number.isFinite) || sdValue < 0)
+		throw new Error('fractionBelowUpperBound needs a finite mean and limit and an SD ≥ 0');
 	return rememberedUpperBound(meanValue, sdValue, n, limit, confidence);
 }
 

@@ -4,9 +4,12 @@
  */
 import jStat from 'jstat';
 
-function checkCounts(count: number, n: number): void {
+function checkCounts(count: number, n: number, confidence: number): void {
 	if (!(Number.isInteger(count) && Number.isInteger(n) && n >= 1 && count >= 0 && count <= n)) {
 		throw new Error('clopperPearson needs whole counts with 0 ≤ count ≤ n and n ≥ 1');
+	}
+	if (!(confidence > 0 && confidence < 1)) {
+		throw new Error(`clopperPearson needs 0 < confidence < 1, not ${confidence}`);
 	}
 }
 
@@ -16,7 +19,7 @@ function checkCounts(count: number, n: number): void {
  * @example clopperPearsonUpper(5, 200, 0.95) // 0.0518 (RILEM TC 230-PSC worked example)
  */
 export function clopperPearsonUpper(count: number, n: number, confidence = 0.95): number {
-	checkCounts(count, n);
+	checkCounts(count, n, confidence);
 	return count === n ? 1 : jStat.beta.inv(confidence, count + 1, n - count);
 }
 
@@ -25,7 +28,7 @@ export function clopperPearsonUpper(count: number, n: number, confidence = 0.95)
  * @example clopperPearsonLower(5, 200, 0.95) // ≈ 0.0099
  */
 export function clopperPearsonLower(count: number, n: number, confidence = 0.95): number {
-	checkCounts(count, n);
+	checkCounts(count, n, confidence);
 	return count === 0 ? 0 : jStat.beta.inv(1 - confidence, count, n - count + 1);
 }
 

@@ -34,12 +34,13 @@ export function describeSorted(sorted: Float64Array, type: PercentileType = 7): 
 	// simple-statistics reads only length and indices, so a Float64Array is safe to pass.
 	const values = sorted as unknown as number[];
 	const meanMm = mean(values);
-	const sdMm = Math.sqrt(sampleVariance(values));
+	// Readings all equal have no spread; summing could leave a rounding residue of 1e-15.
+	const sdMm = sorted[0] === sorted[n - 1] ? 0 : Math.sqrt(sampleVariance(values));
 	return {
 		n,
 		meanMm,
 		sdMm,
-		cov: sdMm / meanMm,
+		cov: sdMm === 0 ? 0 : sdMm / meanMm,
 		minMm: sorted[0],
 		maxMm: sorted[n - 1],
 		medianMm: percentileSorted(sorted, 0.5, type),

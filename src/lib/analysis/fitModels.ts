@@ -22,6 +22,8 @@ export interface FittedModel {
  */
 function meanAndSd(sorted: Float64Array, logarithm: boolean): [number, number] {
 	const n = sorted.length;
+	// Readings all equal: the spread is exactly 0 (summing would leave a rounding residue).
+	if (sorted[0] === sorted[n - 1]) return [logarithm ? Math.log(sorted[0]) : sorted[0], 0];
 	let sum = 0;
 	for (let i = 0; i < n; i++) sum += logarithm ? Math.log(sorted[i]) : sorted[i];
 	const mean = sum / n;
@@ -56,10 +58,15 @@ export function fitLognormal(sorted: Float64Array): FittedModel {
 	return { model: 'lognormal', location, scale };
 }
 
-/** Standardised variate of a cover under a model: (x − μ)/σ or (ln x − μ_ln)/σ_ln. */
+/**
+ * Standardised variate of a cover under a model: (x − μ)/σ or (ln x − μ_ln)/σ_ln. A model
+ * with σ = 0 (every reading equal) is a point: −∞ below it, +∞ at or above it, so its CDF is
+ * the step 0 → 1 at the point and never 0/0.
+ */
 export function standardise(fit: FittedModel, coverMm: number): number {
-	if (fit.model === 'normal') return (coverMm - fit.location) / fit.scale;
-	return coverMm > 0 ? (Math.log(coverMm) - fit.location) / fit.scale : -Infinity;
+	const x = fit.model === 'normal' ? coverMm : coverMm > 0 ? Math.log(coverMm) : -Infinity;
+	if (fit.scale === 0) return x < fit.location ? -Infinity : Infinity;
+	return (x - fit.location) / fit.scale;
 }
 
 /** Model CDF F(x) at a cover in mm. @example modelCdf({model:'normal',location:45,scale:5}, 45) // 0.5 */
@@ -67,8 +74,21 @@ export function modelCdf(fit: FittedModel, coverMm: number): number {
 	return normalCdf(standardise(fit, coverMm));
 }
 
+/**
+ * Share of the model strictly below a limit, P(X < limit): F(limit) for a spread model; for a
+ * point (σ = 0) 1 when the point is below the limit, else 0 — a cover equal to the limit
+ * complies, as a reading equal to c_min does.
+ */
+export function modelShareBelow(fit: FittedModel, limitMm: number): number {
+	if (fit.scale > 0) return modelCdf(fit, limitMm);
+	// Compared on the model's own scale: e^(ln x) need not give x back exactly.
+	const limit = fit.model === 'normal' ? limitMm : limitMm > 0 ? Math.log(limitMm) : -Infinity;
+	return fit.location < limit ? 1 : 0;
+}
+
 /** Model density f(x) in 1/mm. Lognormal: φ(z)/(σ_ln·x). */
 export function modelPdf(fit: FittedModel, coverMm: number): number {
+	if (!(fit.scale > 0)) return 0;
 	const z = standardise(fit, coverMm);
 	if (fit.model === 'normal') return normalPdf(z) / fit.scale;
 	return coverMm > 0 ? normalPdf(z) / (fit.scale * coverMm) : 0;

@@ -3,7 +3,7 @@
  */
 import { fractionBelowUpperBound } from './characteristicFactors';
 import { clopperPearsonInterval, clopperPearsonUpper } from './clopperPearson';
-import { type FittedModel, modelCdf } from './fitModels';
+import { type FittedModel, modelShareBelow } from './fitModels';
 import { countBelowSorted, requireReadings } from './readings';
 
 export interface FractionBelow {
@@ -18,7 +18,7 @@ export interface FractionBelow {
 	interval: { lower: number; upper: number };
 	/** Clopper–Pearson one-sided upper bound at γ. */
 	upperBound: number;
-	/** F(limit) under the fitted normal. */
+	/** F(limit) under the fitted normal (for readings all equal: 1 if below the limit, else 0). */
 	normal: number;
 	/** F(limit) under the fitted lognormal; null if it was not fitted. */
 	lognormal: number | null;
@@ -53,8 +53,8 @@ export function fractionBelow(
 		empirical: count / n,
 		interval: clopperPearsonInterval(count, n, confidence),
 		upperBound: clopperPearsonUpper(count, n, confidence),
-		normal: modelCdf(normal, limitMm),
-		lognormal: lognormal ? modelCdf(lognormal, limitMm) : null,
+		normal: modelShareBelow(normal, limitMm),
+		lognormal: lognormal ? modelShareBelow(lognormal, limitMm) : null,
 		variablesUpperBoundNormal: fractionBelowUpperBound(
 			normal.location,
 			normal.scale,

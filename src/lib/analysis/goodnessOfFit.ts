@@ -4,7 +4,9 @@
 import { andersonDarlingFromProbabilities, type AndersonDarlingResult } from './andersonDarling';
 import { fitLognormal, fitNormal, type FittedModel, type ModelName } from './fitModels';
 import { kolmogorovSmirnovFromCdf, type KolmogorovSmirnovResult } from './lilliefors';
+import { groupedChiSquare, type GroupedFitResult } from './groupedFit';
 import { modelProbabilities } from './modelProbabilities';
+import { detectResolutionMm } from './resolution';
 
 /** Significance level at which a model is called rejected (common practice: 5 %). */
 export const FIT_SIGNIFICANCE = 0.05;
@@ -15,7 +17,15 @@ export interface ModelFit extends FittedModel {
 	sdMm: number;
 	andersonDarling: AndersonDarlingResult | null;
 	kolmogorovSmirnov: KolmogorovSmirnovResult | null;
-	/** Anderson–Darling p < FIT_SIGNIFICANCE; null when there are too few readings to test. */
+	/** Chi-square over the meter's classes; null when no resolution was detected. */
+	grouped: GroupedFitResult | null;
+	/**
+	 * The test that decides: Anderson–Darling for continuous readings; the grouped chi-square
+	 * when the readings sit on the meter's grid with ties (Anderson–Darling assumes no ties).
+	 */
+	decidedBy: 'anderson-darling' | 'grouped-chi-square' | null;
+	/** The deciding test's p < FIT_SIGNIFICANCE; null when it cannot be tested (too few
+	 * readings, no spread, or too few distinct values). */
 	rejected: boolean | null;
 }
 
@@ -23,13 +33,15 @@ export interface ModelComparison {
 	normal: ModelFit;
 	/** null when a reading is 0 mm or less. */
 	lognormal: ModelFit | null;
-	/** The model with the larger Anderson–Darling p-value (smaller A*² on a tie). */
+	/** The model with the larger p-value of the deciding test (smaller A*² on a tie). */
 	better: ModelName;
+	/** The meter's step detected in the readings (1, 0.5 or 0.1 mm), or null. */
+	resolutionMm: number | null;
 	significance: number;
 	warnings: string[];
 }
 
-function testModel(sorted: Float64Array, fit: FittedModel): ModelFit {
+function testModel(sorted: Float64Array, fit: FittedModel, resolutionMm: number | null): ModelFit {
 	const [meanMm, sdMm] =
 		fit.model === 'normal'
 			? [fit.location, fit.scale]
@@ -38,25 +50,81 @@ function testModel(sorted: Float64Array, fit: FittedModel): ModelFit {
 					Math.exp(fit.location + (fit.scale * fit.scale) / 2) *
 						Math.sqrt(Math.expm1(fit.scale * fit.scale))
 				];
-	if (sorted.length < 8) {
-		return { ...fit, meanMm, sdMm, andersonDarling: null, kolmogorovSmirnov: null, rejected: null };
-	}
+	const untested = {
+		...fit,
+		meanMm,
+		sdMm,
+		andersonDarling: null,
+		kolmogorovSmirnov: null,
+		grouped: null,
+		decidedBy: null,
+		rejected: null
+	};
+	// Too few readings to test, or every reading equal (σ = 0: a point, nothing to test).
+	if (sorted.length < 8 || fit.scale === 0) return untested;
 	const probabilities = modelProbabilities(sorted, fit);
 	const andersonDarling = andersonDarlingFromProbabilities(probabilities);
 	const kolmogorovSmirnov = kolmogorovSmirnovFromCdf(probabilities.cdf);
-	const rejected = andersonDarling.pValue < FIT_SIGNIFICANCE;
-	return { ...fit, meanMm, sdMm, andersonDarling, kolmogorovSmirnov, rejected };
+	const grouped = resolutionMm === null ? null : groupedChiSquare(sorted, fit, resolutionMm);
+	const decidedBy = grouped ? 'grouped-chi-square' : 'anderson-darling';
+	const p = grouped ? grouped.pValue : andersonDarling.pValue;
+	const rejected = p === null ? null : p < FIT_SIGNIFICANCE;
+	return { ...untested, andersonDarling, kolmogorovSmirnov, grouped, decidedBy, rejected };
+}
+
+/** p-value of the deciding test (null when untested). */
+function decidingP(fit: ModelFit): number | null {
+	return fit.decidedBy === 'grouped-chi-square'
+		? (fit.grouped?.pValue ?? null)
+		: (fit.andersonDarling?.pValue ?? null);
 }
 
 function pText(fit: ModelFit): string {
-	const p = fit.andersonDarling?.pValue ?? 0;
+	const p = decidingP(fit) ?? 0;
 	return p < 0.001 ? 'p < 0.001' : `p = ${p.toFixed(3)}`;
 }
 
-function fitWarnings(normal: ModelFit, lognormal: ModelFit | null, n: number): string[] {
-	if (normal.rejected === null) {
+const pWords = (p: number) => (p < 0.001 ? 'p < 0.001' : `p = ${p.toFixed(3)}`);
+const NAMES: Record<ModelName, string> = { normal: 'normal', lognormal: 'lognormal' };
+
+/** "Ties alone": Anderson–Darling rejects a model that the grouped test keeps. */
+function tieSentences(fits: (ModelFit | null)[], resolutionMm: number): string[] {
+	return fits.flatMap((fit) => {
+		if (!fit?.grouped || fit.grouped.pValue === null || !fit.andersonDarling) return [];
+		if (fit.andersonDarling.pValue >= FIT_SIGNIFICANCE || fit.rejected) return [];
+		return [
+			`Anderson–Darling would reject the ${NAMES[fit.model]} model (${pWords(fit.andersonDarling.pValue)}) ` +
+				`for the ties alone: the meter logs in steps of ${resolutionMm} mm, and a chi-square test over ` +
+				`${resolutionMm} mm classes keeps it (${pWords(fit.grouped.pValue)}).`
+		];
+	});
+}
+
+function fitWarnings(normal: ModelFit, lognormal: ModelFit | null, sorted: Float64Array): string[] {
+	const n = sorted.length;
+	const resolutionMm = normal.grouped?.resolutionMm ?? null;
+	if (normal.scale === 0) {
+		return [
+			`All ${n} readings are ${sorted[0]} mm: with no spread no model can be tested, and every ` +
+				'figure is that one value.'
+		];
+	}
+	if (normal.rejected === null && n < 8) {
 		return [`Only ${n} readings: too few to test whether a model fits (8 are needed).`];
 	}
+	if (normal.rejected === null) {
+		// Near-constant: so few distinct values on the meter's grid that no shape can be tested.
+		return [
+			`The readings take only ${normal.grouped?.classes ?? 'a few'} classes at the meter's ` +
+				`resolution of ${resolutionMm} mm: too few to test the shape of a model, so none is ` +
+				'rejected and no mixture is suspected.'
+		];
+	}
+	const ties = resolutionMm === null ? [] : tieSentences([normal, lognormal], resolutionMm);
+	return [...ties, ...shapeWarnings(normal, lognormal)];
+}
+
+function shapeWarnings(normal: ModelFit, lognormal: ModelFit | null): string[] {
 	if (lognormal === null) {
 		const tail = normal.rejected ? ` The normal model does not fit either (${pText(normal)}).` : '';
 		return [`The lognormal model was not fitted because a reading is 0 mm or less.${tail}`];
@@ -80,29 +148,43 @@ function fitWarnings(normal: ModelFit, lognormal: ModelFit | null, n: number): s
 }
 
 function betterOf(normal: ModelFit, lognormal: ModelFit | null): ModelName {
-	if (!lognormal || !normal.andersonDarling || !lognormal.andersonDarling) return 'normal';
-	const pn = normal.andersonDarling.pValue;
-	const pl = lognormal.andersonDarling.pValue;
+	if (!lognormal) return 'normal';
+	const pn = decidingP(normal);
+	const pl = decidingP(lognormal);
+	if (pn === null || pl === null || !normal.andersonDarling || !lognormal.andersonDarling)
+		return 'normal';
 	if (pn !== pl) return pl > pn ? 'lognormal' : 'normal';
 	return lognormal.andersonDarling.modified < normal.andersonDarling.modified
 		? 'lognormal'
 		: 'normal';
 }
 
+/** The meter's step when the readings sit on its grid with ties; null for continuous readings. */
+function groupedResolution(sorted: Float64Array): number | null {
+	const step = detectResolutionMm(sorted);
+	if (step === null) return null;
+	for (let i = 1; i < sorted.length; i++) if (sorted[i] === sorted[i - 1]) return step;
+	return null;
+}
+
 /**
  * Fit normal and lognormal models to sorted readings and test both by Anderson–Darling (which
- * decides) and Kolmogorov–Smirnov/Lilliefors (reported). Cost O(n): one erfc, two logarithms a
+ * decides for continuous readings) and Kolmogorov–Smirnov/Lilliefors (reported); when the
+ * readings sit on a meter's grid (1, 0.5 or 0.1 mm) with ties, a chi-square over the grid's
+ * classes decides instead and the warnings say when ties alone made Anderson–Darling reject. Cost O(n): one erfc, two logarithms a
  * reading a model. Needs 2 readings; the tests need 8.
  * @example compareModels(sorted).better // 'normal'
  */
 export function compareModels(sorted: Float64Array): ModelComparison {
-	const normal = testModel(sorted, fitNormal(sorted));
-	const lognormal = sorted[0] > 0 ? testModel(sorted, fitLognormal(sorted)) : null;
+	const resolutionMm = groupedResolution(sorted);
+	const normal = testModel(sorted, fitNormal(sorted), resolutionMm);
+	const lognormal = sorted[0] > 0 ? testModel(sorted, fitLognormal(sorted), resolutionMm) : null;
 	return {
 		normal,
 		lognormal,
 		better: betterOf(normal, lognormal),
+		resolutionMm,
 		significance: FIT_SIGNIFICANCE,
-		warnings: fitWarnings(normal, lognormal, sorted.length)
+		warnings: fitWarnings(normal, lognormal, sorted)
 	};
 }

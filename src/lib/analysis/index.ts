@@ -9,7 +9,7 @@ export {
 	type ResolvedOptions,
 	resolveOptions
 } from './assessOptions';
-export { toSortedCovers, countBelowSorted, countAtOrBelowSorted } from './readings';
+export { toSortedCovers, toSortedValues, countBelowSorted, countAtOrBelowSorted } from './readings';
 export { percentileSorted, type PercentileType } from './percentile';
 export { describeSorted, type CoverDescription } from './describe';
 export {
@@ -33,7 +33,16 @@ export {
 	type ModelComparison,
 	type ModelFit
 } from './goodnessOfFit';
-export { erf, erfc, erfcInverse, normalCdf, normalPdf, normalQuantile } from './normalDistribution';
+export {
+	erf,
+	erfc,
+	erfcInverse,
+	logNormalCdf,
+	normalCdf,
+	normalPdf,
+	normalQuantile,
+	normalUpperQuantile
+} from './normalDistribution';
 export { noncentralTCdf } from './noncentralT';
 export {
 	predictionFactor,
@@ -60,7 +69,8 @@ export {
 	type CoverRequirement,
 	type CodeSystem,
 	DEFAULT_ALLOWED_FRACTION_BELOW,
-	projectRequirement
+	projectRequirement,
+	roundMm
 } from './requirements/requirement';
 export {
 	cMinDurMm,
@@ -180,3 +190,24 @@ export {
 	type LengthUnit
 } from './units';
 export { toPlainJson } from './plainJson';
+export { pooledRanks, poolSorted, type PooledRanks } from './midRanks';
+export { kruskalWallis, kruskalWallisFromRanks, type KruskalWallisResult } from './kruskalWallis';
+export { oneWayAnova, type OneWayAnovaResult } from './oneWayAnova';
+export { mannWhitney, mannWhitneyFromRanks, type MannWhitneyResult } from './mannWhitney';
+export { holmAdjust } from './holm';
+export {
+	fitNormalMixture,
+	lowComponentShare,
+	type MixtureComponent,
+	type MixtureOptions,
+	type NormalMixture
+} from './normalMixture';
+export { detectResolutionMm, METER_STEPS_MM } from './resolution';
+export { groupedChiSquare, type GroupedFitResult } from './groupedFit';
+export {
+	compareMembers,
+	MEMBER_SIGNIFICANCE,
+	type MemberComparison,
+	type MemberCovers,
+	type MemberDifference
+} from './memberComparison';

@@ -19,6 +19,10 @@ declare module 'jstat' {
 		beta: Continuous2;
 		studentt: StudentT;
 		noncentralt: NoncentralT;
+		/** Chi-square distribution: cdf(x, dof). */
+		chisquare: StudentT;
+		/** F distribution: cdf(x, df1, df2). */
+		centralF: Continuous2;
 		gammaln(x: number): number;
 		erf(x: number): number;
 		erfc(x: number): number;

@@ -24,6 +24,7 @@ export function percentileSorted(
 	const n = sorted.length;
 	requireReadings('percentile', n, 1);
 	if (!(p >= 0 && p <= 1)) throw new Error('percentile needs 0 ≤ p ≤ 1');
+	if (type !== 6 && type !== 7) throw new Error(`percentile type must be 6 or 7, not ${type}`);
 	const h = type === 7 ? (n - 1) * p + 1 : (n + 1) * p;
 	if (h <= 1) return sorted[0];
 	if (h >= n) return sorted[n - 1];

@@ -10,25 +10,75 @@ export function requireReadings(name: string, count: number, minimum: number): v
 }
 
 /**
+ * A sample size for a factor or bound: a whole number ≥ minimum (a fractional n has no
+ * Student or noncentral t behind it); Infinity only where the caller allows the limit.
+ */
+export function requireSampleSize(
+	name: string,
+	n: number,
+	minimum: number,
+	allowInfinite = false
+): void {
+	if (allowInfinite && n === Infinity) return;
+	if (!Number.isInteger(n)) throw new Error(`${name} needs a whole number of readings, not ${n}`);
+	requireReadings(name, n, minimum);
+}
+
+/** A probability, fractile or confidence strictly between 0 and 1; NaN is refused too. */
+export function requireOpenUnit(name: string, what: string, value: number): void {
+	if (!(value > 0 && value < 1)) throw new Error(`${name} needs 0 < ${what} < 1, not ${value}`);
+}
+
+/**
+ * Check one value as given: a finite number (and, for a cover, 0 mm or more). An empty string,
+ * null or undefined would otherwise become 0 mm in a Float64Array and pass as a real reading.
+ */
+function checkReading(value: unknown, index: number, signed: boolean): void {
+	if (typeof value !== 'number' || !Number.isFinite(value)) {
+		const shown = value === '' ? 'empty' : value === null ? 'null' : String(value);
+		throw new Error(`reading ${index + 1} is not a finite number (${shown})`);
+	}
+	if (!signed && value < 0)
+		throw new Error(`reading ${index + 1} is negative (${value} mm): cover is ≥ 0 mm`);
+}
+
+function toSorted(values: readonly number[] | Float64Array, signed: boolean): Float64Array {
+	// A typed array holds only numbers; a plain array may hold '' or null, which would become 0.
+	if (!(values instanceof Float64Array)) {
+		for (let i = 0; i < values.length; i++) checkReading(values[i], i, signed);
+	}
+	const sorted = Float64Array.from(values);
+	let ascending = true;
+	for (let i = 0; i < sorted.length; i++) {
+		const value = sorted[i];
+		if (!((signed || value >= 0) && Number.isFinite(value))) checkReading(value, i, signed);
+		if (i > 0 && value < sorted[i - 1]) ascending = false;
+	}
+	return ascending ? sorted : sorted.sort();
+}
+
+/**
+ * Signed values (mm) sorted as toSortedCovers sorts covers — deviations from c_nom or margins
+ * over c_min may be below 0 — with the same refusal of non-numbers.
+ * @example toSortedValues([5, -2, 0]) // Float64Array [-2, 0, 5]
+ */
+export function toSortedValues(valuesMm: readonly number[] | Float64Array): Float64Array {
+	return toSorted(valuesMm, true);
+}
+
+/**
  * Copy readings into a new Float64Array sorted ascending (numeric sort, no comparator).
  *
  * Definition: the order statistics x(1) ≤ … ≤ x(n) of the readings. Units are kept (mm).
  * Cost: O(n log n) once, O(n) when the readings come already in order (the population pages
  * pass members' stored cover sets merged in order); every later step takes the sorted array
- * and does not sort again. The caller's array is never changed. Throws on a reading that is
- * not a finite number.
+ * and does not sort again. The caller's array is never changed. Throws, naming the reading,
+ * on one that is not a finite number (an empty string or null is not read as 0 mm) or is
+ * negative.
  * @example toSortedCovers([50, 40, 45]) // Float64Array [40, 45, 50]
  */
 export function toSortedCovers(coversMm: readonly number[] | Float64Array): Float64Array {
-	const sorted = Float64Array.from(coversMm);
-	let ascending = true;
-	for (let i = 0; i < sorted.length; i++) {
-		if (!Number.isFinite(sorted[i])) {
-			throw new Error(`reading ${i + 1} is not a finite number`);
-		}
-		if (i > 0 && sorted[i] < sorted[i - 1]) ascending = false;
-	}
-	return ascending ? sorted : sorted.sort();
+	return toSorted(coversMm, false);
 }
 
 /**

@@ -4,7 +4,8 @@ import {
 	assessPopulation,
 	describeSorted,
 	projectRequirement,
-	toSortedCovers
+	toSortedCovers,
+	toSortedValues
 } from '../../../src/lib/analysis';
 import { researchFilterSchema } from '../../../src/lib/server/research/filter';
 import { groupStatisticsCsv } from '../../../src/lib/server/research/groupsCsv';
@@ -45,7 +46,7 @@ describe('research statistics (the engine on the selection)', () => {
 		const expected = describeSorted(toSortedCovers(rows.map((r) => r.coverMm)));
 		expect(deck!.cover!.description.meanMm).toBeCloseTo(expected.meanMm, 9);
 		expect(deck!.cover!.description.sdMm).toBeCloseTo(expected.sdMm, 9);
-		const deviations = describeSorted(toSortedCovers(rows.map((r) => r.coverMm - r.cNomMm)));
+		const deviations = describeSorted(toSortedValues(rows.map((r) => r.coverMm - r.cNomMm)));
 		expect(deck!.deviationFromNominal!.description.meanMm).toBeCloseTo(deviations.meanMm, 9);
 		// The same P5 the population pages get from assessPopulation on these covers.
 		const assessed = assessPopulation(

@@ -20,7 +20,8 @@ describe('meter verification', () => {
 		expect(v.interceptMm).toBeCloseTo(3.0, 2);
 		expect(v.slope).toBeCloseTo(0.5, 3);
 		expect(v.residualSdMm).toBeCloseTo(1.237, 3);
-		expect(v.uncertaintyMm).toBeCloseTo(2 * v.residualSdMm, 12);
+		// 95 % prediction at the mean reading: t(0.975; 9)·s_e·√(1 + 1/11) (scipy 1.17.1 t.ppf)
+		expect(v.uncertaintyMm).toBeCloseTo(2.262157162798205 * v.residualSdMm * Math.sqrt(12 / 11), 7);
 		// bias = mean(y) − mean(x) = 7.5009 − 9 (Anscombe: mean y 7.50, mean x 9)
 		expect(v.biasMm).toBeCloseTo(7.500909 - 9, 5);
 		expect(v.enough).toBe(true);

@@ -7,7 +7,10 @@
  * Carbonation depth x = k·√t (mm). @example carbonationDepthMm(4, 25) // 20
  */
 export function carbonationDepthMm(kMmPerSqrtYear: number, ageYears: number): number {
-	if (!(kMmPerSqrtYear >= 0 && ageYears >= 0)) throw new Error('carbonation needs k ≥ 0 and t ≥ 0');
+	if (!(kMmPerSqrtYear >= 0 && Number.isFinite(kMmPerSqrtYear)))
+		throw new Error(`carbonation needs a finite k ≥ 0 mm/√year, not ${kMmPerSqrtYear}`);
+	if (!(ageYears >= 0 && Number.isFinite(ageYears)))
+		throw new Error(`carbonation needs an age t ≥ 0 years, not ${ageYears}`);
 	return kMmPerSqrtYear * Math.sqrt(ageYears);
 }
 
@@ -23,13 +26,18 @@ export function carbonationRateFromDepth(depthMm: number, ageYears: number): num
 
 /**
  * Years until the carbonation front reaches the bar (depassivation when x ≥ cover):
- * t = (cover/k)². Infinite (null) when k = 0. @example carbonationTimeToDepassivationYears(30, 2.5) // 144
+ * t = (cover/k)². Never (null) when k = 0; a negative or non-finite k or cover is refused (not
+ * read as "never"). @example carbonationTimeToDepassivationYears(30, 2.5) // 144
  */
 export function carbonationTimeToDepassivationYears(
 	coverMm: number,
 	kMmPerSqrtYear: number
 ): number | null {
-	if (!(kMmPerSqrtYear > 0)) return null;
-	const r = Math.max(0, coverMm) / kMmPerSqrtYear;
+	if (!(kMmPerSqrtYear >= 0 && Number.isFinite(kMmPerSqrtYear)))
+		throw new Error(`carbonation needs a finite k ≥ 0 mm/√year, not ${kMmPerSqrtYear}`);
+	if (!(coverMm >= 0 && Number.isFinite(coverMm)))
+		throw new Error(`carbonation needs a cover ≥ 0 mm, not ${coverMm}`);
+	if (kMmPerSqrtYear === 0) return null;
+	const r = coverMm / kMmPerSqrtYear;
 	return r * r;
 }

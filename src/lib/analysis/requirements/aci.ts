@@ -3,7 +3,7 @@
  * ACI 117-10 §2.2.4 (tolerance on cover). Cells from memory of the published tables.
  */
 import { inchToMm } from '../units';
-import { type CoverRequirement, DEFAULT_ALLOWED_FRACTION_BELOW } from './requirement';
+import { type CoverRequirement, DEFAULT_ALLOWED_FRACTION_BELOW, roundMm } from './requirement';
 
 export type AciExposure = 'cast-against-ground' | 'weather-or-ground' | 'not-exposed';
 export type AciMember = 'slab-joist-wall' | 'beam-column-pedestal-tie';
@@ -54,7 +54,7 @@ export function aciRequirement(input: AciRequirementInput): CoverRequirement {
 	const cNomMm = inchToMm(specifiedIn);
 	const toleranceMm = aciCoverToleranceMm(cNomMm, input.memberDepthMm);
 	return {
-		cMinMm: cNomMm - toleranceMm,
+		cMinMm: roundMm(cNomMm - toleranceMm),
 		cNomMm,
 		deltaCDevMm: toleranceMm,
 		deltaPlusMm: input.deltaPlusMm ?? null,

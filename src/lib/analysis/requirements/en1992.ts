@@ -2,7 +2,7 @@
  * EN 1992-1-1:2004 (+AC:2010) §4.4.1, recommended values (a National Annex may change them).
  * Table cells are from memory of the standard's recommended values; the tests quote them.
  */
-import { type CoverRequirement, DEFAULT_ALLOWED_FRACTION_BELOW } from './requirement';
+import { type CoverRequirement, DEFAULT_ALLOWED_FRACTION_BELOW, roundMm } from './requirement';
 
 export type StructuralClass = 'S1' | 'S2' | 'S3' | 'S4' | 'S5' | 'S6';
 export type ExposureClass =
@@ -110,7 +110,7 @@ export function enRequirement(input: EnRequirementInput): CoverRequirement {
 	const cMinMm = Math.max(cMinBMm, cDurMm, 10);
 	return {
 		cMinMm,
-		cNomMm: cMinMm + deltaCDevMm,
+		cNomMm: roundMm(cMinMm + deltaCDevMm),
 		deltaCDevMm,
 		deltaPlusMm: input.deltaPlusMm ?? null,
 		allowedFractionBelow: input.allowedFractionBelow ?? DEFAULT_ALLOWED_FRACTION_BELOW,

@@ -11,6 +11,16 @@ export type CodeSystem = 'EN' | 'ACI' | 'project';
  */
 export const DEFAULT_ALLOWED_FRACTION_BELOW = 0.05;
 
+/**
+ * A length sum or difference rounded to 1e-6 mm, far below any meter's resolution: in binary
+ * floating point 45.3 − 10.1 is 35.199999999999996, and a reading of exactly 35.2 mm would
+ * then count as below c_min.
+ * @example roundMm(45.3 - 10.1) // 35.2
+ */
+export function roundMm(valueMm: number): number {
+	return Math.round(valueMm * 1e6) / 1e6;
+}
+
 export interface CoverRequirement {
 	/** Minimum cover c_min (mm): EN 1992-1-1 4.4.1.2; for ACI the specified cover less ACI 117's tolerance. */
 	cMinMm: number;
@@ -45,7 +55,7 @@ export function projectRequirement(
 		throw new Error('projectRequirement needs c_nom > Δc_dev ≥ 0 mm');
 	}
 	return {
-		cMinMm: cNomMm - deltaCDevMm,
+		cMinMm: roundMm(cNomMm - deltaCDevMm),
 		cNomMm,
 		deltaCDevMm,
 		deltaPlusMm: extra.deltaPlusMm ?? null,

@@ -6,7 +6,7 @@ import { clopperPearsonUpper } from '../clopperPearson';
 import { percentileSorted } from '../percentile';
 import { countAtOrBelowSorted, countBelowSorted } from '../readings';
 import { aciCoverToleranceMm } from '../requirements/aci';
-import { allowedFractionOf } from '../requirements/requirement';
+import { allowedFractionOf, roundMm } from '../requirements/requirement';
 import { formatCover } from '../units';
 import type { RuleContext, RuleId, RuleResult } from './ruleTypes';
 
@@ -107,7 +107,7 @@ export function fractionBelowMin(ctx: RuleContext): RuleResult {
 export function aciTolerance(ctx: RuleContext): RuleResult {
 	const { cNomMm, memberDepthMm, deltaCDevMm } = ctx.requirement;
 	const toleranceMm = memberDepthMm ? aciCoverToleranceMm(cNomMm, memberDepthMm) : deltaCDevMm;
-	const limitMm = cNomMm - toleranceMm;
+	const limitMm = roundMm(cNomMm - toleranceMm);
 	const below = countBelowSorted(ctx.sorted, limitMm);
 	const n = ctx.description.n;
 	return {
@@ -122,14 +122,17 @@ export function aciTolerance(ctx: RuleContext): RuleResult {
 	};
 }
 
-/** Upper fractile (1 − p, empirical) ≤ c_nom + Δplus; only when Δplus is given. */
+/**
+ * Upper fractile (1 − p, empirical, of the chosen percentile type) ≤ c_nom + Δplus; only when
+ * Δplus is given. The Clopper–Pearson bound on the share above the limit is at the chosen γ.
+ */
 export function excessCover(ctx: RuleContext): RuleResult {
 	const title = 'Cover not more than the upper tolerance allows';
 	const early = tooFew('excess-cover', title, ctx);
 	if (early) return early;
-	const limitMm = ctx.requirement.cNomMm + (ctx.requirement.deltaPlusMm ?? 0);
+	const limitMm = roundMm(ctx.requirement.cNomMm + (ctx.requirement.deltaPlusMm ?? 0));
 	const p = ctx.characteristic.p;
-	const upperMm = percentileSorted(ctx.sorted, 1 - p);
+	const upperMm = percentileSorted(ctx.sorted, 1 - p, ctx.percentileType);
 	const above = ctx.sorted.length - countAtOrBelowSorted(ctx.sorted, limitMm);
 	const pass = upperMm <= limitMm;
 	return {
@@ -141,7 +144,9 @@ export function excessCover(ctx: RuleContext): RuleResult {
 			upperFractileMm: upperMm,
 			limitMm,
 			countAbove: above,
-			upperBoundAbove: clopperPearsonUpper(above, ctx.sorted.length)
+			upperBoundAbove: clopperPearsonUpper(above, ctx.sorted.length, ctx.characteristic.confidence),
+			percentileType: ctx.percentileType,
+			confidence: ctx.characteristic.confidence
 		}
 	};
 }

@@ -6,6 +6,7 @@ import type { CoverDescription } from '../describe';
 import type { ModelName } from '../fitModels';
 import type { FractionBelow } from '../fractionBelow';
 import type { ModelComparison } from '../goodnessOfFit';
+import type { PercentileType } from '../percentile';
 import type { CoverRequirement } from '../requirements/requirement';
 import type { LengthUnit } from '../units';
 
@@ -39,5 +40,7 @@ export interface RuleContext {
 	method: CharacteristicMethod;
 	model: ModelName;
 	minSampleSize: number;
+	/** Hyndman–Fan type of every empirical percentile a rule takes. */
+	percentileType: PercentileType;
 	unit: LengthUnit;
 }

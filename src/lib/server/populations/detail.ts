@@ -3,7 +3,9 @@
  * from the check holes of the members — every figure by the engine.
  */
 import {
+	compareMembers,
 	describeSorted,
+	type MemberComparison,
 	MIN_VERIFICATION_HOLES,
 	percentileSorted,
 	verifyMeter,
@@ -26,17 +28,15 @@ export interface MemberBox {
 }
 
 /**
- * Box-plot figures per member. The group's covers are in member order and ascending within a
- * member (the readings query orders them so), so each member is a sorted slice.
+ * Box-plot figures per member, each from that member's own sorted covers (the group's merged
+ * array is ordered by cover, not by member, so it cannot be sliced per member).
  */
 export function memberBoxes(group: GatheredGroup, type: PercentileType): MemberBox[] {
 	const boxes: MemberBox[] = [];
-	let at = 0;
 	for (const member of group.members) {
-		const n = group.countsByMember.get(member.id) ?? 0;
-		const sorted = group.coversMm.subarray(at, at + n);
-		at += n;
-		if (n === 0) continue;
+		const sorted = group.coversByMember.get(member.id);
+		const n = sorted?.length ?? 0;
+		if (!sorted || n === 0) continue;
 		boxes.push({
 			memberId: member.id,
 			label: member.label,
@@ -50,6 +50,19 @@ export function memberBoxes(group: GatheredGroup, type: PercentileType): MemberB
 		});
 	}
 	return boxes;
+}
+
+/**
+ * Whether the members share one distribution and which stand apart (engine: compareMembers),
+ * each member from its own covers. Detail only: O(N log N) for N readings, not paid by the
+ * overview of every population. null with fewer than 2 members with readings.
+ */
+export function memberComparison(group: GatheredGroup): MemberComparison | null {
+	const members = group.members.flatMap((m) => {
+		const coversMm = group.coversByMember.get(m.id);
+		return coversMm ? [{ label: m.label, coversMm }] : [];
+	});
+	return compareMembers(members, group.coversMm);
 }
 
 export interface HoleRow {

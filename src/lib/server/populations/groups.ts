@@ -19,7 +19,14 @@ export interface GatheredGroup {
 	/** Stable text key, e.g. "deck|XD3" or "deck|XD3|member:12". */
 	id: string;
 	members: MemberSpec[];
+	/** Every cover of the group, merged into one ascending array (the engine's input). */
 	coversMm: Float64Array;
+	/**
+	 * Each member's own covers, ascending, by member id (members with no readings are absent).
+	 * Per-member figures come from these, never from slices of the merged array, whose order
+	 * no longer says which member a cover belongs to.
+	 */
+	coversByMember: Map<number, Float64Array>;
 	/** Readings per member id, in member order. */
 	countsByMember: Map<number, number>;
 }
@@ -83,6 +90,12 @@ export async function gatherGroups(filter: MemberFilter, split: Split): Promise<
 		key: g.key,
 		members: g.members,
 		coversMm: covers[index],
+		coversByMember: new Map(
+			g.members.flatMap((m) => {
+				const own = byMember.get(m.id);
+				return own ? [[m.id, own] as const] : [];
+			})
+		),
 		countsByMember: new Map(g.members.map((m) => [m.id, byMember.get(m.id)?.length ?? 0]))
 	}));
 }

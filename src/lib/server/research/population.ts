@@ -9,7 +9,7 @@ import {
 	normalProbabilityPlot,
 	percentileSorted,
 	toPlainJson,
-	toSortedCovers,
+	toSortedValues,
 	type ChartData,
 	type CharacteristicCovers,
 	type CoverDescription,
@@ -45,7 +45,7 @@ export function populationFigures(
 	options: PopulationOptions = {}
 ): PopulationFigures | null {
 	if (valuesMm.length < 2) return null;
-	const sorted = toSortedCovers(valuesMm);
+	const sorted = toSortedValues(valuesMm);
 	const models = compareModels(sorted);
 	const characteristic = characteristicCovers(
 		sorted,
@@ -93,7 +93,7 @@ export function shareBelow(
 	confidence = 0.95
 ): FractionBelow | null {
 	if (valuesMm.length < 2) return null;
-	const sorted = toSortedCovers(valuesMm);
+	const sorted = toSortedValues(valuesMm);
 	const models = compareModels(sorted);
 	return toPlainJson(fractionBelow(sorted, limitMm, models.normal, models.lognormal, confidence));
 }

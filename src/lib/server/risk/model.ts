@@ -27,10 +27,18 @@ export function toDurabilityModel(parameters: ExposureParameters): DurabilityMod
 			initialContent: parameters.initialContent,
 			criticalContent: parameters.criticalContent,
 			dRefMm2PerYear: m2PerSToMm2PerYear(parameters.dM2PerS),
-			ageingExponent: 0
+			ageingExponent: parameters.ageingExponent ?? 0,
+			...(parameters.tRefYears !== undefined ? { tRefYears: parameters.tRefYears } : {})
 		},
 		dCov: parameters.dCov
 	};
+}
+
+function ageingWords(p: Extract<ExposureParameters, { kind: 'chloride' }>): string {
+	const alpha = p.ageingExponent ?? 0;
+	if (alpha === 0) return 'constant';
+	const tRef = p.tRefYears ?? 28 / 365.25;
+	return `at ${tRef.toPrecision(3)} years, ageing as (t_ref/t)^${alpha}`;
 }
 
 /** A sentence naming the model and its parameters, for the method statement. */
@@ -44,6 +52,6 @@ export function describeParameters(exposureClass: string, p: ExposureParameters)
 	return (
 		`${exposureClass}: chloride ingress by Fick's second law with C_s = ${p.surfaceContent} %, ` +
 		`C_0 = ${p.initialContent} %, C_crit = ${p.criticalContent} % (by mass of binder), ` +
-		`D = ${p.dM2PerS.toExponential(2)} m²/s constant (CoV ${p.dCov}).`
+		`D = ${p.dM2PerS.toExponential(2)} m²/s ${ageingWords(p)} (CoV ${p.dCov}).`
 	);
 }

@@ -152,7 +152,18 @@ export const chlorideSchema = z
 		initialContent: z.number().min(0, 'The initial chloride content must be at least 0.'),
 		criticalContent: positive('The critical chloride content'),
 		dM2PerS: positive('The diffusion coefficient').max(1e-9, 'D above 1e-9 m²/s is not plausible.'),
-		dCov: share('The scatter of D')
+		dCov: share('The scatter of D'),
+		/** Ageing exponent α of D(t) = D_ref·(t_ref/t)^α (fib Bulletin 34); absent: constant D. */
+		ageingExponent: z
+			.number({ error: 'The ageing exponent must be a number.' })
+			.min(0, 'The ageing exponent must be at least 0.')
+			.lt(1, 'The ageing exponent must be below 1.')
+			.optional(),
+		/** Age (years) at which D_ref was measured; needed with an ageing exponent above 0. */
+		tRefYears: z
+			.number({ error: 'The reference age must be a number.' })
+			.positive('The reference age must be above 0 years.')
+			.optional()
 	})
 	.refine((c) => c.initialContent < c.criticalContent && c.criticalContent < c.surfaceContent, {
 		message: 'Chloride contents must rise: initial < critical < surface.',

@@ -1,9 +1,12 @@
 import { error, json } from '@sveltejs/kit';
 import type { RequestHandler } from './$types';
+import { toPlainJson } from '$lib/analysis';
 import { authorize } from '$lib/server/policy';
 import {
 	groupSchema,
 	memberBoxes,
+	memberComparison,
+	populationMixture,
 	meterCheck,
 	methodSchema,
 	paramsOf,
@@ -16,7 +19,7 @@ import {
 	visibleAsset
 } from '$lib/server/populations';
 
-/** One population with chart data, per-member box figures and the meter's verification. */
+/** One population with chart data, per-member box figures and comparison, and the meter's verification. */
 export const GET: RequestHandler = async ({ locals, params, url }) => {
 	const actor = authorize(locals, 'population:read');
 	const assetId = pathId(params.assetId);
@@ -36,6 +39,8 @@ export const GET: RequestHandler = async ({ locals, params, url }) => {
 		population: detail.result,
 		selection,
 		boxes: memberBoxes(detail.group, type),
+		members: toPlainJson(memberComparison(detail.group)),
+		mixture: toPlainJson(populationMixture(detail.group, detail.result.assessment)),
 		meter: await meterCheck(detail.group.members.map((m) => m.id))
 	});
 };
