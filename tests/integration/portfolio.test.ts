@@ -43,6 +43,11 @@ describe('the owner’s portfolio', () => {
 		expect(html).toContain('The same figures as a table');
 		expect(html).toContain('Break out and test chloride profiles');
 		expect(html).not.toContain('Send by e-mail');
+		// Every projection input with its basis; on defaults alone the projection is indicative.
+		expect(html).toContain('What the projections rest on');
+		expect(html).toContain('data-basis="assumed"');
+		expect(html).toContain('Default: From memory');
+		expect(html).toContain('Indicative: assumed, not measured. Take chloride samples');
 	});
 
 	it('shows an owner of another organisation nothing (404)', async () => {

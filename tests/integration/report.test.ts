@@ -99,6 +99,13 @@ describe('the report PDF of the demo car-park assessment', () => {
 		expect(t).not.toMatch(/sqrt|Phi\?|\?¹/);
 	});
 
+	it('prints what the projections rest on, each input measured, fitted or assumed', () => {
+		const t = text(first);
+		expect(t).toContain('What the projections rest on');
+		expect(t).toMatch(/Apparent diffusion coefficient D\s+1e-12 m²\/s\s+assumed/);
+		expect(t).toContain('Indicative: assumed, not measured.');
+	});
+
 	it('lists the surveys with their states and a signatory block', () => {
 		const t = text(first);
 		expect(t).toMatch(

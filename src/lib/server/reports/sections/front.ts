@@ -79,7 +79,11 @@ export function ownerSummary(w: ReportWriter, source: AssessedSource): void {
 			{ title: 'Level', width: 0.16 },
 			{ title: 'Why', width: 0.54 }
 		],
-		view.populations.map((p) => [p.label, p.words, p.reason])
+		view.populations.map((p) => [
+			p.label,
+			p.words,
+			[p.reason, p.explanation, p.indicative].filter(Boolean).join(' ')
+		])
 	);
 	w.paragraph(
 		'“Without protection” (depassivated) means the concrete around the steel no longer keeps it from corroding: carbonation or chlorides have reached the bar. Corrosion can start from then on; it is not yet damage.',

@@ -43,7 +43,25 @@ export function riskSection(w: ReportWriter, source: AssessedSource): void {
 		);
 	}
 	// The owner's page's order and series (worst first), so each part has the same colour there.
-	const withCurves = toRiskView(source).populations.filter((p) => p.curve.length > 0);
+	const view = toRiskView(source);
+	if (view.provenance.length > 0) {
+		w.heading('What the projections rest on', 2);
+		w.paragraph(
+			'Each input is measured on this structure, fitted to measurements, or assumed. Chloride thresholds and ageing depend on the binder and are uncertain; the governing code and a licensed engineer decide what to use.',
+			{ size: 9 }
+		);
+		w.table(
+			[
+				{ title: 'Exposure', width: 0.1 },
+				{ title: 'Input', width: 0.24 },
+				{ title: 'Value', width: 0.14, align: 'right' },
+				{ title: 'How obtained', width: 0.12 },
+				{ title: 'Source', width: 0.4 }
+			],
+			view.provenance.map((r) => [r.exposureClass, r.input, r.value, r.basis, r.source])
+		);
+	}
+	const withCurves = view.populations.filter((p) => p.curve.length > 0);
 	if (withCurves.length > 0) {
 		w.image(
 			riskCurvePng(withCurves, annex.designLifeYears),

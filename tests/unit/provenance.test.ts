@@ -1,0 +1,52 @@
+import { describe, expect, it } from 'vitest';
+import { CHLORIDE_DEFAULTS } from '../../src/lib/server/risk/parameters';
+import {
+	indicativeWords,
+	parameterProvenance,
+	verdictAndRiskWords
+} from '../../src/lib/server/risk/provenance';
+
+const xd3 = CHLORIDE_DEFAULTS.XD3;
+const defaults = {
+	kind: 'chloride' as const,
+	surfaceContent: xd3.surfaceContent.value,
+	initialContent: xd3.initialContent.value,
+	criticalContent: xd3.criticalContent.value,
+	dM2PerS: xd3.dM2PerS.value,
+	dCov: xd3.dCov.value
+};
+
+describe('what a projection rests on', () => {
+	it('marks every default as assumed with its stated source, "from memory" kept', () => {
+		const rows = parameterProvenance('XD3', defaults);
+		expect(rows).toHaveLength(5);
+		expect(rows.every((r) => r.basis === 'assumed')).toBe(true);
+		const d = rows.find((r) => r.input.startsWith('Apparent diffusion'))!;
+		expect(d.value).toBe('1e-12 m²/s');
+		expect(d.source).toMatch(/^Default: From memory/);
+	});
+
+	it('marks a value the engineer changed as entered, not as the default', () => {
+		const rows = parameterProvenance('XD3', { ...defaults, surfaceContent: 4.2 });
+		const cs = rows.find((r) => r.input.startsWith('Surface'))!;
+		expect(cs.value).toBe('4.2 % of binder');
+		expect(cs.source).toMatch(/Entered by the engineer/);
+		expect(cs.basis).toBe('assumed');
+	});
+
+	it('says in words to measure before acting on an assumed projection', () => {
+		expect(indicativeWords('chloride')).toMatch(/assumed, not measured.*chloride samples/);
+		expect(indicativeWords('carbonation')).toMatch(/carbonation depths/);
+	});
+
+	it('explains "complies" beside "act now", and a shortfall beside "low concern", and nothing where they agree', () => {
+		expect(verdictAndRiskWords('pass', 'act-now', 'chloride')).toMatch(
+			/meets its specification, yet the chlorides front/
+		);
+		expect(verdictAndRiskWords('fail', 'low-concern', 'carbonation')).toMatch(
+			/falls short of its specification, but the carbonation front/
+		);
+		expect(verdictAndRiskWords('fail', 'act-now', 'chloride')).toBeNull();
+		expect(verdictAndRiskWords('pass', 'low-concern', 'chloride')).toBeNull();
+	});
+});
