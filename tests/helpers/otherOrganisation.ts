@@ -125,8 +125,16 @@ export async function insertMeasurements(sequelize: Sequelize, memberId: number)
 
 /** A draft assessment of `assetId` and an API token, both made over HTTP by `client`. */
 export async function draftAndToken(client: HttpClient, assetId: number) {
+	// Every survey of the asset, named: a fixture's surveys may all still be drafts, which the
+	// default selection (approved surveys) leaves out.
+	const listed = await client.get(`/api/v1/assets/${assetId}/surveys`, {
+		accept: 'application/json'
+	});
+	if (listed.status !== 200) throw new Error(`surveys failed: ${listed.status}`);
+	const { surveys } = (await listed.json()) as { surveys: { id: number }[] };
 	const saved = await client.postJson(`/api/v1/assets/${assetId}/assessments`, {
-		title: 'Hostile input fixture'
+		title: 'Hostile input fixture',
+		surveys: surveys.map((s) => s.id)
 	});
 	if (saved.status !== 201) throw new Error(`draft failed: ${saved.status} ${await saved.text()}`);
 	const assessmentId = ((await saved.json()) as { assessment: { id: number } }).assessment.id;

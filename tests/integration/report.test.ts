@@ -102,7 +102,9 @@ describe('the report PDF of the demo car-park assessment', () => {
 	it('prints what the projections rest on, each input measured, fitted or assumed', () => {
 		const t = text(first);
 		expect(t).toContain('What the projections rest on');
-		expect(t).toMatch(/Apparent diffusion coefficient D\s+1e-12 m²\/s\s+assumed/);
+		const table = t.slice(t.indexOf('What the projections rest on'));
+		for (const words of ['Apparent diffusion coefficient D', '1e-12 m²/s', 'assumed', 'Default:'])
+			expect(table).toContain(words);
 		expect(t).toContain('Indicative: assumed, not measured.');
 	});
 
