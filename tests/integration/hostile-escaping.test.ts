@@ -41,7 +41,9 @@ beforeAll(async () => {
 	);
 	const saved = await org.admin.postJson(`/api/v1/assets/${ids.assetId}/assessments`, {
 		title: SCRIPT,
-		recommendations: SCRIPT
+		recommendations: SCRIPT,
+		// The fixture's survey is a draft, which the default selection leaves out: name it.
+		surveys: [ids.surveyId]
 	});
 	expect(saved.status).toBe(201);
 	assessmentId = (await saved.json()).assessment.id;

@@ -52,10 +52,10 @@ export function riskSection(w: ReportWriter, source: AssessedSource): void {
 		);
 		w.table(
 			[
-				{ title: 'Exposure', width: 0.1 },
-				{ title: 'Input', width: 0.24 },
-				{ title: 'Value', width: 0.14, align: 'right' },
-				{ title: 'How obtained', width: 0.12 },
+				{ title: 'Class', width: 0.08 },
+				{ title: 'Input', width: 0.26 },
+				{ title: 'Value', width: 0.16, align: 'right' },
+				{ title: 'Basis', width: 0.1 },
 				{ title: 'Source', width: 0.4 }
 			],
 			view.provenance.map((r) => [r.exposureClass, r.input, r.value, r.basis, r.source])
