@@ -49,7 +49,8 @@ describe('signing an assessment off', () => {
 		const deckN = await page.locator('[data-population="deck|XD3"] [data-testid=n]').textContent();
 		await screenshot(page, 'assessment-approved');
 
-		const member = await Member.findOne({ where: { assetId, label: 'ROOF-BAY-01' } });
+		// A member of the approved survey: the populations page includes approved surveys by default.
+		const member = await Member.findOne({ where: { assetId, label: 'L2-BAY-01' } });
 		const batchId = await addReadings(
 			member!.surveyId,
 			member!.id,
