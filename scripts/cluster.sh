@@ -15,6 +15,7 @@ set -euo pipefail
 cd "$ROOT"
 
 ENV_FILE="$ROOT/.env.cluster"
+GALERA_ROOT="$(galera_root)"
 PROVIDER=/usr/lib/galera/libgalera_smm.so
 # Small buffer pools: the cluster is for correctness tests on a shared machine, not for speed.
 export DB_BUFFER_POOL="${CLUSTER_BUFFER_POOL:-128M}"
@@ -22,12 +23,12 @@ export DB_BUFFER_POOL="${CLUSTER_BUFFER_POOL:-128M}"
 # not write the joiner's data folder: the nodes then run as Debian's `mysql` user.
 if [ "$(id -u)" -eq 0 ] && id mysql >/dev/null 2>&1; then export DB_OS_USER=mysql; fi
 
-socket_of() { echo "$LOCAL_DIR/mariadb-galera$1/mysqld.sock"; }
+socket_of() { echo "$GALERA_ROOT/mariadb-galera$1/mysqld.sock"; }
 on_node() {
 	local n="$1"; shift
 	mariadb --no-defaults -S "$(socket_of "$n")" -uroot "$@"
 }
-node_pid() { cat "$LOCAL_DIR/mariadb-galera$1/mysqld.pid" 2>/dev/null || true; }
+node_pid() { cat "$GALERA_ROOT/mariadb-galera$1/mysqld.pid" 2>/dev/null || true; }
 node_up() { pid_alive "$(node_pid "$1")" && on_node "$1" -e "SELECT 1" >/dev/null 2>&1; }
 wsrep_status() { on_node "$1" -N -e "SHOW STATUS LIKE '$2'" 2>/dev/null | cut -f2; }
 
@@ -84,7 +85,7 @@ ensure_env() {
 # `mariadbd --wsrep-recover` reads it out (what Debian's galera_recovery does under systemd), so
 # the node can ask for just the write-sets it missed (IST) while a survivor's gcache holds them.
 recovered_position() {
-	local n="$1" dir="$LOCAL_DIR/mariadb-galera$1"
+	local n="$1" dir="$GALERA_ROOT/mariadb-galera$1"
 	grep -q '^seqno: *-1' "$dir/grastate.dat" 2>/dev/null && [ -d "$dir/mysql" ] || return 0
 	mariadbd --no-defaults --datadir="$dir" --user="${DB_OS_USER:-$(id -un)}" --skip-networking \
 		--socket="$dir/recover.sock" --pid-file="$dir/recover.pid" \
@@ -110,7 +111,7 @@ wait_synced() {
 		[ "$(wsrep_status "$1" wsrep_local_state_comment)" = Synced ] && return 0
 		sleep 0.2
 	done
-	die "node $1 did not reach Synced, see $LOCAL_DIR/mariadb-galera$1/mysqld.log"
+	die "node $1 did not reach Synced, see $GALERA_ROOT/mariadb-galera$1/mysqld.log"
 }
 
 primary() { node_up "$1" && [ "$(wsrep_status "$1" wsrep_cluster_status)" = Primary ]; }
@@ -127,10 +128,10 @@ nodes_by_position() {
 # another's: a cluster that lost every node at once is a recovery by hand in production).
 bootstrap_node() {
 	for n in 1 2 3; do
-		grep -q '^safe_to_bootstrap: 1' "$LOCAL_DIR/mariadb-galera$n/grastate.dat" 2>/dev/null && { echo "$n"; return; }
+		grep -q '^safe_to_bootstrap: 1' "$GALERA_ROOT/mariadb-galera$n/grastate.dat" 2>/dev/null && { echo "$n"; return; }
 	done
-	[ -f "$LOCAL_DIR/mariadb-galera1/grastate.dat" ] \
-		&& sed -i 's/^safe_to_bootstrap: 0/safe_to_bootstrap: 1/' "$LOCAL_DIR/mariadb-galera1/grastate.dat"
+	[ -f "$GALERA_ROOT/mariadb-galera1/grastate.dat" ] \
+		&& sed -i 's/^safe_to_bootstrap: 0/safe_to_bootstrap: 1/' "$GALERA_ROOT/mariadb-galera1/grastate.dat"
 	echo 1
 }
 

@@ -34,7 +34,7 @@ case "$instance" in
 		[ "$instance" = replica ] && PORT_KEY=REPLICA_DB_PORT
 		;;
 	galera1 | galera2 | galera3)
-		ENV_FILE="$ROOT/.env.cluster"; DATA_DIR="$LOCAL_DIR/mariadb-$instance"
+		ENV_FILE="$ROOT/.env.cluster"; DATA_DIR="$(galera_root)/mariadb-$instance"
 		DEFAULT_PORT="${GALERA_PORT_1:-3321}"; DEFAULT_NAME=fractile_cluster
 		PORT_KEY="GALERA_PORT_${instance#galera}"
 		;;
@@ -72,6 +72,8 @@ write_env_defaults() {
 			hosts="$hosts${hosts:+,}127.0.0.1:$(grep "^$sql=" "$ENV_FILE" | cut -d'"' -f2)"
 		done
 		env_default "$ENV_FILE" DB_HOSTS "$hosts"
+		# Where the nodes' data folders are (lib.sh, galera_root), for the cluster test.
+		env_default "$ENV_FILE" GALERA_DATA_ROOT "$(galera_root)"
 	fi
 	load_env "$ENV_FILE"
 	LISTEN_PORT="${!PORT_KEY}"

@@ -61,3 +61,16 @@ wait_for_port() {
 }
 
 pid_alive() { [ -n "${1:-}" ] && kill -0 "$1" 2>/dev/null; }
+
+# Where the Galera nodes keep their data. They run as the `mysql` user when started by root
+# (rsync's snapshot transfer writes as `nobody` otherwise), and that user must be able to reach
+# the folder: a checkout under a private folder (mktemp's 0700, as a CI clone may be) is out of
+# its reach, so the data then lives in /var/tmp under a name made from this checkout's path.
+galera_root() {
+	if [ "$(id -u)" -eq 0 ] && id mysql >/dev/null 2>&1 \
+		&& ! runuser -u mysql -- test -x "$LOCAL_DIR" 2>/dev/null; then
+		echo "/var/tmp/fractile-galera-$(printf '%s' "$ROOT" | sha1sum | cut -c1-12)"
+	else
+		echo "$LOCAL_DIR"
+	fi
+}

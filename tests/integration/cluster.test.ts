@@ -45,7 +45,10 @@ const ROWS = 300_000;
 const LOST =
 	'The connection to the database was lost during the import; nothing was written. Start the import again.';
 
-const NODE_1_LOG = '.local/mariadb-galera1/mysqld.log';
+// The nodes' data folders: .local, or /var/tmp when the checkout is out of the nodes' user's
+// reach (scripts/lib.sh, galera_root).
+const DATA_ROOT = cluster.GALERA_DATA_ROOT || '.local';
+const NODE_1_LOG = `${DATA_ROOT}/mariadb-galera1/mysqld.log`;
 
 const clusterScript = (...args: string[]) =>
 	execFileSync('bash', ['scripts/cluster.sh', ...args], { stdio: 'pipe' });
@@ -53,7 +56,7 @@ const clusterScript = (...args: string[]) =>
 /** One node's own answer, as root over its socket: not through the app's failover. */
 async function onNode<T>(n: 1 | 2 | 3, sql: string): Promise<T[]> {
 	const connection = await mariadb.createConnection({
-		socketPath: `.local/mariadb-galera${n}/mysqld.sock`,
+		socketPath: `${DATA_ROOT}/mariadb-galera${n}/mysqld.sock`,
 		user: 'root',
 		database: cluster.DB_NAME,
 		bigIntAsNumber: true,
