@@ -1,4 +1,4 @@
-import { Membership, Organisation } from '../db/models';
+import { Membership, Organisation, User } from '../db/models';
 
 export type ActiveMembership = NonNullable<App.Locals['membership']>;
 
@@ -38,4 +38,18 @@ function describe(row: Membership): ActiveMembership {
 		organisationName: organisation?.name ?? '',
 		role: row.role
 	};
+}
+
+/**
+ * Make `organisationId` the user's active organisation; the membership there, or null (and
+ * nothing changed) when the user is not a member. The page and the API both switch through here.
+ */
+export async function switchOrganisation(
+	userId: number,
+	organisationId: number
+): Promise<ActiveMembership | null> {
+	const membership = await membershipIn(userId, organisationId);
+	if (!membership) return null;
+	await User.update({ activeOrganisationId: organisationId }, { where: { id: userId } });
+	return membership;
 }

@@ -154,3 +154,8 @@ export async function scopedAttachment(actor: Actor, attachmentId: number) {
 	});
 	return attachment;
 }
+
+/** A survey's attachments, newest first (the caller has checked the survey is visible). */
+export function listAttachments(surveyId: number): Promise<Attachment[]> {
+	return Attachment.findAll({ where: { surveyId }, order: [['id', 'DESC']] });
+}

@@ -1,7 +1,7 @@
 import { error, redirect } from '@sveltejs/kit';
 import { z } from 'zod';
 import type { Actions, PageServerLoad } from './$types';
-import { Membership, User } from '$lib/server/db';
+import { switchOrganisation } from '$lib/server/auth/membership';
 import { requireActor } from '$lib/server/policy';
 
 export const load: PageServerLoad = async () => redirect(303, '/dashboard');
@@ -15,11 +15,7 @@ export const actions = {
 		if (!parsed.success) error(400, 'Choose an organisation.');
 		const { organisationId } = parsed.data;
 		// Not a member there: the same 404 as for anything else of another organisation.
-		const membership = await Membership.findOne({
-			where: { userId: actor.userId, organisationId }
-		});
-		if (!membership) error(404, 'Not found.');
-		await User.update({ activeOrganisationId: organisationId }, { where: { id: actor.userId } });
+		if (!(await switchOrganisation(actor.userId, organisationId))) error(404, 'Not found.');
 		redirect(303, '/dashboard');
 	}
 } satisfies Actions;

@@ -3,7 +3,7 @@ import { z } from 'zod';
 import type { RequestHandler } from './$types';
 import { authorize } from '$lib/server/policy';
 import { apiError, readJson } from '$lib/server/http';
-import { Membership, User } from '$lib/server/db';
+import { switchOrganisation } from '$lib/server/auth/membership';
 
 const switchSchema = z.object({ organisationId: z.number().int().positive() });
 
@@ -14,8 +14,7 @@ export const PUT: RequestHandler = async ({ locals, request }) => {
 		apiError(409, 'token_bound', 'A token acts in the organisation it was made for.');
 	}
 	const { organisationId } = await readJson(request, switchSchema);
-	const membership = await Membership.findOne({ where: { userId: actor.userId, organisationId } });
+	const membership = await switchOrganisation(actor.userId, organisationId);
 	if (!membership) apiError(404, 'not_found', 'No such organisation.', 'organisationId');
-	await User.update({ activeOrganisationId: organisationId }, { where: { id: actor.userId } });
 	return json({ organisationId, role: membership.role });
 };

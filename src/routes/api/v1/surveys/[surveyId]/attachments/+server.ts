@@ -1,9 +1,12 @@
 import { json } from '@sveltejs/kit';
 import type { RequestHandler } from './$types';
-import { Attachment } from '$lib/server/db';
 import { authorize } from '$lib/server/policy';
 import { apiError } from '$lib/server/http';
-import { ATTACHMENT_MAX_BYTES, uploadAttachment } from '$lib/server/storage/attachments';
+import {
+	ATTACHMENT_MAX_BYTES,
+	listAttachments,
+	uploadAttachment
+} from '$lib/server/storage/attachments';
 import { attachmentUploadQuerySchema } from '$lib/server/storage/attachmentQuery';
 import { scopedSurvey } from '$lib/server/scope';
 import { api, idParam, noBodyAnswer } from '$lib/server/intake/respond';
@@ -12,11 +15,7 @@ export const GET: RequestHandler = async ({ locals, params }) => {
 	const actor = authorize(locals, 'attachment:read');
 	const id = idParam(params.surveyId);
 	await api(() => scopedSurvey(actor, id, 'read'));
-	const attachments = await Attachment.findAll({
-		where: { surveyId: id },
-		order: [['id', 'DESC']]
-	});
-	return json({ attachments });
+	return json({ attachments: await listAttachments(id) });
 };
 
 /** The file as the raw body; kind, name and caption in the query string. */
