@@ -7,7 +7,9 @@ import {
 	type ChlorideModel,
 	chlorideContentAt,
 	chlorideTimeToDepassivationYears,
+	carbonationRates,
 	depassivationAssessment,
+	measuredDepassivation,
 	FIB_TARGET_BETA_DEPASSIVATION,
 	m2PerSToMm2PerYear,
 	reliabilityIndex,
@@ -118,5 +120,30 @@ describe('depassivation share and reliability index', () => {
 		// at 10, 50, 100 a → readings 50, 55, 60 ≤ 61.1 mm at 100 a: 3/5
 		const times = timesToDepassivationYears([20, 30], { kind: 'carbonation', kMmPerSqrtYear: 2.5 });
 		expect(times).toEqual([64, 144]);
+	});
+});
+
+describe('one depassivation convention: cover < front, as for c_min (common practice: a reading equal to c_min complies)', () => {
+	// k = 4 mm/√a at 25 a: front 4·5 = 20 mm exactly; covers 19, 20, 21 mm → only 19 is reached.
+	const covers = toSortedCovers([19, 20, 21]);
+	it('the assumed-model assessment counts a cover equal to the front as protected', () => {
+		const point = { model: 'normal' as const, location: 20, scale: 0 };
+		const d = depassivationAssessment(
+			covers,
+			point,
+			{ kind: 'carbonation', kMmPerSqrtYear: 4 },
+			{ years: [25] }
+		);
+		expect(d.atAges[0].criticalDepthMm).toBe(20);
+		expect(d.atAges[0].empiricalShare).toBeCloseTo(1 / 3, 12);
+		// A cover model with no spread sitting exactly on the front: not depassivated.
+		expect(d.atAges[0].method).toBe('closed-form-fixed-front');
+		expect(d.atAges[0].modelProbability).toBe(0);
+	});
+	it('the measured-front share agrees with it on the same front', () => {
+		const rates = carbonationRates([{ depthsMm: [20], ageYears: 25 }]).rates;
+		const now = measuredDepassivation(covers, { kind: 'carbonation', rates }, 25);
+		expect(now.convention).toBe('cover < front');
+		expect(now.share).toBeCloseTo(1 / 3, 12);
 	});
 });

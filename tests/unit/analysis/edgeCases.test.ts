@@ -249,17 +249,20 @@ describe('durability edge cases', () => {
 		expect(() => apparentDiffusionMm2PerYear(aged, 0)).toThrow(/t = 0/);
 		expect(chlorideContentAt(aged, 10, 0)).toBe(0.1);
 	});
-	it('σ_cover = 0 and no depth scatter: P = 1 where the front reaches the cover, not 0/0', () => {
-		// k = 3 mm/√a at 100 a: front 30 mm, every cover 30 mm → all reached.
+	it('σ_cover = 0 and no depth scatter: P = 1 where the front passes the cover, 0 where it only reaches it, not 0/0', () => {
+		// k = 3 mm/√a: front 30 mm at 100 a (equal to every cover: protected, cover < front is
+		// the convention), 33 mm at 121 a (past every cover: all depassivated).
 		const point = { model: 'normal' as const, location: 30, scale: 0 };
 		const d = depassivationAssessment(
 			toSortedCovers([30, 30, 30]),
 			point,
 			{ kind: 'carbonation', kMmPerSqrtYear: 3, depthCov: 0 },
-			{ years: [100] }
+			{ years: [100, 121] }
 		);
-		expect(d.atAges[0].modelProbability).toBe(1);
-		expect(d.atAges[0].empiricalShare).toBe(1);
+		expect(d.atAges[0].modelProbability).toBe(0);
+		expect(d.atAges[0].empiricalShare).toBe(0);
+		expect(d.atAges[1].modelProbability).toBe(1);
+		expect(d.atAges[1].empiricalShare).toBe(1);
 	});
 	it('a fixed front has a closed form: chloride without scatter, P = Φ((x_crit − μ)/σ)', () => {
 		// x_crit = 2·erfc⁻¹(0.5/2.9)·√(32·50) = 77.18714 mm; Φ((77.18714 − 50)/8) = 0.99966108

@@ -1,10 +1,15 @@
 /**
  * Share of a cover population depassivated at chosen ages, empirically and from the fitted cover
  * distribution combined with the durability model's own scatter.
+ *
+ * Convention, the same as for c_min (a reading is below c_min when cover < c_min) and as the
+ * measured fronts (measuredFront.ts): a bar is depassivated when its cover is strictly less
+ * than the front depth; a cover equal to the front is still protected. For the continuous
+ * models the boundary has probability 0; it decides only the empirical count and the simulation.
  */
-import { type FittedModel, modelCdf, modelQuantile } from '../fitModels';
+import { type FittedModel, modelQuantile, modelShareBelow } from '../fitModels';
 import { normalCdf, normalQuantile } from '../normalDistribution';
-import { countAtOrBelowSorted, requireReadings } from '../readings';
+import { countBelowSorted, requireReadings } from '../readings';
 import { carbonationDepthMm, carbonationTimeToDepassivationYears } from './carbonation';
 import {
 	type ChlorideModel,
@@ -34,7 +39,7 @@ export interface DepassivationAtAge {
 	years: number;
 	/** Depth reached by the front at this age with the mean model (mm); null if never. */
 	criticalDepthMm: number | null;
-	/** Share of readings with cover ≤ the critical depth. */
+	/** Share of readings with cover < the critical depth (the c_min convention). */
 	empiricalShare: number;
 	/** P(depassivation) from the fitted cover model and the model scatter (simulated: hits/N). */
 	modelProbability: number;
@@ -103,7 +108,7 @@ function monteCarloHits(
 		const coverMm = modelQuantile(cover, z());
 		if (model.kind === 'carbonation') {
 			const meanMm = model.kMmPerSqrtYear * Math.sqrt(years);
-			if (meanMm * (1 + (model.depthCov ?? 0) * z()) >= coverMm) hits++;
+			if (meanMm * (1 + (model.depthCov ?? 0) * z()) > coverMm) hits++;
 			continue;
 		}
 		const c = model.chloride;
@@ -115,7 +120,7 @@ function monteCarloHits(
 		const critical = c.criticalContent * (1 + (model.criticalCov ?? 0) * z());
 		// A drawn surface content or D below 0 is outside the model: it stays at 0.
 		drawn.surfaceContent = Math.max(0, drawn.surfaceContent);
-		if (chlorideContentAt(drawn, Math.max(0, coverMm), years) >= critical) hits++;
+		if (chlorideContentAt(drawn, Math.max(0, coverMm), years) > critical) hits++;
 	}
 	return hits;
 }
@@ -148,8 +153,9 @@ function probabilityAt(
 	options: DepassivationOptions
 ): Probability {
 	if (fixedFront(model)) {
-		// P(cover ≤ front): the CDF of the cover model, a step for a cover with no spread.
-		const p = depthMm === null ? 0 : depthMm === Infinity ? 1 : modelCdf(cover, depthMm);
+		// P(cover < front): the CDF of the cover model; for a cover with no spread a step that
+		// leaves a cover equal to the front protected.
+		const p = depthMm === null ? 0 : depthMm === Infinity ? 1 : modelShareBelow(cover, depthMm);
 		return closedForm(p, 'closed-form-fixed-front');
 	}
 	if (model.kind === 'carbonation' && cover.model === 'normal' && depthMm !== null) {
@@ -202,8 +208,7 @@ function atAge(
 	options: DepassivationOptions
 ): DepassivationAtAge {
 	const depthMm = frontDepthMm(model, years);
-	const empiricalShare =
-		depthMm === null ? 0 : countAtOrBelowSorted(sorted, depthMm) / sorted.length;
+	const empiricalShare = depthMm === null ? 0 : countBelowSorted(sorted, depthMm) / sorted.length;
 	const probability = probabilityAt(cover, model, years, depthMm, options);
 	const beta = claimedBeta(probability);
 	const target = options.targetBeta ?? FIB_TARGET_BETA_DEPASSIVATION;
@@ -226,7 +231,7 @@ function atAge(
 
 /**
  * Depassivation at each chosen age and at the design service life (default 50 years).
- * Empirical: share of readings with cover ≤ front depth. Model: a closed form where one exists
+ * Empirical: share of readings with cover < front depth (the c_min convention). Model: a closed form where one exists
  * — P = F_cover(front) when the model has no scatter of its own, P = Φ((μx − μc)/√(σx² + σc²))
  * when cover and carbonation depth are both normal — otherwise seeded Monte Carlo (mulberry32,
  * default 100 000 samples, seed 1) with its standard error, and "< 1/N" (lessThan, β not
