@@ -5,11 +5,19 @@
 import { max, min } from 'simple-statistics';
 import { ENGINE_VERSION, toPlainJson, toSortedCovers } from '$lib/analysis';
 import { populationRisk, type PopulationRisk } from './compute';
+import type { MeasuredRiskInput, PopulationMeasurements } from './measured';
 import { modelKindFor } from './model';
-import { SIMULATION, withDefaults, type DurabilityParameters } from './parameters';
+import {
+	CHLORIDE_DEFAULTS,
+	SIMULATION,
+	withDefaults,
+	type DurabilityParameters,
+	type ExposureParameters
+} from './parameters';
 import { ageAtSurveyYears, type SnapshotLike } from './source';
 
-export const ANNEX_SCHEMA_VERSION = 1;
+/** 2: populations carry the projection from measured fronts (`measured`), when there is one. */
+export const ANNEX_SCHEMA_VERSION = 2;
 
 export interface MemberSummary {
 	id: number;
@@ -44,6 +52,47 @@ export interface MemberData {
 }
 
 export class ReadingsChangedError extends Error {}
+
+/** The key under which an asset's measurements are grouped: a population's type and exposure. */
+export const measurementKey = (memberType: string, exposureClass: string) =>
+	`${memberType}|${exposureClass}`;
+
+/**
+ * SD of C_crit for the sensitivity ranking: fib Bulletin 34 (2006) B.2.2 describes C_crit by a
+ * beta distribution of mean 0.6 and SD 0.15 % by mass of binder — from memory, not checked.
+ */
+export const CRITICAL_CONTENT_SD = {
+	value: 0.15,
+	source: 'fib Bulletin 34 (2006), B.2.2: SD 0.15 % of binder — from memory, not checked'
+};
+
+/** C_crit (an assumption, with its source), the stated Ci and the seed for measured fronts. */
+function measuredSettings(
+	exposureClass: string,
+	p: ExposureParameters | null
+): Pick<MeasuredRiskInput, 'critical' | 'statedInitialContent' | 'seed'> | undefined {
+	if (!p) return undefined;
+	if (p.kind === 'carbonation')
+		return {
+			critical: { value: 0, sd: 0, source: '' },
+			statedInitialContent: 0,
+			seed: SIMULATION.seed
+		};
+	const fallback = CHLORIDE_DEFAULTS[exposureClass]?.criticalContent;
+	const source =
+		fallback && fallback.value === p.criticalContent
+			? `Default: ${fallback.source}`
+			: 'Entered by the engineer for this assessment.';
+	return {
+		critical: {
+			value: p.criticalContent,
+			sd: CRITICAL_CONTENT_SD.value,
+			source: `${source} SD for the sensitivity: ${CRITICAL_CONTENT_SD.source}.`
+		},
+		statedInitialContent: p.initialContent,
+		seed: SIMULATION.seed
+	};
+}
 
 function summarise(
 	id: number,
@@ -91,7 +140,8 @@ export function areaOfMembersM2(
 export function buildAnnex(
 	snapshot: SnapshotLike,
 	data: Map<number, MemberData>,
-	entered: DurabilityParameters
+	entered: DurabilityParameters,
+	measurements: Map<string, PopulationMeasurements> = new Map()
 ): RiskAnnex {
 	const classes = snapshot.populations
 		.map((p) => p.key.exposureClass)
@@ -120,6 +170,9 @@ export function buildAnnex(
 				`The readings of ${p.label} have changed since the draft was computed (${expected} then, ${covers.length} now): save the draft again.`
 			);
 		}
+		const chosen = parameters[p.key.exposureClass] ?? null;
+		const measured = measurements.get(measurementKey(p.key.memberType, p.key.exposureClass));
+		const settings = measuredSettings(p.key.exposureClass, chosen);
 		return populationRisk({
 			populationId: p.id,
 			label: p.label,
@@ -129,9 +182,10 @@ export function buildAnnex(
 			areaM2: areaOfMembersM2(own),
 			assessment: p.assessment,
 			sortedCoversMm: covers,
-			parameters: parameters[p.key.exposureClass] ?? null,
+			parameters: chosen,
 			designLifeYears: designLife,
-			ageAtSurveyYears: ageAtSurvey
+			ageAtSurveyYears: ageAtSurvey,
+			...(measured && settings ? { measurements: measured, measuredSettings: settings } : {})
 		});
 	});
 	return toPlainJson({

@@ -5,11 +5,15 @@
 import {
 	depassivationAssessment,
 	FIB_TARGET_BETA_DEPASSIVATION,
+	meetsTargetBeta,
+	reliabilityIndex,
 	type DepassivationAtAge,
 	type FittedModel,
 	type PopulationAssessment
 } from '$lib/analysis';
 import { riskLevel, type RiskLevel } from './levels';
+import { measuredRisk, type MeasuredRisk, type MeasuredShare } from './measured';
+import type { MeasuredRiskInput, PopulationMeasurements } from './measured';
 import { toDurabilityModel } from './model';
 import { SIMULATION, type ExposureParameters } from './parameters';
 
@@ -21,10 +25,17 @@ export const CURVE_STEP_YEARS = 5;
 export interface RiskAtAge {
 	years: number;
 	empiricalShare: number;
+	/** The projected share: the model's probability, or the share under the measured fronts. */
 	modelProbability: number;
 	reliabilityIndex: number | null;
 	meetsTarget: boolean;
-	method: DepassivationAtAge['method'];
+	method: DepassivationAtAge['method'] | 'measured-front';
+	/** Simulated: samples, standard error, and 1/N when no sample depassivated ("< 1/N"). */
+	samples?: number | null;
+	standardError?: number | null;
+	lessThan?: number | null;
+	/** Measured fronts: the bootstrap band (5 % and 95 %). */
+	band?: { low: number; high: number };
 }
 
 export interface PopulationRisk {
@@ -45,6 +56,8 @@ export interface PopulationRisk {
 	atDesignLife: RiskAtAge | null;
 	curve: RiskAtAge[];
 	firstAgeMissingTarget: number | null;
+	/** The projection from measured fronts, when the population has them; it replaces the assumed one. */
+	measured?: MeasuredRisk | null;
 	level: RiskLevel;
 	reason: string;
 }
@@ -61,6 +74,10 @@ export interface PopulationRiskInput {
 	parameters: ExposureParameters | null;
 	designLifeYears: number;
 	ageAtSurveyYears: number | null;
+	/** The asset's measurements for this population's type and exposure class. */
+	measurements?: PopulationMeasurements;
+	/** C_crit, stated Ci and seed for measured chloride fronts (from the parameters). */
+	measuredSettings?: Pick<MeasuredRiskInput, 'critical' | 'statedInitialContent' | 'seed'>;
 }
 
 const slim = (a: DepassivationAtAge): RiskAtAge => ({
@@ -69,7 +86,21 @@ const slim = (a: DepassivationAtAge): RiskAtAge => ({
 	modelProbability: a.modelProbability,
 	reliabilityIndex: a.reliabilityIndex,
 	meetsTarget: a.meetsTarget,
-	method: a.method
+	method: a.method,
+	samples: a.samples,
+	standardError: a.standardError,
+	lessThan: a.lessThan
+});
+
+/** A measured share as a point of the curve: β and the target from the share itself. */
+const fromMeasured = (m: MeasuredShare): RiskAtAge => ({
+	years: m.years,
+	empiricalShare: m.share,
+	modelProbability: m.share,
+	reliabilityIndex: reliabilityIndex(m.share),
+	meetsTarget: meetsTargetBeta(m.share),
+	method: 'measured-front',
+	band: { low: m.low, high: m.high }
 });
 
 /** The cover model the engine chose for the population's characteristic rule. */
@@ -91,8 +122,45 @@ export function curveAges(designLifeYears: number): number[] {
 	return ages;
 }
 
-function projections(input: PopulationRiskInput, assessment: PopulationAssessment) {
+function headlineLabels(ages: readonly number[]): string[] {
+	return ages.map((y, i) =>
+		i < HEADLINE_AGES_YEARS.length ? `${y} years` : `at the survey (${y} years)`
+	);
+}
+
+function measuredProjections(measured: MeasuredRisk) {
+	const headline = [...measured.atAges, ...(measured.now ? [measured.now] : [])];
+	const labels = headlineLabels(headline.map((a) => a.years));
+	return {
+		atAges: headline.map((a, i) => ({ ...fromMeasured(a), label: labels[i] })),
+		atDesignLife: fromMeasured(measured.atDesignLife),
+		curve: measured.curve.map(fromMeasured),
+		targetBeta: FIB_TARGET_BETA_DEPASSIVATION
+	};
+}
+
+function measuredOf(input: PopulationRiskInput): MeasuredRisk | null {
+	const kind = input.parameters?.kind;
+	if (!kind || !input.measurements || !input.measuredSettings) return null;
+	return measuredRisk({
+		sortedCoversMm: input.sortedCoversMm,
+		measurements: input.measurements,
+		kind,
+		designLifeYears: input.designLifeYears,
+		ageAtSurveyYears: input.ageAtSurveyYears,
+		headlineAges: HEADLINE_AGES_YEARS,
+		curveAges: curveAges(input.designLifeYears),
+		...input.measuredSettings
+	});
+}
+
+function projections(
+	input: PopulationRiskInput,
+	assessment: PopulationAssessment,
+	measured: MeasuredRisk | null
+) {
 	if (!input.parameters || input.sortedCoversMm.length === 0) return null;
+	if (measured) return measuredProjections(measured);
 	const ages = [
 		...HEADLINE_AGES_YEARS,
 		...(input.ageAtSurveyYears === null ? [] : [input.ageAtSurveyYears])
@@ -108,9 +176,7 @@ function projections(input: PopulationRiskInput, assessment: PopulationAssessmen
 		...options,
 		years: curveAges(input.designLifeYears)
 	});
-	const labels = ages.map((y, i) =>
-		i < HEADLINE_AGES_YEARS.length ? `${y} years` : `at the survey (${y} years)`
-	);
+	const labels = headlineLabels(ages);
 	return {
 		atAges: headline.atAges.map((a, i) => ({ ...slim(a), label: labels[i] })),
 		atDesignLife: slim(headline.designLife),
@@ -122,7 +188,8 @@ function projections(input: PopulationRiskInput, assessment: PopulationAssessmen
 /** The risk of one population. Cost: two engine calls (closed form, or seeded Monte Carlo). */
 export function populationRisk(input: PopulationRiskInput): PopulationRisk {
 	const a = input.assessment;
-	const projected = a ? projections(input, a) : null;
+	const measured = a && input.sortedCoversMm.length > 0 ? measuredOf(input) : null;
+	const projected = a ? projections(input, a, measured) : null;
 	const now = projected && input.ageAtSurveyYears !== null ? projected.atAges.at(-1)! : null;
 	const firstMiss = projected?.curve.find((p) => !p.meetsTarget)?.years ?? null;
 	const judged = riskLevel({
@@ -154,6 +221,7 @@ export function populationRisk(input: PopulationRiskInput): PopulationRisk {
 		atDesignLife: projected?.atDesignLife ?? null,
 		curve: projected?.curve ?? [],
 		firstAgeMissingTarget: firstMiss,
+		measured,
 		...judged
 	};
 }

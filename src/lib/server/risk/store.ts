@@ -5,12 +5,33 @@
 import { createHash } from 'node:crypto';
 import { error } from '@sveltejs/kit';
 import type { Transaction } from 'sequelize';
-import { db, Assessment, AssessmentRisk, Member } from '$lib/server/db';
+import {
+	db,
+	Assessment,
+	AssessmentRisk,
+	CarbonationTest,
+	ChlorideIncrement,
+	ChlorideProfile,
+	Member
+} from '$lib/server/db';
+import {
+	carbonationDepths,
+	concreteAgeYears,
+	conversionNote,
+	percentOfBinder
+} from '$lib/intake/measurements';
 import { readCoverSets } from '$lib/server/readings/coverSets';
 import { recordAudit } from '$lib/server/audit';
 import type { Actor } from '$lib/server/policy';
 import { visibleAsset } from './access';
-import { buildAnnex, ReadingsChangedError, type MemberData, type RiskAnnex } from './annex';
+import {
+	buildAnnex,
+	measurementKey,
+	ReadingsChangedError,
+	type MemberData,
+	type RiskAnnex
+} from './annex';
+import type { PopulationMeasurements } from './measured';
 import type { DurabilityParameters } from './parameters';
 import { fromSnapshot, type SnapshotLike } from './source';
 
@@ -37,12 +58,87 @@ export async function memberData(memberIds: readonly number[]): Promise<Map<numb
 	);
 }
 
+function groupOf(groups: Map<string, PopulationMeasurements>, member: Member) {
+	const key = measurementKey(member.memberType, member.exposureClass);
+	let group = groups.get(key);
+	if (!group) groups.set(key, (group = { carbonation: [], chloride: [] }));
+	return group;
+}
+
+/**
+ * The asset's carbonation tests and chloride profiles, grouped by member type and exposure
+ * class (the populations' key), with each test's age from the year of construction and the
+ * profiles' contents converted to % by mass of binder. Nothing without a construction year: the
+ * age at testing is then unknown.
+ */
+export async function assetMeasurements(
+	assetId: number,
+	yearOfConstruction: number | null
+): Promise<Map<string, PopulationMeasurements>> {
+	const groups = new Map<string, PopulationMeasurements>();
+	if (yearOfConstruction === null) return groups;
+	const members = await Member.findAll({
+		attributes: ['id', 'label', 'memberType', 'exposureClass'],
+		where: { assetId }
+	});
+	const byId = new Map(members.map((m) => [m.id, m]));
+	const ids = members.map((m) => m.id);
+	const [tests, profiles] = await Promise.all([
+		CarbonationTest.findAll({ where: { memberId: ids }, order: [['id', 'ASC']] }),
+		ChlorideProfile.findAll({
+			where: { memberId: ids },
+			include: [{ model: ChlorideIncrement, as: 'increments' }],
+			order: [['id', 'ASC']]
+		})
+	]);
+	for (const t of tests) {
+		const member = byId.get(t.memberId)!;
+		const depths = carbonationDepths(t);
+		groupOf(groups, member).carbonation.push({
+			memberLabel: member.label,
+			label: t.label,
+			testedOn: t.testedOn,
+			ageYears: concreteAgeYears(yearOfConstruction, t.testedOn),
+			depthsMm: t.depthsMm.length ? t.depthsMm : [depths.meanMm],
+			minMm: depths.minMm,
+			maxMm: depths.maxMm
+		});
+	}
+	for (const p of profiles) {
+		const member = byId.get(p.memberId)!;
+		const increments = [...(p.increments ?? [])].sort((a, b) => a.position - b.position);
+		groupOf(groups, member).chloride.push({
+			memberLabel: member.label,
+			label: p.label,
+			testedOn: p.testedOn,
+			ageYears: concreteAgeYears(yearOfConstruction, p.testedOn),
+			initialContent:
+				p.initialContentPercent === null ? null : percentOfBinder(p.initialContentPercent, p),
+			conversion: conversionNote(p),
+			increments: increments.map((i) => ({
+				fromMm: i.fromMm,
+				toMm: i.toMm,
+				content: percentOfBinder(i.chloridePercent, p),
+				outermost: Boolean(i.outermost)
+			}))
+		});
+	}
+	return groups;
+}
+
+/**
+ * The annex of a snapshot: covers from the cover sets, and the asset's measurements as they
+ * are now — kept in the annex, so the approved assessment shows them as they were.
+ */
 export async function annexFor(
 	snapshot: SnapshotLike,
 	entered: DurabilityParameters
 ): Promise<RiskAnnex> {
-	const data = await memberData(snapshot.populations.flatMap((p) => p.members.map((m) => m.id)));
-	return buildAnnex(snapshot, data, entered);
+	const [data, measurements] = await Promise.all([
+		memberData(snapshot.populations.flatMap((p) => p.members.map((m) => m.id))),
+		assetMeasurements(snapshot.asset.id, snapshot.asset.yearOfConstruction)
+	]);
+	return buildAnnex(snapshot, data, entered, measurements);
 }
 
 const sha256 = (text: string) => createHash('sha256').update(text, 'utf8').digest('hex');
