@@ -1,16 +1,44 @@
 /**
  * Share depassivated against age, one line per part of the structure, the design life marked:
  * one configuration for the owner's pages and the report, so a part keeps its colour and dash.
- * Series come in the order the owner reads them (worst first), in both places.
+ * Series come in the order the owner reads them (worst first), in both places. A part projected
+ * from measured fronts has its bootstrap band drawn as a shaded area about its line (two
+ * unlabelled datasets, the upper filled down to the lower; chart.js's Filler must be registered).
  */
-import type { ChartConfiguration, Plugin } from 'chart.js';
+import type { ChartConfiguration, ChartDataset, Plugin } from 'chart.js';
 import type { ChartLook } from './histogram';
 import { PAGE_LOOK } from './histogram';
 import { AXIS_TEXT, seriesColour, seriesDash } from './palette';
 
 export interface RiskSeries {
 	label: string;
-	curve: { years: number; share: number }[];
+	/** low/high: the band (5 % and 95 %) where the projection comes from measured fronts. */
+	curve: { years: number; share: number; low?: number; high?: number }[];
+}
+
+/** Marks the band's datasets, so the legend leaves them out. */
+export const BAND_SUFFIX = ' · band';
+
+/** Hex colour with an alpha (the palette gives #rrggbb). */
+const translucent = (hex: string, alpha: number) =>
+	`${hex}${Math.round(alpha * 255)
+		.toString(16)
+		.padStart(2, '0')}`;
+
+function bandDatasets(s: RiskSeries, i: number): ChartDataset<'line'>[] {
+	if (!s.curve.some((c) => c.low !== undefined && c.high !== undefined)) return [];
+	const edge = (pick: (c: RiskSeries['curve'][number]) => number | undefined) =>
+		s.curve.map((c) => ({ x: c.years, y: (pick(c) ?? c.share) * 100 }));
+	const common = {
+		borderWidth: 0,
+		pointRadius: 0,
+		borderColor: translucent(seriesColour(i), 0),
+		backgroundColor: translucent(seriesColour(i), 0.18)
+	};
+	return [
+		{ ...common, label: `${s.label} 5 %${BAND_SUFFIX}`, data: edge((c) => c.low), fill: false },
+		{ ...common, label: `${s.label} 95 %${BAND_SUFFIX}`, data: edge((c) => c.high), fill: '-1' }
+	];
 }
 
 /** A labelled dashed vertical line at the design life. */
@@ -49,15 +77,19 @@ export function riskCurveConfig(
 	return {
 		type: 'line',
 		data: {
-			datasets: series.map((s, i) => ({
-				label: s.label,
-				data: s.curve.map((c) => ({ x: c.years, y: c.share * 100 })),
-				borderColor: seriesColour(i),
-				backgroundColor: seriesColour(i),
-				borderDash: seriesDash(i),
-				borderWidth: look.fontSize > 14 ? 3 : 2,
-				pointRadius: look.fontSize > 14 ? 0 : 2
-			}))
+			datasets: series.flatMap((s, i) => [
+				{
+					label: s.label,
+					data: s.curve.map((c) => ({ x: c.years, y: c.share * 100 })),
+					borderColor: seriesColour(i),
+					backgroundColor: seriesColour(i),
+					borderDash: seriesDash(i),
+					borderWidth: look.fontSize > 14 ? 3 : 2,
+					pointRadius: look.fontSize > 14 ? 0 : 2,
+					fill: false
+				},
+				...bandDatasets(s, i)
+			])
 		},
 		options: {
 			animation: false,
@@ -75,7 +107,15 @@ export function riskCurveConfig(
 					ticks: { color: AXIS_TEXT, font }
 				}
 			},
-			plugins: { legend: { labels: { color: AXIS_TEXT, font } } }
+			plugins: {
+				legend: {
+					labels: {
+						color: AXIS_TEXT,
+						font,
+						filter: (item) => !item.text.endsWith(BAND_SUFFIX)
+					}
+				}
+			}
 		},
 		plugins: [designLifeLine(designLifeYears, look.fontSize)]
 	};

@@ -103,8 +103,9 @@ export class ReportWriter {
 		this.doc.moveDown(0.6);
 	}
 
-	image(png: Buffer, alt: string): void {
-		const height = this.width * (420 / 900);
+	/** A chart image across the text width; `aspect` is its height over its width in pixels. */
+	image(png: Buffer, alt: string, aspect = 420 / 900): void {
+		const height = this.width * aspect;
 		this.ensureSpace(height + 24);
 		this.doc.image(png, MARGIN, this.doc.y, { width: this.width });
 		this.doc.y += height + 4;

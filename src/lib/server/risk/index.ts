@@ -3,6 +3,8 @@ export * from './levels';
 export * from './parameters';
 export * from './model';
 export * from './compute';
+export * from './measured';
+export { measuredProvenance, sensitivityWords } from './measuredProvenance';
 export * from './annex';
 export * from './summary';
 export * from './source';

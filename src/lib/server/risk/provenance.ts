@@ -3,8 +3,9 @@
  * value and whether it was measured, fitted or assumed, with its source. The stored parameters
  * carry no mark of who set them, so a value equal to the class default is read as the default
  * (assumed, with the default's source) and any other value as the engineer's own entry
- * (assumed by the engineer). Measured carbonation depths and chloride profiles are kept with
- * the survey; until a projection is made from them, every input here is assumed.
+ * (assumed by the engineer). A population projected from measured fronts has its own rows
+ * (measuredProvenance.ts): the tests with their number and locations, the fitted values with
+ * their standard errors, and what stays assumed (C_crit, the ageing exponent).
  */
 import type { ExposureParameters } from './parameters';
 import { CARBONATION_DEFAULTS, CHLORIDE_DEFAULTS, type SourcedValue } from './parameters';
@@ -12,6 +13,8 @@ import { CARBONATION_DEFAULTS, CHLORIDE_DEFAULTS, type SourcedValue } from './pa
 export type InputBasis = 'measured' | 'fitted' | 'assumed';
 
 export interface InputProvenance {
+	/** The parts of the structure the row applies to. */
+	part: string;
 	exposureClass: string;
 	input: string;
 	value: string;
@@ -27,7 +30,7 @@ function row(
 	value: number,
 	unit: string,
 	fallback: SourcedValue | undefined
-): InputProvenance {
+): Omit<InputProvenance, 'part'> {
 	const isDefault = fallback !== undefined && fallback.value === value;
 	return {
 		exposureClass,
@@ -41,8 +44,16 @@ function row(
 /** The inputs of one exposure class's model, each with its basis and source. */
 export function parameterProvenance(
 	exposureClass: string,
-	p: ExposureParameters
+	p: ExposureParameters,
+	part = `all parts in ${exposureClass}`
 ): InputProvenance[] {
+	return assumedRows(exposureClass, p).map((r) => ({ part, ...r }));
+}
+
+function assumedRows(
+	exposureClass: string,
+	p: ExposureParameters
+): Omit<InputProvenance, 'part'>[] {
 	if (p.kind === 'carbonation') {
 		const d = CARBONATION_DEFAULTS[exposureClass];
 		return [
@@ -92,14 +103,39 @@ export function indicativeWords(kind: ExposureParameters['kind']): string {
 export function verdictAndRiskWords(
 	verdict: 'pass' | 'fail' | 'not-enough-data' | null,
 	level: string,
-	kind: ExposureParameters['kind'] | null
+	kind: ExposureParameters['kind'] | null,
+	measured: { now: number | null; atDesignLife: number; locations: number } | null = null
 ): string | null {
 	const agent = kind === 'chloride' ? 'chlorides' : 'carbonation';
+	if (measured) return measuredVerdictWords(verdict, level, kind, measured);
 	if (verdict === 'pass' && (level === 'act-now' || level === 'plan-repairs')) {
 		return `The cover meets its specification, yet the ${agent} front is projected to reach the steel: the specified cover may be too little for this exposure, or the assumed ${agent} figures are too pessimistic — measure them before acting.`;
 	}
 	if (verdict === 'fail' && (level === 'low-concern' || level === 'keep-watching')) {
 		return `The cover falls short of its specification, but the ${agent} front is not projected to reach the steel within the design life: the shortfall matters less here than the rules assume, if the assumed figures hold.`;
+	}
+	return null;
+}
+
+const pc = (share: number) => `${(share * 100).toFixed(share < 0.1 ? 1 : 0)} %`;
+
+/** The same sentence where the projection rests on fronts measured on the structure. */
+function measuredVerdictWords(
+	verdict: 'pass' | 'fail' | 'not-enough-data' | null,
+	level: string,
+	kind: ExposureParameters['kind'] | null,
+	m: { now: number | null; atDesignLife: number; locations: number }
+): string | null {
+	const front =
+		kind === 'chloride'
+			? `the chloride front fitted to the ${m.locations} profiles taken here`
+			: `the carbonation front measured at ${m.locations} locations here`;
+	const already = m.now !== null && m.now > 0 ? ` (${pc(m.now)} already)` : '';
+	if (verdict === 'pass' && (level === 'act-now' || level === 'plan-repairs')) {
+		return `The cover meets its specification, yet ${front} passes the cover of ${pc(m.atDesignLife)} of the readings by the design life${already}: the specified cover is too little for what was measured on this structure.`;
+	}
+	if (verdict === 'fail' && (level === 'low-concern' || level === 'keep-watching')) {
+		return `The cover falls short of its specification, but ${front} is not projected to reach the steel within the design life: the shortfall matters less here than the rules assume.`;
 	}
 	return null;
 }

@@ -5,7 +5,14 @@ import { authorize, can } from '$lib/server/policy';
 import { pathId, visibleAsset } from '$lib/server/populations';
 import { approve, getAssessment, mayApprove, withSnapshot } from '$lib/server/assessments';
 import type { AssessmentSnapshot } from '$lib/server/assessments/snapshot';
-import { durabilityFieldGroups, loadAnnex, readDurabilityForm, saveRisk } from '$lib/server/risk';
+import {
+	assessedSource,
+	durabilityFieldGroups,
+	loadAnnex,
+	readDurabilityForm,
+	saveRisk,
+	toRiskView
+} from '$lib/server/risk';
 
 const exposureClassesOf = (snapshot: AssessmentSnapshot) => [
 	...new Set(snapshot.populations.map((p) => p.key.exposureClass))
@@ -19,6 +26,8 @@ export const load: PageServerLoad = async (event) => {
 	const annex = await loadAnnex(row.id);
 	return {
 		assessment,
+		// The risk as the owner will see it: from the annex kept with this assessment.
+		risk: toRiskView(await assessedSource(row)),
 		canApprove: access === 'own' && can(actor.role, 'assessment:approve'),
 		// The preparer of a draft, where a second engineer must approve: told so, not offered it.
 		secondApproverNeeded:

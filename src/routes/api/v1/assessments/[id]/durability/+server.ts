@@ -5,11 +5,13 @@ import { Assessment } from '$lib/server/db';
 import { apiError, readJson } from '$lib/server/http';
 import { authorize } from '$lib/server/policy';
 import {
+	assessedSource,
 	CARBONATION_DEFAULTS,
 	CHLORIDE_DEFAULTS,
 	durabilityParametersSchema,
 	loadAnnex,
 	saveRisk,
+	toRiskView,
 	visibleAsset
 } from '$lib/server/risk';
 
@@ -22,11 +24,14 @@ function assessmentId(raw: string): number {
 	return parsed.data;
 }
 
-/** The parameters kept with an assessment (or none yet), and the stated defaults with sources. */
+/**
+ * The parameters kept with an assessment (or none yet), its populations' risk (measured fronts
+ * where there are some), the risk view with every input's provenance, and the stated defaults.
+ */
 export const GET: RequestHandler = async ({ locals, params }) => {
 	const actor = authorize(locals, 'assessment:read');
 	const id = assessmentId(params.id);
-	const row = await Assessment.findByPk(id, { attributes: ['id', 'assetId', 'state'] });
+	const row = await Assessment.findByPk(id);
 	if (!row) apiError(404, 'not_found', 'No such assessment.');
 	const { own } = await visibleAsset(actor, row.assetId, 'No such assessment.');
 	if (row.state === 'draft' && !own) apiError(404, 'not_found', 'No such assessment.');
@@ -34,6 +39,7 @@ export const GET: RequestHandler = async ({ locals, params }) => {
 	return json({
 		parameters: annex?.parameters ?? null,
 		populations: annex?.populations ?? null,
+		risk: annex ? toRiskView(await assessedSource(row)) : null,
 		defaults: { carbonation: CARBONATION_DEFAULTS, chloride: CHLORIDE_DEFAULTS }
 	});
 };
