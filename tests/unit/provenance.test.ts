@@ -49,4 +49,17 @@ describe('what a projection rests on', () => {
 		expect(verdictAndRiskWords('fail', 'act-now', 'chloride')).toBeNull();
 		expect(verdictAndRiskWords('pass', 'low-concern', 'chloride')).toBeNull();
 	});
+
+	it('says what was measured where cover complies but the measured front has reached bars (and the reverse)', () => {
+		const measured = { now: 0.51, atDesignLife: 0.86, locations: 6 };
+		expect(verdictAndRiskWords('pass', 'act-now', 'chloride', measured)).toBe(
+			'The cover meets its specification, yet the chloride front fitted to the 6 profiles taken here passes the cover of 86 % of the readings by the design life (51 % already): the specified cover is too little for what was measured on this structure.'
+		);
+		expect(
+			verdictAndRiskWords('fail', 'keep-watching', 'carbonation', { ...measured, locations: 3 })
+		).toMatch(
+			/falls short of its specification, but the carbonation front measured at 3 locations/
+		);
+		expect(verdictAndRiskWords('pass', 'low-concern', 'chloride', measured)).toBeNull();
+	});
 });
