@@ -43,11 +43,17 @@ describe('the owner’s portfolio', () => {
 		expect(html).toContain('The same figures as a table');
 		expect(html).toContain('Break out and test chloride profiles');
 		expect(html).not.toContain('Send by e-mail');
-		// Every projection input with its basis; on defaults alone the projection is indicative.
+		// Every projection input with its basis: the decks and columns rest on their chloride
+		// profiles (fitted, measured), the slab on defaults alone, so it alone is indicative.
 		expect(html).toContain('What the projections rest on');
+		expect(html).toContain('data-basis="fitted"');
+		expect(html).toContain('data-basis="measured"');
 		expect(html).toContain('data-basis="assumed"');
 		expect(html).toContain('Default: From memory');
-		expect(html).toContain('Indicative: assumed, not measured. Take chloride samples');
+		expect(html).toContain('Measured: from 6 fitted chloride profiles');
+		expect(html).toContain('Most telling input:');
+		expect(html).toContain('Indicative: assumed, not measured. Measure carbonation depths');
+		expect(html).not.toContain('Indicative: assumed, not measured. Take chloride samples');
 	});
 
 	it('shows an owner of another organisation nothing (404)', async () => {

@@ -103,9 +103,21 @@ describe('the report PDF of the demo car-park assessment', () => {
 		const t = text(first);
 		expect(t).toContain('What the projections rest on');
 		const table = t.slice(t.indexOf('What the projections rest on'));
-		for (const words of ['Apparent diffusion', '1e-12 m²/s', 'assumed', 'Default:'])
+		for (const words of ['Apparent diffusion', 'fitted', 'measured', 'assumed', 'Default:'])
 			expect(table).toContain(words);
-		expect(t).toContain('Indicative: assumed, not measured.');
+		// The deck's inputs are fitted to its six profiles; the slab's are assumed, so indicative.
+		expect(table).toMatch(/Mean of 6 fitted\s+profiles/);
+		expect(t).toContain('Indicative: assumed, not measured. Measure carbonation depths');
+	});
+
+	it('draws each chloride profile with its fit, and the band of a measured projection', () => {
+		const t = text(first);
+		expect(t).toContain('Chloride profiles');
+		for (const label of ['CP-01', 'CP-02', 'CP-03', 'CP-04', 'CP-05', 'CP-06', 'CP-07', 'CP-08'])
+			expect(t).toMatch(new RegExp(`${label} \\(L2-[A-Z0-9-]+\\): C_s`));
+		expect(t).toContain('is marked with a cross');
+		expect(t).toMatch(/band \d+(\.\d)? %–\d+(\.\d)? %/);
+		expect(t).toContain('cover is less than the depth the front has reached');
 	});
 
 	it('lists the surveys with their states and a signatory block', () => {

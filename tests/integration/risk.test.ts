@@ -2,12 +2,17 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { Sequelize } from 'sequelize';
 import {
 	depassivationAssessment,
-	fitNormal,
-	m2PerSToMm2PerYear,
+	fitChlorideProfile,
+	measuredDepassivation,
 	toSortedCovers
 } from '../../src/lib/analysis';
+import { concreteAgeYears } from '../../src/lib/intake/measurements';
 import { AssessmentRisk, type Assessment } from '../../src/lib/server/db/models';
-import { CHLORIDE_DEFAULTS, SIMULATION } from '../../src/lib/server/risk/parameters';
+import {
+	CARBONATION_DEFAULTS,
+	CHLORIDE_DEFAULTS,
+	SIMULATION
+} from '../../src/lib/server/risk/parameters';
 import { testSequelize } from '../helpers/database';
 import { approveDirectly, coversByMember, insertDraft } from '../helpers/assessments';
 import { signInAs, type HttpClient } from '../helpers/session';
@@ -17,8 +22,21 @@ interface RiskJson {
 	n: number;
 	level: string;
 	reason: string;
-	atDesignLife: { modelProbability: number; empiricalShare: number; reliabilityIndex: number };
+	atDesignLife: {
+		modelProbability: number;
+		empiricalShare: number;
+		reliabilityIndex: number;
+		method: string;
+		band: { low: number; high: number };
+	};
 	atAges: { years: number; modelProbability: number }[];
+	measured: { kind: string; locations: unknown[] } | null;
+}
+
+interface ApiProfile {
+	testedOn: string;
+	initialContentPercent: number | null;
+	increments: { fromMm: number; toMm: number; percentOfBinder: number; outermost: boolean }[];
 }
 
 describe('risk of an assessment: durability parameters and the engine', () => {
@@ -41,37 +59,77 @@ describe('risk of an assessment: durability parameters and the engine', () => {
 		await sequelize.close();
 	});
 
-	it('gives the engine’s figures for the car-park deck (XD3, chloride defaults)', async () => {
-		const deck = risks.find((r) => r.populationId === 'deck|XD3')!;
-		const snapshot = JSON.parse(draft.snapshot);
-		const population = snapshot.populations.find((p: { id: string }) => p.id === 'deck|XD3');
-		const covers = await coversByMember(population.members.map((m: { id: number }) => m.id));
-		const sorted = toSortedCovers([...covers.values()].flat());
-		const d = CHLORIDE_DEFAULTS.XD3;
+	const snapshotPopulation = (id: string) =>
+		JSON.parse(draft.snapshot).populations.find((p: { id: string }) => p.id === id);
+	const coversOf = async (population: { members: { id: number }[] }) =>
+		toSortedCovers(
+			[...(await coversByMember(population.members.map((m) => m.id))).values()].flat()
+		);
+
+	it('gives the engine’s figures for a part on assumed inputs (slab, XC3 carbonation defaults)', async () => {
+		const slab = risks.find((r) => r.populationId === 'slab|XC3')!;
+		const population = snapshotPopulation('slab|XC3');
+		const sorted = await coversOf(population);
+		const chosen = population.assessment.models[population.assessment.chosenModel];
+		const d = CARBONATION_DEFAULTS.XC3;
 		const engine = depassivationAssessment(
 			sorted,
-			fitNormal(sorted),
-			{
-				kind: 'chloride',
-				chloride: {
-					surfaceContent: d.surfaceContent.value,
-					initialContent: d.initialContent.value,
-					criticalContent: d.criticalContent.value,
-					dRefMm2PerYear: m2PerSToMm2PerYear(d.dM2PerS.value),
-					ageingExponent: 0
-				},
-				dCov: d.dCov.value
-			},
+			{ model: chosen.model, location: chosen.location, scale: chosen.scale },
+			{ kind: 'carbonation', kMmPerSqrtYear: d.k.value, depthCov: d.depthCov.value },
 			{ years: [10, 25, 50], designLifeYears: 50, ...SIMULATION }
 		);
-		expect(population.assessment.chosenModel).toBe('normal');
-		expect(deck.n).toBe(sorted.length);
-		expect(deck.atDesignLife.modelProbability).toBe(engine.designLife.modelProbability);
-		expect(deck.atDesignLife.empiricalShare).toBe(engine.designLife.empiricalShare);
-		expect(deck.atDesignLife.reliabilityIndex).toBe(engine.designLife.reliabilityIndex);
-		expect(deck.atAges.slice(0, 3).map((a) => a.modelProbability)).toEqual(
+		expect(slab.n).toBe(sorted.length);
+		expect(slab.measured).toBeNull();
+		expect(slab.atDesignLife.modelProbability).toBe(engine.designLife.modelProbability);
+		expect(slab.atDesignLife.empiricalShare).toBe(engine.designLife.empiricalShare);
+		expect(slab.atDesignLife.reliabilityIndex).toBe(engine.designLife.reliabilityIndex);
+		expect(slab.atAges.slice(0, 3).map((a) => a.modelProbability)).toEqual(
 			engine.atAges.map((a) => a.modelProbability)
 		);
+	});
+
+	it('gives the engine’s figures for the car-park deck from its measured chloride profiles', async () => {
+		const deck = risks.find((r) => r.populationId === 'deck|XD3')!;
+		const snapshot = JSON.parse(draft.snapshot);
+		const population = snapshotPopulation('deck|XD3');
+		const sorted = await coversOf(population);
+		// The profiles as the API gives them, contents in % of binder, fitted by the engine.
+		const fits = [];
+		for (const member of population.members) {
+			const response = await engineer.get(`/api/v1/members/${member.id}/chloride-profiles`);
+			expect(response.status).toBe(200);
+			for (const p of (await response.json()).chlorideProfiles as ApiProfile[])
+				fits.push(
+					fitChlorideProfile(
+						{
+							ageYears: concreteAgeYears(snapshot.asset.yearOfConstruction, p.testedOn),
+							increments: p.increments.map((i) => ({
+								fromMm: i.fromMm,
+								toMm: i.toMm,
+								content: i.percentOfBinder,
+								outermost: i.outermost
+							})),
+							...(p.initialContentPercent === null
+								? {}
+								: { initialContent: p.initialContentPercent })
+						},
+						{ initialContent: CHLORIDE_DEFAULTS.XD3.initialContent.value }
+					)
+				);
+		}
+		expect(fits).toHaveLength(6);
+		const front = {
+			kind: 'chloride' as const,
+			fits,
+			criticalContent: CHLORIDE_DEFAULTS.XD3.criticalContent.value
+		};
+		const atLife = measuredDepassivation(sorted, front, 50);
+		expect(deck.measured?.kind).toBe('chloride');
+		expect(deck.measured?.locations).toHaveLength(6);
+		expect(deck.atDesignLife.method).toBe('measured-front');
+		expect(deck.atDesignLife.modelProbability).toBeCloseTo(atLife.share, 12);
+		expect(deck.atDesignLife.band.low).toBeLessThanOrEqual(atLife.share);
+		expect(deck.atDesignLife.band.high).toBeGreaterThanOrEqual(atLife.share);
 		expect(deck.level).toBe('act-now');
 		expect(deck.reason).toMatch(/lost its protection/);
 	});
