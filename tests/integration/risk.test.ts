@@ -7,7 +7,12 @@ import {
 	toSortedCovers
 } from '../../src/lib/analysis';
 import { concreteAgeYears } from '../../src/lib/intake/measurements';
-import { AssessmentRisk, type Assessment } from '../../src/lib/server/db/models';
+import {
+	AssessmentRisk,
+	ChlorideIncrement,
+	ChlorideProfile,
+	type Assessment
+} from '../../src/lib/server/db/models';
 import {
 	CARBONATION_DEFAULTS,
 	CHLORIDE_DEFAULTS,
@@ -160,5 +165,43 @@ describe('risk of an assessment: durability parameters and the engine', () => {
 		const row = (await AssessmentRisk.findOne({ where: { assessmentId: draft.id } }))!;
 		await expect(row.update({ annex: '{}' })).rejects.toThrow(/cannot be changed/);
 		await expect(row.destroy()).rejects.toThrow(/cannot be changed/);
+	});
+
+	it('keeps the measured fronts it was computed with: a profile recorded later changes nothing of the approved assessment', async () => {
+		const deckMember = snapshotPopulation('deck|XD3').members[0].id;
+		const before = await (await engineer.get(`/api/v1/assessments/${draft.id}/durability`)).json();
+		const profile = await ChlorideProfile.create({
+			memberId: deckMember,
+			label: `LATE-${Date.now()}`,
+			xMm: null,
+			yMm: null,
+			testedOn: '2026-11-30',
+			basis: 'binder',
+			binderContentKgM3: null,
+			concreteDensityKgM3: null,
+			initialContentPercent: 0.05,
+			method: null,
+			notes: null
+		});
+		await ChlorideIncrement.bulkCreate(
+			[4.0, 3.5, 3.0, 2.5].map((c, i) => ({
+				profileId: profile.id,
+				position: i + 1,
+				fromMm: 10 * i,
+				toMm: 10 * i + 10,
+				chloridePercent: c,
+				outermost: i === 0
+			}))
+		);
+		try {
+			const after = await (await engineer.get(`/api/v1/assessments/${draft.id}/durability`)).json();
+			expect(after.populations).toEqual(before.populations);
+			const deck = after.populations.find((p: RiskJson) => p.populationId === 'deck|XD3');
+			expect(deck.measured.locations).toHaveLength(6);
+			expect(after.risk.provenance.some((r: { basis: string }) => r.basis === 'fitted')).toBe(true);
+		} finally {
+			await ChlorideIncrement.destroy({ where: { profileId: profile.id } });
+			await profile.destroy();
+		}
 	});
 });
