@@ -21,6 +21,11 @@ export { readingsForRule, type Discrimination, type RuleReadings } from './requi
 export { simulateRuleSetOc, type SimulatedPoint } from './simulate';
 export {
 	planPopulation,
+	draftPlan,
+	simulatePoint,
+	completePlan,
+	SIMULATION_READINGS_PER_POINT,
+	type PlanDraft,
 	type Criterion,
 	type OcCurve,
 	type PlanSettings,

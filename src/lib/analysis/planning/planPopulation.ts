@@ -11,7 +11,7 @@ import type { RuleId } from '../rules/ruleTypes';
 import { EXACT_OC, ruleOc, type OcMethod, type RuleOcSettings } from './operatingCharacteristic';
 import { characteristicPenaltyMm, readingsForPenalty } from './penalty';
 import { readingsForRule, type Discrimination } from './requiredReadings';
-import { simulateRuleSetOc } from './simulate';
+import { simulateRuleSetOc, type SimulatedPoint } from './simulate';
 
 export interface PlanSettings extends Discrimination {
 	ruleSet: RuleSetName;
@@ -138,31 +138,21 @@ function criteriaOf(settings: PlanSettings, population: PopulationToPlan, s: Rul
 	return criteria;
 }
 
-/**
- * Plan one population. Exact curves for each rule with one (binomial for the attribute rules,
- * noncentral t for the characteristic rule, normal model), and the whole rule set by seeded
- * simulation of the population assessment. Cost: dominated by the simulation,
- * replicates × 13 assessments of n readings.
- */
-export function planPopulation(
-	settings: PlanSettings,
-	population: PopulationToPlan
-): PopulationPlan {
-	if (!(population.memberCount >= 1)) throw new Error('planPopulation needs at least 1 member');
-	const s = ocSettings(settings, population);
-	const criteria = criteriaOf(settings, population, s);
-	const withN = criteria.filter((c) => c.n !== null);
-	const top = withN.reduce<Criterion | null>((a, c) => (a === null || c.n! > a.n! ? c : a), null);
-	const governing = top
-		? { n: top.n!, criterion: top.id }
-		: { n: 2, criterion: 'minimum-sample' as const };
-	const perMember = Math.ceil(governing.n / population.memberCount);
-	const total = perMember * population.memberCount;
-	const exactGrid = [0, ...ocGrid(settings.p1, 40)];
+/** Readings drawn per simulated point at most: replicates × n is capped so one point stays short. */
+export const SIMULATION_READINGS_PER_POINT = 100_000;
+
+/** The plan without the simulation, and what the simulation is to do. */
+export interface PlanDraft {
+	plan: Omit<PopulationPlan, 'atP0' | 'atP1'>;
+	simulation: { n: number; ps: number[]; replicates: number; seed: number };
+}
+
+function exactCurves(criteria: Criterion[], total: number, p1: number, s: RuleOcSettings) {
+	const grid = [0, ...ocGrid(p1, 40)];
 	const curves: OcCurve[] = [];
 	for (const c of criteria) {
 		if (c.id === 'penalty' || c.id === 'minimum-sample') continue;
-		const points = exactGrid.map((p) => ({ p, accept: ruleOc(c.id as RuleId, total, p, s) }));
+		const points = grid.map((p) => ({ p, accept: ruleOc(c.id as RuleId, total, p, s) }));
 		if (points.some((pt) => pt.accept === null)) continue;
 		curves.push({
 			id: c.id,
@@ -171,7 +161,68 @@ export function planPopulation(
 			points: points as { p: number; accept: number }[]
 		});
 	}
-	const simGrid = [settings.p0, ...ocGrid(settings.p1, 12), settings.p1].sort((a, b) => a - b);
+	return curves;
+}
+
+/**
+ * Everything of a plan but the simulated curve: the criteria and their n, the governing n, its
+ * split over the members and the exact curves. Fast (bisections and exact CDFs).
+ */
+export function draftPlan(settings: PlanSettings, population: PopulationToPlan): PlanDraft {
+	if (!(population.memberCount >= 1)) throw new Error('planPopulation needs at least 1 member');
+	const s = ocSettings(settings, population);
+	const criteria = criteriaOf(settings, population, s);
+	const top = criteria.reduce<Criterion | null>(
+		(a, c) => (c.n !== null && (a === null || c.n > a.n!) ? c : a),
+		null
+	);
+	const governing = top
+		? { n: top.n!, criterion: top.id }
+		: { n: settings.minSampleSize, criterion: 'minimum-sample' as const };
+	const perMember = Math.ceil(governing.n / population.memberCount);
+	const total = perMember * population.memberCount;
+	const replicates = Math.max(
+		20,
+		Math.min(settings.replicates, Math.floor(SIMULATION_READINGS_PER_POINT / total))
+	);
+	return {
+		plan: {
+			memberType: population.memberType,
+			exposureClass: population.exposureClass,
+			sdMm: population.sdMm,
+			sdBasis: population.sdBasis,
+			cMinMm: population.requirement.cMinMm,
+			criteria,
+			governing,
+			penaltyAtNMm: characteristicPenaltyMm(
+				total,
+				population.sdMm,
+				settings.method,
+				settings.fractileP,
+				settings.confidence
+			),
+			memberCount: population.memberCount,
+			readingsPerMember: perMember,
+			totalReadings: total,
+			curves: exactCurves(criteria, total, settings.p1, s)
+		},
+		simulation: {
+			n: total,
+			ps: [settings.p0, ...ocGrid(settings.p1, 12), settings.p1].sort((a, b) => a - b),
+			replicates,
+			seed: settings.seed
+		}
+	};
+}
+
+/** One simulated point of a draft: point i draws from seed + i, so points can run apart. */
+export function simulatePoint(
+	settings: PlanSettings,
+	population: PopulationToPlan,
+	draft: PlanDraft,
+	i: number
+): SimulatedPoint {
+	const { n, ps, replicates, seed } = draft.simulation;
 	const options = {
 		ruleSet: settings.ruleSet,
 		characteristicMethod: settings.method,
@@ -180,42 +231,53 @@ export function planPopulation(
 		confidence: settings.confidence,
 		minSampleSize: settings.minSampleSize
 	};
-	const simulated = simulateRuleSetOc(
-		total,
-		simGrid,
+	return simulateRuleSetOc(
+		n,
+		[ps[i]],
 		population.sdMm,
 		population.requirement,
 		options,
-		settings.replicates,
-		settings.seed
-	);
-	curves.push({
+		replicates,
+		seed + i
+	)[0];
+}
+
+/** The draft with its simulated rule-set curve. */
+export function completePlan(
+	settings: PlanSettings,
+	draft: PlanDraft,
+	simulated: SimulatedPoint[]
+): PopulationPlan {
+	const at = (p: number) => simulated.find((pt) => pt.p === p)!.accept;
+	const curve: OcCurve = {
 		id: 'rule-set',
-		label: `Whole rule set (${settings.ruleSet})`,
+		label: `Whole rule set (${settings.ruleSet}), ${draft.simulation.replicates} draws a point`,
 		method: 'simulation',
 		points: simulated.map(({ p, accept }) => ({ p, accept }))
-	});
-	const at = (p: number) => simulated.find((pt) => pt.p === p)!.accept;
+	};
 	return {
-		memberType: population.memberType,
-		exposureClass: population.exposureClass,
-		sdMm: population.sdMm,
-		sdBasis: population.sdBasis,
-		cMinMm: population.requirement.cMinMm,
-		criteria,
-		governing,
-		penaltyAtNMm: characteristicPenaltyMm(
-			total,
-			population.sdMm,
-			settings.method,
-			settings.fractileP,
-			settings.confidence
-		),
-		memberCount: population.memberCount,
-		readingsPerMember: perMember,
-		totalReadings: total,
-		curves,
+		...draft.plan,
+		curves: [...draft.plan.curves, curve],
 		atP0: at(settings.p0),
 		atP1: at(settings.p1)
 	};
+}
+
+/**
+ * Plan one population. Exact curves for each rule with one (binomial for the attribute rules,
+ * noncentral t for the characteristic rule, normal model), and the whole rule set by seeded
+ * simulation of its verdict on normal draws. Cost: dominated by the simulation, 14 points of
+ * up to SIMULATION_READINGS_PER_POINT readings (≈ 0.2 s a point). A server calls draftPlan and
+ * simulatePoint itself to yield between points.
+ * @example planPopulation(settings, { memberType: 'slab', exposureClass: 'XC3', memberCount: 6, requirement, sdMm: 8, sdBasis: 'stated default' }).governing.n
+ */
+export function planPopulation(
+	settings: PlanSettings,
+	population: PopulationToPlan
+): PopulationPlan {
+	const draft = draftPlan(settings, population);
+	const simulated = draft.simulation.ps.map((_, i) =>
+		simulatePoint(settings, population, draft, i)
+	);
+	return completePlan(settings, draft, simulated);
 }
