@@ -252,3 +252,8 @@ export async function deleteSurveyPlan(actor: Actor, surveyId: number) {
 		return removed > 0;
 	});
 }
+
+/** Whether the survey has a saved plan (for a link to it). */
+export async function hasSurveyPlan(surveyId: number): Promise<boolean> {
+	return (await SurveyPlan.count({ where: { surveyId } })) > 0;
+}
