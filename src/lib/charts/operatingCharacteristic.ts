@@ -85,7 +85,13 @@ export function operatingCharacteristicConfig(
 					ticks: { color: AXIS_TEXT, font }
 				}
 			},
-			plugins: { legend: { position: 'bottom', labels: { color: AXIS_TEXT, font } } }
+			// A short line per series in the legend: a filled box would hide the dash pattern.
+			plugins: {
+				legend: {
+					position: 'bottom',
+					labels: { color: AXIS_TEXT, font, usePointStyle: true, pointStyle: 'line' }
+				}
+			}
 		},
 		plugins: [
 			shareLines(

@@ -80,7 +80,7 @@ function memberBlock(w: ReportWriter, m: SheetMember) {
 function summaryLines(plan: SurveyPlanView): string[] {
 	return plan.result.map(
 		(p) =>
-			`${p.memberType} × ${p.exposureClass}: ${p.totalReadings} readings = ${p.memberCount} members × ${p.readingsPerMember} (governed by ${p.governing.criterion}; expected SD ${p.sdMm.toFixed(1)} mm, ${p.sdBasis})`
+			`${p.memberType} × ${p.exposureClass}: ${p.totalReadings} readings = ${p.memberCount} member${p.memberCount === 1 ? '' : 's'} × ${p.readingsPerMember} (governed by ${p.governing.criterion}; expected SD ${p.sdMm.toFixed(1)} mm, ${p.sdBasis})`
 	);
 }
 
