@@ -50,6 +50,18 @@ const VALID = {
 		testedOn: '2026-01-01',
 		basis: 'binder',
 		increments: [{ fromMm: 0, toMm: 5, chloridePercent: 1 }]
+	},
+	plan: {
+		settings: { replicates: 20 },
+		populations: [{ memberType: 'slab', exposureClass: 'XC3', cMinMm: 25, cNomMm: 35 }]
+	},
+	planForm: {
+		memberType: 'slab',
+		exposureClass: 'XC3',
+		memberCount: '2',
+		cMinMm: '25',
+		cNomMm: '35',
+		replicates: '20'
 	}
 };
 
@@ -287,6 +299,18 @@ const ORG_ROUTES: Record<string, (v: OrganisationIds, own: OrganisationIds) => P
 	'/api/v1/surveys/[surveyId]': (v) => [
 		{ method: 'GET', path: `/api/v1/surveys/${v.surveyId}` },
 		{ method: 'PUT', path: `/api/v1/surveys/${v.surveyId}`, body: { title: 'Stolen survey' } }
+	],
+	'/api/v1/surveys/[surveyId]/plan': (v) => [
+		{ method: 'GET', path: `/api/v1/surveys/${v.surveyId}/plan` },
+		{ method: 'PUT', path: `/api/v1/surveys/${v.surveyId}/plan`, body: VALID.plan },
+		{ method: 'DELETE', path: `/api/v1/surveys/${v.surveyId}/plan` }
+	],
+	'/api/v1/surveys/[surveyId]/plan/site-sheet': (v) => [
+		{ method: 'GET', path: `/api/v1/surveys/${v.surveyId}/plan/site-sheet` }
+	],
+	'/surveys/[surveyId]/plan': (v) => [
+		{ method: 'GET', path: `/surveys/${v.surveyId}/plan` },
+		{ method: 'FORM', path: `/surveys/${v.surveyId}/plan?/save`, body: VALID.planForm }
 	],
 	'/api/v1/surveys/[surveyId]/attachments': (v) => [
 		{ method: 'GET', path: `/api/v1/surveys/${v.surveyId}/attachments` },

@@ -211,3 +211,4 @@ export {
 	type MemberCovers,
 	type MemberDifference
 } from './memberComparison';
+export * from './planning';

@@ -8,6 +8,7 @@ import { importEndpoints } from './importEndpoints';
 import { intakeRecordEndpoints } from './intakeRecordEndpoints';
 import { measurementEndpoints } from './measurementEndpoints';
 import { toOpenApiSchema, type JsonSchema } from './jsonSchema';
+import { planEndpoints } from './planEndpoints';
 import { populationEndpoints } from './populationEndpoints';
 import { researchEndpoints } from './researchEndpoints';
 import { surveyStateEndpoints } from './surveyStateEndpoints';
@@ -23,6 +24,7 @@ export const ENDPOINTS: Endpoint[] = [
 	// In the order a survey is taken in, which is the order the test calls them.
 	...intakeRecordEndpoints,
 	...measurementEndpoints,
+	...planEndpoints,
 	...importEndpoints,
 	...attachmentEndpoints,
 	...surveyStateEndpoints,

@@ -11,6 +11,7 @@ export type MediaType =
 	| 'application/json'
 	| 'text/csv'
 	| 'application/x-ndjson'
+	| 'application/pdf'
 	/** A stored file answered with its own type (an attachment). */
 	| '*/*';
 

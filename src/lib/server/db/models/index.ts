@@ -25,6 +25,7 @@ import { ResearchExport } from './ResearchExport';
 import { Session } from './Session';
 import { SignInThrottle } from './SignInThrottle';
 import { Survey } from './Survey';
+import { SurveyPlan } from './SurveyPlan';
 import { User } from './User';
 import { VerificationHole } from './VerificationHole';
 
@@ -55,6 +56,7 @@ export {
 	Session,
 	SignInThrottle,
 	Survey,
+	SurveyPlan,
 	User,
 	VerificationHole
 };
@@ -86,6 +88,7 @@ const allModels = [
 	Session,
 	SignInThrottle,
 	Survey,
+	SurveyPlan,
 	User,
 	VerificationHole
 ];
@@ -129,6 +132,8 @@ function associate(): void {
 	ChlorideProfile.belongsTo(Member, { foreignKey: 'memberId' });
 	ChlorideProfile.hasMany(ChlorideIncrement, { foreignKey: 'profileId', as: 'increments' });
 
+	Survey.hasOne(SurveyPlan, { foreignKey: 'surveyId' });
+	SurveyPlan.belongsTo(Survey, { foreignKey: 'surveyId' });
 	Survey.hasMany(ImportBatch, { foreignKey: 'surveyId' });
 	ImportBatch.belongsTo(Survey, { foreignKey: 'surveyId' });
 	ImportBatch.hasOne(ImportProgress, { foreignKey: 'importBatchId' });

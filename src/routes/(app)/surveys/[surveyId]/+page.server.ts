@@ -13,6 +13,7 @@ import { IMPORT_LIMITS } from '$lib/server/import/limits';
 import { actOr, loadOr404 } from '$lib/server/intake/pages';
 import { idParam } from '$lib/server/intake/respond';
 import { scopedSurvey } from '$lib/server/scope';
+import { hasSurveyPlan } from '$lib/server/planning/service';
 
 export const load: PageServerLoad = async (event) => {
 	const actor = pageActor(event, 'survey:read');
@@ -42,7 +43,9 @@ export const load: PageServerLoad = async (event) => {
 			importReadings: editable && can(actor.role, 'reading:import'),
 			upload: editable && can(actor.role, 'attachment:upload'),
 			submit: editable && can(actor.role, 'survey:submit'),
-			review: own && survey.status === 'submitted' && can(actor.role, 'survey:review')
+			review: own && survey.status === 'submitted' && can(actor.role, 'survey:review'),
+			// Planners plan; anyone who reads the survey sees a saved plan and its site sheet.
+			plan: (own && can(actor.role, 'survey:plan')) || (await hasSurveyPlan(surveyId))
 		}
 	};
 };
