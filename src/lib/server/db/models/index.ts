@@ -25,6 +25,7 @@ import { ResearchExport } from './ResearchExport';
 import { Session } from './Session';
 import { SignInThrottle } from './SignInThrottle';
 import { Survey } from './Survey';
+import { SyncBatch } from './SyncBatch';
 import { User } from './User';
 import { VerificationHole } from './VerificationHole';
 
@@ -55,6 +56,7 @@ export {
 	Session,
 	SignInThrottle,
 	Survey,
+	SyncBatch,
 	User,
 	VerificationHole
 };
@@ -86,6 +88,7 @@ const allModels = [
 	Session,
 	SignInThrottle,
 	Survey,
+	SyncBatch,
 	User,
 	VerificationHole
 ];
