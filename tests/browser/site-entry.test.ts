@@ -113,6 +113,7 @@ describe('on-site entry, offline and back (chromium, the built app)', () => {
 		await page.getByLabel('Caption').fill('Bay 3, soffit');
 		await page.getByRole('button', { name: 'Add photo' }).click();
 		await expect.poll(() => waitingText(page)).toMatch(/, and 2 holes or photos$/);
+		await page.evaluate(() => scrollTo(0, 0));
 		await page.screenshot({ path: `${SCREENSHOT_DIR}/site-entry-390-offline.png`, fullPage: true });
 
 		// Reloaded with no network: the worker answers with the page, IndexedDB with the entries.
@@ -128,10 +129,11 @@ describe('on-site entry, offline and back (chromium, the built app)', () => {
 			.poll(() => waitingText(page), { timeout: 15000 })
 			.toBe('0 readings waiting to send');
 		expect(await countReadings(sequelize, { surveyId: survey.id })).toBe(3);
-		expect(await VerificationHole.count({ where: { memberId: members[0].id } })).toBe(1);
+		// The hole and the photo were taken on G-02, the member chosen at the time.
+		expect(await VerificationHole.count({ where: { memberId: members[1].id } })).toBe(1);
 		const photos = await Attachment.findAll({ where: { surveyId: survey.id } });
 		expect(photos.map((p) => [p.kind, p.caption, p.memberId])).toEqual([
-			['photo', 'Bay 3, soffit', members[0].id]
+			['photo', 'Bay 3, soffit', members[1].id]
 		]);
 		// The estimate of 19.3 mm was rounded to the 20 mm bar (EN 10080 stock) as typed.
 		const [reading] = await sequelize.query<{ d: number; note: string }>(
@@ -159,6 +161,7 @@ describe('on-site entry, offline and back (chromium, the built app)', () => {
 		expect(again).toMatchObject({ status: 200, body: { received: 'earlier', readings: 3 } });
 		expect(await countReadings(sequelize, { surveyId: survey.id })).toBe(3);
 		expect(await SyncBatch.count({ where: { surveyId: survey.id } })).toBe(2); // entries, photo
+		await page.evaluate(() => scrollTo(0, 0));
 		await page.screenshot({ path: `${SCREENSHOT_DIR}/site-entry-390-sent.png`, fullPage: true });
 	});
 
@@ -170,6 +173,13 @@ describe('on-site entry, offline and back (chromium, the built app)', () => {
 		await openSitePage(page, survey.id);
 		await context.setOffline(true);
 		await addReading(page, '33');
+		await page.getByLabel('Bar ⌀ estimate (mm)').fill('20.7');
+		expect(await page.getByTestId('bar-rounded').innerText()).toBe(
+			'→ 20 mm bar (nearest of EN 10080 bar sizes)'
+		);
+		await page.getByLabel('Bar ⌀ estimate (mm)').fill('');
+		await page.evaluate(() => scrollTo(0, 0));
+		await page.screenshot({ path: `${SCREENSHOT_DIR}/site-entry-820-offline.png`, fullPage: true });
 		// A cover that is not a number is caught as typed (the entry grid's own cell checks).
 		await page.getByLabel('Cover (mm)').fill('=1+2');
 		expect(await page.getByRole('button', { name: 'Add reading' }).isDisabled()).toBe(true);
@@ -197,6 +207,7 @@ describe('on-site entry, offline and back (chromium, the built app)', () => {
 		// Still on the device after a reload.
 		await page.reload({ waitUntil: 'networkidle' });
 		await expect.poll(() => refusal.isVisible()).toBe(true);
+		await page.evaluate(() => scrollTo(0, 0));
 		await page.screenshot({ path: `${SCREENSHOT_DIR}/site-entry-820-refused.png`, fullPage: true });
 	});
 
@@ -214,6 +225,7 @@ describe('on-site entry, offline and back (chromium, the built app)', () => {
 		const ask = page.getByRole('link', { name: 'Sign in again' });
 		await expect.poll(() => ask.isVisible(), { timeout: 15000 }).toBe(true);
 		expect(await waitingText(page)).toBe('1 reading waiting to send');
+		await page.evaluate(() => scrollTo(0, 0));
 		await page.screenshot({ path: `${SCREENSHOT_DIR}/site-entry-390-sign-in.png`, fullPage: true });
 		await ask.click();
 		await page.waitForURL(/\/sign-in/);
