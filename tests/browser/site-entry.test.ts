@@ -89,6 +89,15 @@ describe('on-site entry, offline and back (chromium, the built app)', () => {
 		});
 		await openSitePage(page, survey.id);
 
+		// Touch targets of at least 44 px (WCAG 2.2 success criterion 2.5.5, target size).
+		const heights = await page
+			.locator('form input, form button, section[aria-labelledby=members] button')
+			.evaluateAll((els) => els.map((e) => e.getBoundingClientRect().height));
+		expect(heights.length).toBeGreaterThan(10);
+		expect(Math.min(...heights)).toBeGreaterThanOrEqual(44);
+		const keypads = await page.locator('input[inputmode=decimal]').count();
+		expect(keypads).toBe(8); // x, y, cover, ⌀; the hole's meter, measured, x, y
+
 		await context.setOffline(true);
 		await expect.poll(() => page.getByText('Offline', { exact: true }).isVisible()).toBe(true);
 		await addReading(page, '31.5', '19.3');
@@ -202,7 +211,8 @@ describe('on-site entry, offline and back (chromium, the built app)', () => {
 		const text = readFileSync((await download.path())!, 'utf8');
 		expect(text.split('\r\n')).toEqual([
 			'member,kind,x,y,cover,diameter,direction,note,reason',
-			'R-01,reading,,,33,,,,The survey is submitted: its readings are frozen. An engineer can return it for changes.'
+			'R-01,reading,,,33,,,,The survey is submitted: its readings are frozen. An engineer can return it for changes.',
+			''
 		]);
 		// Still on the device after a reload.
 		await page.reload({ waitUntil: 'networkidle' });

@@ -1,29 +1,30 @@
+import { csvLine, type CsvValue } from '$lib/csv';
 import type { SiteEntry } from './queue';
 
-const quote = (v: string | number) => {
-	const s = String(v);
-	return /[",\n\r]/.test(s) || /^[=+\-@]/.test(s) ? `"${s.replace(/"/g, '""')}"` : s;
-};
+/** A cell as typed: a plain number is written as a number (a negative x is data), else text. */
+const cell = (v: string): CsvValue => (/^-?\d+(\.\d+)?$/.test(v.trim()) ? Number(v) : v);
 
 /**
- * Entries the server refused, as a CSV a person can keep or import later: one line per reading
- * or hole, with the reason. Cells that a spreadsheet would run as a formula are quoted.
+ * Entries the server refused, as a CSV a person can keep or import later: one line per reading,
+ * hole or photo, with the reason. Written by the app's one CSV writer and its formula guard.
  */
 export function refusedCsv(entries: SiteEntry[]): string {
 	const head = ['member', 'kind', 'x', 'y', 'cover', 'diameter', 'direction', 'note', 'reason'];
-	const lines = entries.flatMap((e) => {
+	const lines = entries.map((e) => {
+		const reason = e.refusal ?? '';
 		if (e.kind === 'reading') {
 			const d = e.data;
-			return [[e.memberLabel, 'reading', d.x, d.y, d.cover, d.diameter, d.direction, d.note]];
+			const cells = [d.x, d.y, d.cover, d.diameter].map(cell);
+			return [e.memberLabel, 'reading', ...cells, d.direction, d.note, reason];
 		}
 		if (e.kind === 'hole') {
 			const d = e.data;
 			const note = `hole ${d.label}: measured ${d.measuredCoverMm} mm${d.method ? `, ${d.method}` : ''}`;
-			return [[e.memberLabel, 'hole', d.xMm, d.yMm, d.meterReadingMm, '', '', note]];
+			const cells = [d.xMm, d.yMm, d.meterReadingMm].map(cell);
+			return [e.memberLabel, 'hole', ...cells, '', '', note, reason];
 		}
-		return [[e.memberLabel, 'photo', '', '', '', '', '', `${e.data.fileName} ${e.data.caption}`]];
+		const note = `${e.data.fileName} ${e.data.caption}`.trim();
+		return [e.memberLabel, 'photo', '', '', '', '', '', note, reason];
 	});
-	return [head, ...lines.map((l, i) => [...l, entries[i].refusal ?? ''])]
-		.map((l) => l.map(quote).join(','))
-		.join('\r\n');
+	return [head, ...lines].map(csvLine).join('');
 }

@@ -16,6 +16,11 @@ export const load: PageServerLoad = async (event) => {
 		survey: { id: survey.id, title: survey.title, status: survey.status },
 		asset: { id: asset.id, name: asset.name, designCode: asset.designCode },
 		members: await listMembers(actor, surveyId),
+		/**
+		 * Planned readings per member id, from the survey's plan, shown as "of N planned" beside
+		 * each member's running count. No plan service exists on this branch yet: null shows none.
+		 */
+		plannedReadingsByMember: null as Record<number, number> | null,
 		can: {
 			enter: editable && can(actor.role, 'reading:edit'),
 			holes: editable && can(actor.role, 'hole:write'),
