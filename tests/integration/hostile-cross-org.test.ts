@@ -270,6 +270,7 @@ const ORG_ROUTES: Record<string, (v: OrganisationIds, own: OrganisationIds) => P
 		{ method: 'GET', path: `/api/v1/chloride-profiles/${v.chlorideProfileId}` },
 		{ method: 'DELETE', path: `/api/v1/chloride-profiles/${v.chlorideProfileId}` }
 	],
+	'/surveys/[surveyId]/site': (v) => [{ method: 'GET', path: `/surveys/${v.surveyId}/site` }],
 	'/surveys/[surveyId]/measurements': (v) => [
 		{ method: 'GET', path: `/surveys/${v.surveyId}/measurements` },
 		{
@@ -317,6 +318,29 @@ const ORG_ROUTES: Record<string, (v: OrganisationIds, own: OrganisationIds) => P
 		{
 			method: 'RAW',
 			path: `/api/v1/surveys/${v.surveyId}/attachments?fileName=x.txt&kind=other`,
+			body: 'x'
+		}
+	],
+	'/api/v1/surveys/[surveyId]/site-sync': (v) => [
+		{
+			method: 'POST',
+			path: `/api/v1/surveys/${v.surveyId}/site-sync`,
+			body: {
+				batchId: '6f1c2a7e-0d4b-4c1e-9a55-1b2c3d4e5f60',
+				readings: [
+					{
+						memberId: v.memberId,
+						clientId: '6f1c2a7e-0d4b-4c1e-9a55-1b2c3d4e5f61',
+						cover: '30'
+					}
+				]
+			}
+		}
+	],
+	'/api/v1/surveys/[surveyId]/site-sync/photos': (v) => [
+		{
+			method: 'RAW',
+			path: `/api/v1/surveys/${v.surveyId}/site-sync/photos?clientId=6f1c2a7e-0d4b-4c1e-9a55-1b2c3d4e5f62&memberId=${v.memberId}&fileName=x.png`,
 			body: 'x'
 		}
 	],

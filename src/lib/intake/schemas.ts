@@ -134,3 +134,31 @@ export const manualEntrySchema = z.object({
 	units: z.enum(['mm', 'inch']).default('mm'),
 	rows: z.array(manualReadingSchema).min(1, 'Enter at least one reading.').max(5000)
 });
+
+/** Ids a device makes for what it records offline (crypto.randomUUID). */
+export const clientIdSchema = z.uuid({ error: 'A client id must be a UUID.' });
+const entryOf = { memberId: z.number().int().positive(), clientId: clientIdSchema };
+/**
+ * One send of a device's queued site entries for one survey. The batch id makes a resend of
+ * the same batch a no-op; readings keep the entry grid's fields and checks.
+ */
+export const siteBatchSchema = z
+	.object({
+		batchId: clientIdSchema,
+		units: z.enum(['mm', 'inch']).default('mm'),
+		readings: z.array(manualReadingSchema.extend(entryOf)).max(5000).default([]),
+		holes: z.array(holeSchema.extend(entryOf)).max(500).default([])
+	})
+	.refine((b) => b.readings.length + b.holes.length > 0, {
+		message: 'The batch holds no readings and no holes.',
+		path: ['readings']
+	});
+export type SiteBatch = z.infer<typeof siteBatchSchema>;
+
+/** A photo's details sent beside its bytes (the body), in the query string. */
+export const sitePhotoQuerySchema = z.object({
+	clientId: clientIdSchema,
+	memberId: z.coerce.number().int().positive(),
+	fileName: z.string().min(1).max(255),
+	caption: z.string().max(255).optional()
+});

@@ -38,6 +38,12 @@ export interface ImportJob {
 	flags?: number;
 	/** How rows reach the table; chosen from the server's settings when absent (tests set it). */
 	writeMethod?: WriteMethod;
+	/**
+	 * Runs first inside the import's transaction, so what it writes commits with the readings or
+	 * not at all: a site sync takes its batch id (a unique key, so a doubled send waits here and
+	 * then fails) and records its holes. It throws ImportError to refuse the batch.
+	 */
+	claim?: (transaction: Transaction) => Promise<void>;
 }
 
 export async function memberIndex(surveyId: number): Promise<Map<string, number>> {
@@ -192,6 +198,7 @@ export async function runImport(job: ImportJob): Promise<ImportOutcome> {
 			mappedColumns(job.mapping)
 		);
 		const connectionId = connection.threadId ?? undefined;
+		await job.claim?.(transaction);
 		await tickProgress(job.batchId, tally, connectionId);
 		await streamRows(job, writer, tally, connectionId);
 		const idRange = await writer.finish();

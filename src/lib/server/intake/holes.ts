@@ -56,14 +56,24 @@ const measured = (hole: VerificationHole) => ({
 
 /** A drilled check hole: the meter's reading beside the cover measured in the hole. */
 export async function createHole(actor: Actor, memberId: number, input: HoleInput) {
-	return VerificationHole.sequelize!.transaction(async (transaction) => {
-		const { survey } = await scopedMember(actor, memberId, 'write', transaction);
-		await assertSurveyEditableLocked(survey, transaction);
-		await assertLabelFree(memberId, input.label, null, transaction);
-		const hole = await VerificationHole.create({ ...input, memberId }, { transaction });
-		await auditHole(actor, 'hole.created', hole, measured(hole), transaction);
-		return hole;
-	});
+	return VerificationHole.sequelize!.transaction((transaction) =>
+		recordHole(actor, memberId, input, transaction)
+	);
+}
+
+/** The same inside a transaction of the caller's (a site sync writes holes with its readings). */
+export async function recordHole(
+	actor: Actor,
+	memberId: number,
+	input: HoleInput,
+	transaction: Transaction
+) {
+	const { survey } = await scopedMember(actor, memberId, 'write', transaction);
+	await assertSurveyEditableLocked(survey, transaction);
+	await assertLabelFree(memberId, input.label, null, transaction);
+	const hole = await VerificationHole.create({ ...input, memberId }, { transaction });
+	await auditHole(actor, 'hole.created', hole, measured(hole), transaction);
+	return hole;
 }
 
 export async function updateHole(actor: Actor, holeId: number, input: HoleInput) {

@@ -1,9 +1,10 @@
 import { Readable } from 'node:stream';
 import Papa from 'papaparse';
+import type { Transaction } from 'sequelize';
 import { z } from 'zod';
-import { ImportBatch } from '../db/models';
+import { ImportBatch, type Survey } from '../db/models';
 import { READING_FLAGS } from '../db/models/Reading';
-import { manualEntrySchema } from '$lib/intake/schemas';
+import { manualEntrySchema, manualReadingSchema } from '$lib/intake/schemas';
 import { importOptionsSchema, columnMappingSchema } from '../import/mapping';
 import { beginProgress } from '../import/progress';
 import { runImport } from '../import/run';
@@ -11,41 +12,46 @@ import type { Actor } from '../policy';
 import { scopedMember } from '../scope';
 import { assertSurveyEditable } from './frozen';
 
-const COLUMNS = ['x', 'y', 'cover', 'diameter', 'direction', 'note'] as const;
+const COLUMNS = ['memberLabel', 'x', 'y', 'cover', 'diameter', 'direction', 'note'] as const;
+
+export type GridReading = z.infer<typeof manualReadingSchema> & { memberLabel: string };
 
 /**
- * Readings typed or pasted into the entry grid for one member. They go through the import
- * path itself (same checks, one transaction, a batch that can be undone), all or nothing.
+ * Readings from a grid (the member entry grid, a device's site entries) written through the
+ * import path itself: the same row checks, one transaction, a batch that can be undone, all or
+ * nothing. Row numbers in the message are the grid's (1 = the first reading).
  */
-export async function saveManualReadings(
-	actor: Actor,
-	memberId: number,
-	entry: z.infer<typeof manualEntrySchema>
-) {
-	const { member, survey } = await scopedMember(actor, memberId, 'write');
-	assertSurveyEditable(survey);
+export async function importGridRows(input: {
+	actor: Actor;
+	survey: Survey;
+	fileName: string;
+	units: 'mm' | 'inch';
+	rows: GridReading[];
+	claim?: (transaction: Transaction) => Promise<void>;
+}) {
+	const { actor, survey } = input;
 	const text = Papa.unparse({
 		fields: [...COLUMNS],
-		data: entry.rows.map((r) => COLUMNS.map((c) => r[c]))
+		data: input.rows.map((r) => COLUMNS.map((c) => r[c]))
 	});
 	const batch = await ImportBatch.create({
 		surveyId: survey.id,
 		createdByUserId: actor.userId,
 		sourceFormat: 'manual',
-		fileName: `entry for ${member.label}`.slice(0, 255)
+		fileName: input.fileName.slice(0, 255)
 	});
 	const mapping = columnMappingSchema.parse({
-		x: 0,
-		y: 1,
-		cover: 2,
-		diameter: 3,
-		direction: 4,
-		note: 5
+		memberLabel: 0,
+		x: 1,
+		y: 2,
+		cover: 3,
+		diameter: 4,
+		direction: 5,
+		note: 6
 	});
 	const options = importOptionsSchema.parse({
-		units: entry.units,
+		units: input.units,
 		failingRows: 'reject-file',
-		fixedMemberLabel: member.label,
 		headerRowIndex: 0
 	});
 	await batch.update({ mapping, options, state: 'running' });
@@ -59,9 +65,27 @@ export async function saveManualReadings(
 		open: () => Readable.from([Buffer.from(text)]),
 		mapping,
 		options,
-		flags: READING_FLAGS.manual
+		flags: READING_FLAGS.manual,
+		claim: input.claim
 	});
 	// Row numbers count the header line the grid's rows were written under: say grid rows.
 	const message = outcome.message.replace(/\bRow (\d+)/g, (_m, n) => `Grid row ${Number(n) - 1}`);
 	return { batchId: batch.id, ...outcome, message };
+}
+
+/** Readings typed or pasted into the entry grid for one member. */
+export async function saveManualReadings(
+	actor: Actor,
+	memberId: number,
+	entry: z.infer<typeof manualEntrySchema>
+) {
+	const { member, survey } = await scopedMember(actor, memberId, 'write');
+	assertSurveyEditable(survey);
+	return importGridRows({
+		actor,
+		survey,
+		fileName: `entry for ${member.label}`,
+		units: entry.units,
+		rows: entry.rows.map((r) => ({ ...r, memberLabel: member.label }))
+	});
 }

@@ -1,6 +1,7 @@
 import { randomUUID } from 'node:crypto';
 import { createReadStream } from 'node:fs';
 import type { Readable } from 'node:stream';
+import type { Transaction } from 'sequelize';
 import { fileTypeFromFile } from 'file-type';
 import sharp from 'sharp';
 import { Attachment } from '../db/models';
@@ -68,7 +69,9 @@ export async function uploadAttachment(
 	actor: Actor,
 	surveyId: number,
 	input: AttachmentUpload,
-	body: ReadableStream<Uint8Array> | Readable
+	body: ReadableStream<Uint8Array> | Readable,
+	/** Runs in the record's transaction (a site sync takes its photo's client id there). */
+	claim?: (attachmentId: number, transaction: Transaction) => Promise<void>
 ) {
 	const { survey } = await scopedSurvey(actor, surveyId, 'write');
 	assertSurveyEditable(survey);
@@ -123,6 +126,7 @@ export async function uploadAttachment(
 				},
 				transaction
 			);
+			await claim?.(attachment.id, transaction);
 			return attachment;
 		});
 	} catch (err) {

@@ -10,6 +10,7 @@ import { coverSets } from './009-cover-sets';
 import { secondApprover } from './010-second-approver';
 import { durabilityMeasurements } from './011-durability-measurements';
 import { surveyPlans } from './013-survey-plans';
+import { syncBatches } from './014-sync-batches';
 import type { Migration } from './types';
 
 /**
@@ -28,5 +29,6 @@ export const migrations: Migration[] = [
 	coverSets,
 	secondApprover,
 	durabilityMeasurements,
-	surveyPlans
+	surveyPlans,
+	syncBatches
 ];

@@ -26,6 +26,7 @@ import { Session } from './Session';
 import { SignInThrottle } from './SignInThrottle';
 import { Survey } from './Survey';
 import { SurveyPlan } from './SurveyPlan';
+import { SyncBatch } from './SyncBatch';
 import { User } from './User';
 import { VerificationHole } from './VerificationHole';
 
@@ -57,6 +58,7 @@ export {
 	SignInThrottle,
 	Survey,
 	SurveyPlan,
+	SyncBatch,
 	User,
 	VerificationHole
 };
@@ -89,6 +91,7 @@ const allModels = [
 	SignInThrottle,
 	Survey,
 	SurveyPlan,
+	SyncBatch,
 	User,
 	VerificationHole
 ];

@@ -1,0 +1,30 @@
+import type { PageServerLoad } from './$types';
+import { can } from '$lib/server/policy';
+import { pageActor } from '$lib/server/guard';
+import { listMembers } from '$lib/server/intake/members';
+import { loadOr404 } from '$lib/server/intake/pages';
+import { idParam } from '$lib/server/intake/respond';
+import { scopedSurvey } from '$lib/server/scope';
+
+export const load: PageServerLoad = async (event) => {
+	const actor = pageActor(event, 'survey:read');
+	const surveyId = idParam(event.params.surveyId);
+	const { survey, asset } = await loadOr404(() => scopedSurvey(actor, surveyId, 'read'));
+	const own = asset.organisationId === actor.organisationId;
+	const editable = own && (survey.status === 'draft' || survey.status === 'returned');
+	return {
+		survey: { id: survey.id, title: survey.title, status: survey.status },
+		asset: { id: asset.id, name: asset.name, designCode: asset.designCode },
+		members: await listMembers(actor, surveyId),
+		/**
+		 * Planned readings per member id, from the survey's plan, shown as "of N planned" beside
+		 * each member's running count. No plan service exists on this branch yet: null shows none.
+		 */
+		plannedReadingsByMember: null as Record<number, number> | null,
+		can: {
+			enter: editable && can(actor.role, 'reading:edit'),
+			holes: editable && can(actor.role, 'hole:write'),
+			photos: editable && can(actor.role, 'attachment:upload')
+		}
+	};
+};

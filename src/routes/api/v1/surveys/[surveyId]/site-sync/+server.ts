@@ -1,0 +1,16 @@
+import { json } from '@sveltejs/kit';
+import type { RequestHandler } from './$types';
+import { authorize } from '$lib/server/policy';
+import { readJson } from '$lib/server/http';
+import { siteBatchSchema } from '$lib/intake/schemas';
+import { receiveSiteBatch } from '$lib/server/intake/siteSync';
+import { api, idParam } from '$lib/server/intake/respond';
+
+/** A device's queued site entries: 201 when written now, 200 when this batch id already was. */
+export const POST: RequestHandler = async ({ locals, params, request }) => {
+	const actor = authorize(locals, 'reading:edit');
+	const surveyId = idParam(params.surveyId);
+	const batch = await readJson(request, siteBatchSchema);
+	const answer = await api(() => receiveSiteBatch(actor, surveyId, batch));
+	return json(answer, { status: answer.received === 'now' ? 201 : 200 });
+};
