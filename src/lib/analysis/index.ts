@@ -29,6 +29,7 @@ export {
 export { kolmogorovSmirnov, lillieforsPValue, type KolmogorovSmirnovResult } from './lilliefors';
 export {
 	compareModels,
+	compareModelsCounted,
 	FIT_SIGNIFICANCE,
 	type ModelComparison,
 	type ModelFit
@@ -211,3 +212,23 @@ export {
 	type MemberCovers,
 	type MemberDifference
 } from './memberComparison';
+export {
+	andersonDarlingCounted,
+	characteristicCoversCounted,
+	countAtOrBelowCounted,
+	countBelowCounted,
+	countedFromSorted,
+	describeCounted,
+	expandCounted,
+	fitLognormalCounted,
+	fitNormalCounted,
+	fractionBelowCounted,
+	kolmogorovSmirnovCounted,
+	mapCounted,
+	mergeCounted,
+	momentsCounted,
+	percentileCounted,
+	type CountedMoments,
+	type CountedSample
+} from './countedSample';
+export { detectGrid, gridStepMm, gridValue, type CoverGrid } from './coverGrid';

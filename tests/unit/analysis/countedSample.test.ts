@@ -29,6 +29,7 @@ import {
 import { detectGrid, gridValue } from '../../../src/lib/analysis/coverGrid';
 import { describeSorted } from '../../../src/lib/analysis/describe';
 import { fitLognormal, fitNormal } from '../../../src/lib/analysis/fitModels';
+import { compareModels, compareModelsCounted } from '../../../src/lib/analysis/goodnessOfFit';
 import { fractionBelow } from '../../../src/lib/analysis/fractionBelow';
 import { kolmogorovSmirnov } from '../../../src/lib/analysis/lilliefors';
 import { percentileSorted } from '../../../src/lib/analysis/percentile';
@@ -204,5 +205,41 @@ describe('counted samples equal the raw readings', () => {
 		expect(Array.from(counted.counts)).toEqual([2, 1, 1]);
 		expect(momentsCounted(counted)).toEqual({ n: 4, mean: 41, sd: Math.SQRT2 });
 		expect(percentileCounted(counted, 0.5, 7)).toBe(40.5);
+	});
+});
+
+describe('model comparison from counts', () => {
+	it('equals compareModels of the readings: fits, tests, choice and warnings', () => {
+		fc.assert(
+			fc.property(quantized, (sorted) => {
+				const raw = compareModels(sorted);
+				const counted = compareModelsCounted(countedFromSorted(sorted));
+				expect(counted.resolutionMm).toBe(raw.resolutionMm);
+				expect(counted.better).toBe(raw.better);
+				expect(counted.warnings).toEqual(raw.warnings);
+				for (const model of ['normal', 'lognormal'] as const) {
+					const a = raw[model]!;
+					const b = counted[model]!;
+					close(b.location, a.location);
+					close(b.scale, a.scale, Math.abs(a.location) + 1);
+					expect(b.rejected).toBe(a.rejected);
+					expect(b.decidedBy).toBe(a.decidedBy);
+					// D is a probability read through each path's own μ and σ (which differ in the last bits,
+					// amplified by x/σ): 1e-12 absolute. Under one shared fit it agrees to 1e-12 relative (above).
+					close(
+						b.kolmogorovSmirnov?.statistic ?? null,
+						a.kolmogorovSmirnov?.statistic ?? null,
+						1000
+					);
+					// The grouped test sums the same classes; its expectations differ only through μ, σ.
+					if (a.grouped && b.grouped) {
+						expect(b.grouped.classes).toBe(a.grouped.classes);
+						expect(Math.abs(b.grouped.statistic - a.grouped.statistic)).toBeLessThanOrEqual(
+							1e-9 * Math.max(1, a.grouped.statistic)
+						);
+					} else expect(b.grouped).toBe(a.grouped);
+				}
+			})
+		);
 	});
 });
