@@ -73,6 +73,17 @@ export function countedFromSorted(sorted: Float64Array, grid?: CoverGrid | null)
 }
 
 /**
+ * Counts gathered in a Map (value → readings) as a counted sample. Cost O(D log D).
+ * @example countedFromTally(new Map([[41, 1], [40, 2]])).values // Float64Array [40, 41]
+ */
+export function countedFromTally(tally: ReadonlyMap<number, number>): CountedSample {
+	const values = Float64Array.from(tally.keys()).sort();
+	const counts = new Float64Array(values.length);
+	for (let i = 0; i < values.length; i++) counts[i] = tally.get(values[i])!;
+	return withLattice(values, counts);
+}
+
+/**
  * One population from several (members into a group): counts of equal values add. Cost
  * O(D log D) for D distinct values in all; the grid is kept when every part shares it.
  */

@@ -218,6 +218,7 @@ export {
 	countAtOrBelowCounted,
 	countBelowCounted,
 	countedFromSorted,
+	countedFromTally,
 	describeCounted,
 	expandCounted,
 	fitLognormalCounted,
