@@ -84,14 +84,16 @@ async function generate(): Promise<number[]> {
 	const first = memberIds[0];
 	if (memberIds[memberIds.length - 1] - first !== memberIds.length - 1)
 		throw new Error('the benchmark needs consecutive member ids (run it on an idle database)');
-	// A bell of covers on a 0.1 mm grid: 20 mm plus two pseudo-random 0–30 mm parts.
+	// A bell of covers on a 0.1 mm grid: 20 mm plus three hashed 0–19.9 mm parts (about 600
+	// distinct values, several hundred in each member).
 	const CHUNK = 5_000_000;
 	for (let start = 0; start < READINGS; start += CHUNK) {
 		const size = Math.min(CHUNK, READINGS - start);
 		await sequelize.query(
 			`INSERT INTO readings (member_id, x_mm, y_mm, cover_mm, bar_diameter_mm, flags)
 			 SELECT :first + (s.seq % :members), (s.seq % 97) * 50, (FLOOR(s.seq / 97) % 100) * 50,
-			        20 + (((s.seq * 7919) % 300) + ((s.seq * 104729) % 300)) / 10, 12, 0
+			        20 + (CRC32(s.seq) % 200 + CRC32(s.seq * 7 + 1) % 200 + CRC32(s.seq * 13 + 5) % 200) / 10,
+			        12, 0
 			   FROM (SELECT seq + :start AS seq FROM seq_1_to_${size}) s`,
 			{ type: QueryTypes.INSERT, replacements: { first, members: memberIds.length, start } }
 		);

@@ -224,13 +224,14 @@ describe('model comparison from counts', () => {
 					close(b.scale, a.scale, Math.abs(a.location) + 1);
 					expect(b.rejected).toBe(a.rejected);
 					expect(b.decidedBy).toBe(a.decidedBy);
-					// D is a probability read through each path's own μ and σ (which differ in the last bits,
-					// amplified by x/σ): 1e-12 absolute. Under one shared fit it agrees to 1e-12 relative (above).
-					close(
-						b.kolmogorovSmirnov?.statistic ?? null,
-						a.kolmogorovSmirnov?.statistic ?? null,
-						1000
-					);
+					// D is a probability read through each path's own μ and σ, which differ in the last
+					// bits and are amplified by x/σ (up to ~10^3 here): 1e-10 absolute. Under one shared
+					// fit D agrees to 1e-12 relative (the test above).
+					if (a.kolmogorovSmirnov && b.kolmogorovSmirnov)
+						expect(
+							Math.abs(a.kolmogorovSmirnov.statistic - b.kolmogorovSmirnov.statistic)
+						).toBeLessThanOrEqual(1e-10);
+					else expect(b.kolmogorovSmirnov).toBe(a.kolmogorovSmirnov);
 					// The grouped test sums the same classes; its expectations differ only through μ, σ.
 					if (a.grouped && b.grouped) {
 						expect(b.grouped.classes).toBe(a.grouped.classes);
