@@ -55,7 +55,29 @@ export function characteristicCovers(
 	confidence = 0.95,
 	type: PercentileType = 7
 ): CharacteristicCovers {
-	const n = sorted.length;
+	requireReadings('characteristicCovers', sorted.length, 2);
+	return characteristicCoversFromFactors(
+		sorted.length,
+		percentileSorted(sorted, p, type),
+		normal,
+		lognormal,
+		p,
+		confidence
+	);
+}
+
+/**
+ * characteristicCovers from n and the empirical percentile (the rest depends on the fits and
+ * n only), shared with the counted form (countedSample.ts).
+ */
+export function characteristicCoversFromFactors(
+	n: number,
+	empiricalMm: number,
+	normal: FittedModel,
+	lognormal: FittedModel | null,
+	p = 0.05,
+	confidence = 0.95
+): CharacteristicCovers {
 	requireReadings('characteristicCovers', n, 2);
 	requireOpenUnit('characteristicCovers', 'confidence', confidence);
 	const z = normalQuantile(1 - p);
@@ -64,7 +86,7 @@ export function characteristicCovers(
 	return {
 		p,
 		confidence,
-		empiricalMm: percentileSorted(sorted, p, type),
+		empiricalMm,
 		predictionFactor: kn,
 		toleranceFactor: k,
 		normal: forModel(normal, z, kn, k),

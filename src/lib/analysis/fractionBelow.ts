@@ -42,9 +42,30 @@ export function fractionBelow(
 	lognormal: FittedModel | null,
 	confidence = 0.95
 ): FractionBelow {
-	const n = sorted.length;
+	requireReadings('fractionBelow', sorted.length, 2);
+	return fractionBelowFromCounts(
+		countBelowSorted(sorted, limitMm),
+		sorted.length,
+		limitMm,
+		normal,
+		lognormal,
+		confidence
+	);
+}
+
+/**
+ * fractionBelow from the count below the limit and n (all it reads of the readings), shared
+ * with the counted form (countedSample.ts).
+ */
+export function fractionBelowFromCounts(
+	count: number,
+	n: number,
+	limitMm: number,
+	normal: FittedModel,
+	lognormal: FittedModel | null,
+	confidence = 0.95
+): FractionBelow {
 	requireReadings('fractionBelow', n, 2);
-	const count = countBelowSorted(sorted, limitMm);
 	return {
 		limitMm,
 		confidence,

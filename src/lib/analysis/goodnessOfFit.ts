@@ -4,9 +4,16 @@
 import { andersonDarlingFromProbabilities, type AndersonDarlingResult } from './andersonDarling';
 import { fitLognormal, fitNormal, type FittedModel, type ModelName } from './fitModels';
 import { kolmogorovSmirnovFromCdf, type KolmogorovSmirnovResult } from './lilliefors';
-import { groupedChiSquare, type GroupedFitResult } from './groupedFit';
+import {
+	andersonDarlingCounted,
+	type CountedSample,
+	fitLognormalCounted,
+	fitNormalCounted,
+	kolmogorovSmirnovCounted
+} from './countedSample';
+import { groupedChiSquare, groupedChiSquareFromCounts, type GroupedFitResult } from './groupedFit';
 import { modelProbabilities } from './modelProbabilities';
-import { detectResolutionMm } from './resolution';
+import { detectResolutionMm, detectResolutionOfDistinctMm } from './resolution';
 
 /** Significance level at which a model is called rejected (common practice: 5 %). */
 export const FIT_SIGNIFICANCE = 0.05;
@@ -41,7 +48,7 @@ export interface ModelComparison {
 	warnings: string[];
 }
 
-function testModel(sorted: Float64Array, fit: FittedModel, resolutionMm: number | null): ModelFit {
+function untestedFit(fit: FittedModel): ModelFit {
 	const [meanMm, sdMm] =
 		fit.model === 'normal'
 			? [fit.location, fit.scale]
@@ -50,7 +57,7 @@ function testModel(sorted: Float64Array, fit: FittedModel, resolutionMm: number 
 					Math.exp(fit.location + (fit.scale * fit.scale) / 2) *
 						Math.sqrt(Math.expm1(fit.scale * fit.scale))
 				];
-	const untested = {
+	return {
 		...fit,
 		meanMm,
 		sdMm,
@@ -60,19 +67,33 @@ function testModel(sorted: Float64Array, fit: FittedModel, resolutionMm: number 
 		decidedBy: null,
 		rejected: null
 	};
-	// Too few readings to test, or every reading equal (σ = 0: a point, nothing to test).
-	if (sorted.length < 8 || fit.scale === 0) return untested;
-	const probabilities = modelProbabilities(sorted, fit);
-	const andersonDarling = andersonDarlingFromProbabilities(probabilities);
-	const kolmogorovSmirnov = kolmogorovSmirnovFromCdf(probabilities.cdf);
-	const grouped = resolutionMm === null ? null : groupedChiSquare(sorted, fit, resolutionMm);
+}
+
+function decide(
+	untested: ModelFit,
+	andersonDarling: AndersonDarlingResult,
+	kolmogorovSmirnov: KolmogorovSmirnovResult,
+	grouped: GroupedFitResult | null
+): ModelFit {
 	const decidedBy = grouped ? 'grouped-chi-square' : 'anderson-darling';
 	const p = grouped ? grouped.pValue : andersonDarling.pValue;
 	const rejected = p === null ? null : p < FIT_SIGNIFICANCE;
 	return { ...untested, andersonDarling, kolmogorovSmirnov, grouped, decidedBy, rejected };
 }
 
-/** p-value of the deciding test (null when untested). */
+function testModel(sorted: Float64Array, fit: FittedModel, resolutionMm: number | null): ModelFit {
+	const untested = untestedFit(fit);
+	// Too few readings to test, or every reading equal (σ = 0: a point, nothing to test).
+	if (sorted.length < 8 || fit.scale === 0) return untested;
+	const probabilities = modelProbabilities(sorted, fit);
+	return decide(
+		untested,
+		andersonDarlingFromProbabilities(probabilities),
+		kolmogorovSmirnovFromCdf(probabilities.cdf),
+		resolutionMm === null ? null : groupedChiSquare(sorted, fit, resolutionMm)
+	);
+}
+
 function decidingP(fit: ModelFit): number | null {
 	return fit.decidedBy === 'grouped-chi-square'
 		? (fit.grouped?.pValue ?? null)
@@ -100,12 +121,16 @@ function tieSentences(fits: (ModelFit | null)[], resolutionMm: number): string[]
 	});
 }
 
-function fitWarnings(normal: ModelFit, lognormal: ModelFit | null, sorted: Float64Array): string[] {
-	const n = sorted.length;
+function fitWarnings(
+	normal: ModelFit,
+	lognormal: ModelFit | null,
+	n: number,
+	minMm: number
+): string[] {
 	const resolutionMm = normal.grouped?.resolutionMm ?? null;
 	if (normal.scale === 0) {
 		return [
-			`All ${n} readings are ${sorted[0]} mm: with no spread no model can be tested, and every ` +
+			`All ${n} readings are ${minMm} mm: with no spread no model can be tested, and every ` +
 				'figure is that one value.'
 		];
 	}
@@ -147,16 +172,23 @@ function shapeWarnings(normal: ModelFit, lognormal: ModelFit | null): string[] {
 	return [];
 }
 
+/** Within 1e-9 relative: closer than any two sums of the same data can be told apart. */
+function roughlyEqual(a: number, b: number): boolean {
+	return Math.abs(a - b) <= 1e-9 * Math.max(Math.abs(a), Math.abs(b));
+}
+
 function betterOf(normal: ModelFit, lognormal: ModelFit | null): ModelName {
 	if (!lognormal) return 'normal';
 	const pn = decidingP(normal);
 	const pl = decidingP(lognormal);
 	if (pn === null || pl === null || !normal.andersonDarling || !lognormal.andersonDarling)
 		return 'normal';
-	if (pn !== pl) return pl > pn ? 'lognormal' : 'normal';
-	return lognormal.andersonDarling.modified < normal.andersonDarling.modified
-		? 'lognormal'
-		: 'normal';
+	// Equal to rounding is a tie: with two distinct values, say, both models give one A² in exact
+	// arithmetic, and which sum rounds lower must not pick the model.
+	if (!roughlyEqual(pn, pl)) return pl > pn ? 'lognormal' : 'normal';
+	const an = normal.andersonDarling.modified;
+	const al = lognormal.andersonDarling.modified;
+	return !roughlyEqual(an, al) && al < an ? 'lognormal' : 'normal';
 }
 
 /** The meter's step when the readings sit on its grid with ties; null for continuous readings. */
@@ -185,6 +217,42 @@ export function compareModels(sorted: Float64Array): ModelComparison {
 		better: betterOf(normal, lognormal),
 		resolutionMm,
 		significance: FIT_SIGNIFICANCE,
-		warnings: fitWarnings(normal, lognormal, sorted)
+		warnings: fitWarnings(normal, lognormal, sorted.length, sorted[0])
+	};
+}
+
+/**
+ * compareModels of a population held as counts (analysis/countedSample.ts): the same fits,
+ * tests, choice and warnings, each test summed a run of equal readings at a time. Cost O(D)
+ * for D distinct values, whatever the number of readings.
+ */
+export function compareModelsCounted(sample: CountedSample): ModelComparison {
+	const { values, counts, n } = sample;
+	let tied = false;
+	for (let i = 0; i < counts.length && !tied; i++) tied = counts[i] > 1;
+	const step = detectResolutionOfDistinctMm(values, n);
+	const resolutionMm = step !== null && tied ? step : null;
+	const test = (fit: FittedModel): ModelFit => {
+		const untested = untestedFit(fit);
+		if (n < 8 || fit.scale === 0) return untested;
+		const uppers = resolutionMm === null ? null : values.map((v) => v + resolutionMm / 2);
+		return decide(
+			untested,
+			andersonDarlingCounted(sample, fit),
+			kolmogorovSmirnovCounted(sample, fit),
+			uppers && resolutionMm !== null
+				? groupedChiSquareFromCounts(uppers, counts, n, fit, resolutionMm)
+				: null
+		);
+	};
+	const normal = test(fitNormalCounted(sample));
+	const lognormal = values[0] > 0 ? test(fitLognormalCounted(sample)) : null;
+	return {
+		normal,
+		lognormal,
+		better: betterOf(normal, lognormal),
+		resolutionMm,
+		significance: FIT_SIGNIFICANCE,
+		warnings: fitWarnings(normal, lognormal, n, values[0])
 	};
 }

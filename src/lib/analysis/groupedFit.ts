@@ -53,8 +53,21 @@ export function groupedChiSquare(
 	fit: FittedModel,
 	resolutionMm: number
 ): GroupedFitResult {
-	const n = sorted.length;
 	const { uppers, counts } = valueCounts(sorted, resolutionMm / 2);
+	return groupedChiSquareFromCounts(uppers, counts, sorted.length, fit, resolutionMm);
+}
+
+/**
+ * groupedChiSquare from each distinct value's class upper edge and count, ascending (n = Σ
+ * counts); shared with the counted form of a population.
+ */
+export function groupedChiSquareFromCounts(
+	uppers: ArrayLike<number>,
+	counts: ArrayLike<number>,
+	n: number,
+	fit: FittedModel,
+	resolutionMm: number
+): GroupedFitResult {
 	let statistic = 0;
 	let classes = 0;
 	let observed = 0;

@@ -29,6 +29,7 @@ export {
 export { kolmogorovSmirnov, lillieforsPValue, type KolmogorovSmirnovResult } from './lilliefors';
 export {
 	compareModels,
+	compareModelsCounted,
 	FIT_SIGNIFICANCE,
 	type ModelComparison,
 	type ModelFit
@@ -212,3 +213,24 @@ export {
 	type MemberDifference
 } from './memberComparison';
 export * from './planning';
+export {
+	andersonDarlingCounted,
+	characteristicCoversCounted,
+	countAtOrBelowCounted,
+	countBelowCounted,
+	countedFromSorted,
+	countedFromTally,
+	describeCounted,
+	expandCounted,
+	fitLognormalCounted,
+	fitNormalCounted,
+	fractionBelowCounted,
+	kolmogorovSmirnovCounted,
+	mapCounted,
+	mergeCounted,
+	momentsCounted,
+	percentileCounted,
+	type CountedMoments,
+	type CountedSample
+} from './countedSample';
+export { detectGrid, gridStepMm, gridValue, type CoverGrid } from './coverGrid';

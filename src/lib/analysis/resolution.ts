@@ -28,3 +28,13 @@ export function detectResolutionMm(sorted: Float64Array): number | null {
 	for (const step of METER_STEPS_MM) if (onGrid(sorted, step)) return step;
 	return null;
 }
+
+/**
+ * detectResolutionMm for a population held as counts: the grid test is per value, so the
+ * distinct values answer it; n is the number of readings they stand for.
+ */
+export function detectResolutionOfDistinctMm(distinct: Float64Array, n: number): number | null {
+	if (n < MIN_READINGS_FOR_STEP) return null;
+	for (const step of METER_STEPS_MM) if (onGrid(distinct, step)) return step;
+	return null;
+}

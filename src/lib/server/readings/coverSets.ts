@@ -1,6 +1,7 @@
 /**
  * Member cover sets: each member's covers kept beside its readings, sorted, in one row
- * (member_cover_sets, migration 009). Every write of readings updates them in the same
+ * (member_cover_sets, migration 009), and in the same row as counts of each distinct cover on
+ * the meter's grid (migration 012, coverCountCodec.ts), which population statistics read. Every write of readings updates them in the same
  * transaction (import: merge; undo: rebuild), so the population overview reads one short row a
  * member instead of a million readings (docs/performance.md, "Pages").
  * The invariant: a member with readings has a row holding exactly their covers. Migration 009
@@ -8,7 +9,9 @@
  * row is read from its readings on the fly, never taken as empty.
  */
 import { QueryTypes, type Sequelize, type Transaction } from 'sequelize';
+import { type CountedSample, countedFromSorted } from '../../analysis/countedSample';
 import { MemberCoverSet } from '../db/models';
+import { decodeCounts, encodeSortedCovers } from './coverCountCodec';
 import { decodeCovers, encodeCovers, mergeSorted } from './coverSetCodec';
 
 type CoverSetRow = { memberId: number; covers: Buffer | Uint8Array };
@@ -90,6 +93,55 @@ export async function readCoverSets(
 	return out;
 }
 
+/** One row a member, only the counts (the covers blob stays unread). */
+export const COVER_COUNTS_SQL =
+	'SELECT member_id AS memberId, grid_den AS den, grid_factor AS factor, cover_counts AS counts FROM member_cover_sets WHERE member_id IN (:part)';
+
+type CoverCountRow = {
+	memberId: number;
+	den: number | null;
+	factor: number | null;
+	counts: Buffer | Uint8Array | null;
+};
+
+/**
+ * Each member's covers as counts of distinct values (analysis/countedSample.ts), by member id;
+ * members with no readings are absent. Reads one short row a member: the cost is the number of
+ * distinct covers, not of readings. A member without stored counts is counted from its readings.
+ */
+export async function readCoverCounts(
+	memberIds: readonly number[],
+	transaction?: Transaction
+): Promise<Map<number, CountedSample>> {
+	const sequelize = db();
+	const out = new Map<number, CountedSample>();
+	const ids = ascending(memberIds);
+	const stored = new Set<number>();
+	for (const part of chunks(ids)) {
+		const rows = await sequelize.query<CoverCountRow>(COVER_COUNTS_SQL, {
+			type: QueryTypes.SELECT,
+			replacements: { part },
+			transaction
+		});
+		for (const row of rows) {
+			if (row.counts === null) continue;
+			stored.add(row.memberId);
+			const grid =
+				row.den === null || row.factor === null
+					? null
+					: { den: Number(row.den), factor: Number(row.factor) };
+			const counted = decodeCounts(row.counts, grid);
+			if (counted.n > 0) out.set(row.memberId, counted);
+		}
+	}
+	const missing = ids.filter((id) => !stored.has(id));
+	if (missing.length > 0) {
+		for (const [id, covers] of await coversFromReadings(sequelize, missing, transaction))
+			out.set(id, countedFromSorted(covers));
+	}
+	return out;
+}
+
 /** How many readings each member has (members with none are absent). */
 export async function readingCounts(memberIds: readonly number[]): Promise<Map<number, number>> {
 	const sequelize = db();
@@ -145,11 +197,23 @@ async function lockCoverSets(
 }
 
 async function storeCoverSet(transaction: Transaction, memberId: number, covers: Float64Array) {
+	// The counts come from the same sorted covers in the same UPDATE: they cannot drift apart.
+	const counts = encodeSortedCovers(covers);
 	await db().query(
-		'UPDATE member_cover_sets SET reading_count = ?, covers_mm = ?, updated_at = CURRENT_TIMESTAMP(3) WHERE member_id = ?',
+		`UPDATE member_cover_sets SET reading_count = ?, covers_mm = ?, grid_den = ?, grid_factor = ?,
+		        distinct_covers = ?, cover_counts = ?, updated_at = CURRENT_TIMESTAMP(3)
+		  WHERE member_id = ?`,
 		{
 			type: QueryTypes.UPDATE,
-			replacements: [covers.length, encodeCovers(covers), memberId],
+			replacements: [
+				covers.length,
+				encodeCovers(covers),
+				counts.grid?.den ?? null,
+				counts.grid?.factor ?? null,
+				counts.distinct,
+				counts.bytes,
+				memberId
+			],
 			transaction
 		}
 	);

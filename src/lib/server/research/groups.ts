@@ -1,16 +1,24 @@
-import { readCoverSets } from '../readings/coverSets';
+import type { CountedSample } from '$lib/analysis';
+import { readCoverCounts } from '../readings/coverSets';
 import type { GroupKey } from './filter';
 import type { SelectedMember } from './members';
 import type { ResearchMember } from './schemas';
 
-/** The values of one population of the selection, gathered for the engine. */
+/** Readings at each distinct value (mm): a population as counts (analysis/countedSample.ts). */
+export type Tally = Map<number, number>;
+
+/**
+ * The values of one population of the selection, gathered for the engine as counts: memory
+ * and time follow the number of distinct values, not of readings.
+ */
 export interface GroupValues {
 	key: Partial<Record<GroupKey, string | number | null>>;
-	coversMm: number[];
+	readingCount: number;
+	coversMm: Tally;
 	/** Measured − c_nom of each reading, in mm. */
-	deviationsMm: number[];
+	deviationsMm: Tally;
 	/** Measured − c_min of each reading, in mm (below 0: under the minimum). */
-	marginsMm: number[];
+	marginsMm: Tally;
 	memberRefs: Set<string>;
 	assetRefs: Set<string>;
 }
@@ -27,33 +35,42 @@ const KEY_OF: Record<GroupKey, (m: ResearchMember) => string | number | null> = 
 function emptyGroup(key: GroupValues['key']): GroupValues {
 	return {
 		key,
-		coversMm: [],
-		deviationsMm: [],
-		marginsMm: [],
+		readingCount: 0,
+		coversMm: new Map(),
+		deviationsMm: new Map(),
+		marginsMm: new Map(),
 		memberRefs: new Set(),
 		assetRefs: new Set()
 	};
 }
 
-function add(group: GroupValues, member: ResearchMember, coverMm: number): void {
-	group.coversMm.push(coverMm);
-	group.deviationsMm.push(coverMm - member.cNomMm);
-	group.marginsMm.push(coverMm - member.cMinMm);
+const tally = (into: Tally, value: number, count: number) =>
+	into.set(value, (into.get(value) ?? 0) + count);
+
+/** A member's counts into the group: each value as each reading would give it (the same doubles). */
+function add(group: GroupValues, member: ResearchMember, counts: CountedSample): void {
+	const { values, counts: times } = counts;
+	for (let i = 0; i < values.length; i++) {
+		tally(group.coversMm, values[i], times[i]);
+		tally(group.deviationsMm, values[i] - member.cNomMm, times[i]);
+		tally(group.marginsMm, values[i] - member.cMinMm, times[i]);
+	}
+	group.readingCount += counts.n;
 	group.memberRefs.add(member.memberRef);
 	group.assetRefs.add(member.assetRef);
 }
 
-/** Members whose cover sets are read at once: bounds memory however big the selection is. */
+/** Members whose cover counts are read at once: bounds memory however big the selection is. */
 const MEMBERS_PER_READ = 200;
 
-/** The selection's members with their covers, a few hundred members at a time. */
+/** The selection's members with their cover counts, a few hundred members at a time. */
 async function* membersWithCovers(
 	members: ReadonlyMap<number, SelectedMember>
-): AsyncGenerator<[SelectedMember, Float64Array]> {
+): AsyncGenerator<[SelectedMember, CountedSample]> {
 	const ids = [...members.keys()];
 	for (let i = 0; i < ids.length; i += MEMBERS_PER_READ) {
 		const part = ids.slice(i, i + MEMBERS_PER_READ);
-		const covers = await readCoverSets(part);
+		const covers = await readCoverCounts(part);
 		for (const id of part) {
 			const memberCovers = covers.get(id);
 			if (memberCovers) yield [members.get(id)!, memberCovers];
@@ -62,8 +79,8 @@ async function* membersWithCovers(
 }
 
 /**
- * Covers of the whole selection and of each group within it (by the `groupBy` fields), member
- * by member. Groups come back sorted by their key, for a stable order.
+ * Cover counts of the whole selection and of each group within it (by the `groupBy` fields),
+ * member by member. Groups come back sorted by their key, for a stable order.
  */
 export async function gatherGroups(
 	members: ReadonlyMap<number, SelectedMember>,
@@ -76,13 +93,11 @@ export async function gatherGroups(
 		const name = JSON.stringify(key);
 		let group = byKey.get(name);
 		if (!group) byKey.set(name, (group = emptyGroup(key)));
-		for (const coverMm of covers) {
-			add(all, member, coverMm);
-			add(group, member, coverMm);
-		}
+		add(all, member, covers);
+		add(group, member, covers);
 	}
 	const groups = [...byKey.entries()]
-		.filter(([, g]) => g.coversMm.length > 0)
+		.filter(([, g]) => g.readingCount > 0)
 		.sort(([a], [b]) => a.localeCompare(b))
 		.map(([, g]) => g);
 	return { all, groups };

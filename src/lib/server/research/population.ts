@@ -1,6 +1,13 @@
 import {
 	characteristicCovers,
+	characteristicCoversCounted,
 	compareModels,
+	compareModelsCounted,
+	describeCounted,
+	expandCounted,
+	fractionBelowCounted,
+	percentileCounted,
+	type CountedSample,
 	describeSorted,
 	ecdfPoints,
 	fractionBelow,
@@ -96,4 +103,44 @@ export function shareBelow(
 	const sorted = toSortedValues(valuesMm);
 	const models = compareModels(sorted);
 	return toPlainJson(fractionBelow(sorted, limitMm, models.normal, models.lognormal, confidence));
+}
+
+/**
+ * populationFigures of a population held as counts: the same figures, in time and memory of
+ * the distinct values. Charts, asked for the whole selection only, still draw from the
+ * readings expanded (O(n) memory while they are built).
+ */
+export function populationFiguresCounted(
+	sample: CountedSample,
+	options: PopulationOptions = {}
+): PopulationFigures | null {
+	if (sample.n < 2) return null;
+	const models = compareModelsCounted(sample);
+	const characteristic = characteristicCoversCounted(
+		sample,
+		models.normal,
+		models.lognormal,
+		options.fractileP ?? 0.05,
+		options.confidence ?? 0.95
+	);
+	return toPlainJson({
+		description: describeCounted(sample),
+		percentiles: RESEARCH_PERCENTILES.map((p) => ({ p, valueMm: percentileCounted(sample, p) })),
+		models,
+		characteristic,
+		charts: options.charts ? researchCharts(expandCounted(sample), models) : null
+	});
+}
+
+/** shareBelow of a population held as counts. */
+export function shareBelowCounted(
+	sample: CountedSample,
+	limitMm: number,
+	confidence = 0.95
+): FractionBelow | null {
+	if (sample.n < 2) return null;
+	const models = compareModelsCounted(sample);
+	return toPlainJson(
+		fractionBelowCounted(sample, limitMm, models.normal, models.lognormal, confidence)
+	);
 }

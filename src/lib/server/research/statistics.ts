@@ -1,9 +1,9 @@
 import type { Sequelize } from 'sequelize';
-import { ENGINE_VERSION, type FractionBelow } from '$lib/analysis';
+import { countedFromTally, ENGINE_VERSION, type FractionBelow } from '$lib/analysis';
 import type { GroupKey, ResearchFilter } from './filter';
 import { gatherGroups, type GroupValues } from './groups';
 import { selectedMembers } from './members';
-import { populationFigures, shareBelow, type PopulationFigures } from './population';
+import { populationFiguresCounted, shareBelowCounted, type PopulationFigures } from './population';
 import { pseudonymMaker } from './pseudonym';
 
 /** Statistics of one population of the selection: cover, deviation from nominal, below c_min. */
@@ -38,12 +38,15 @@ function groupStatistics(group: GroupValues, options: StatisticsOptions, charts:
 	const figureOptions = { fractileP: options.fractileP, confidence: options.confidence, charts };
 	return {
 		key: group.key,
-		readingCount: group.coversMm.length,
+		readingCount: group.readingCount,
 		memberCount: group.memberRefs.size,
 		assetCount: group.assetRefs.size,
-		cover: populationFigures(group.coversMm, figureOptions),
-		deviationFromNominal: populationFigures(group.deviationsMm, figureOptions),
-		belowCMin: shareBelow(group.marginsMm, 0, options.confidence)
+		cover: populationFiguresCounted(countedFromTally(group.coversMm), figureOptions),
+		deviationFromNominal: populationFiguresCounted(
+			countedFromTally(group.deviationsMm),
+			figureOptions
+		),
+		belowCMin: shareBelowCounted(countedFromTally(group.marginsMm), 0, options.confidence)
 	};
 }
 

@@ -9,6 +9,7 @@ import { intakeProgress } from './008-intake-progress';
 import { coverSets } from './009-cover-sets';
 import { secondApprover } from './010-second-approver';
 import { durabilityMeasurements } from './011-durability-measurements';
+import { coverCounts } from './012-cover-counts';
 import { surveyPlans } from './013-survey-plans';
 import { syncBatches } from './014-sync-batches';
 import type { Migration } from './types';
@@ -29,6 +30,7 @@ export const migrations: Migration[] = [
 	coverSets,
 	secondApprover,
 	durabilityMeasurements,
+	coverCounts,
 	surveyPlans,
 	syncBatches
 ];

@@ -19,6 +19,12 @@ export class MemberCoverSet extends Model<
 	declare readingCount: number;
 	/** IEEE 754 doubles, little-endian (readings/coverSetCodec.ts). */
 	declare coversMm: Buffer;
+	/** The meter's grid, cover = (k / gridDen) · gridFactor (analysis/coverGrid.ts); null off every grid. */
+	declare gridDen: CreationOptional<number | null>;
+	declare gridFactor: CreationOptional<number | null>;
+	declare distinctCovers: CreationOptional<number>;
+	/** Counts of each distinct cover (readings/coverCountCodec.ts, migration 012); null until written. */
+	declare coverCounts: CreationOptional<Buffer | null>;
 	declare updatedAt: CreationOptional<Date>;
 
 	static initModel(sequelize: Sequelize) {
@@ -27,6 +33,10 @@ export class MemberCoverSet extends Model<
 				memberId: { type: DataTypes.INTEGER.UNSIGNED, primaryKey: true },
 				readingCount: { type: DataTypes.INTEGER.UNSIGNED, allowNull: false },
 				coversMm: { type: DataTypes.BLOB('long'), allowNull: false },
+				gridDen: { type: DataTypes.INTEGER.UNSIGNED, allowNull: true },
+				gridFactor: { type: DataTypes.DOUBLE, allowNull: true },
+				distinctCovers: { type: DataTypes.INTEGER.UNSIGNED, allowNull: false, defaultValue: 0 },
+				coverCounts: { type: DataTypes.BLOB('long'), allowNull: true },
 				updatedAt: DataTypes.DATE
 			},
 			{ sequelize, tableName: 'member_cover_sets', createdAt: false }
