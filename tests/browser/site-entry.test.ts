@@ -91,7 +91,7 @@ describe('on-site entry, offline and back (chromium, the built app)', () => {
 
 		// Touch targets of at least 44 px (WCAG 2.2 success criterion 2.5.5, target size).
 		const heights = await page
-			.locator('form input, form button, section[aria-labelledby=members] button')
+			.locator('section form input, section form button, section[aria-labelledby=members] button')
 			.evaluateAll((els) => els.map((e) => e.getBoundingClientRect().height));
 		expect(heights.length).toBeGreaterThan(10);
 		expect(Math.min(...heights)).toBeGreaterThanOrEqual(44);
