@@ -5,6 +5,7 @@ import { listMembers } from '$lib/server/intake/members';
 import { loadOr404 } from '$lib/server/intake/pages';
 import { idParam } from '$lib/server/intake/respond';
 import { scopedSurvey } from '$lib/server/scope';
+import { plannedReadingsByMember } from '$lib/server/planning/service';
 
 export const load: PageServerLoad = async (event) => {
 	const actor = pageActor(event, 'survey:read');
@@ -12,15 +13,19 @@ export const load: PageServerLoad = async (event) => {
 	const { survey, asset } = await loadOr404(() => scopedSurvey(actor, surveyId, 'read'));
 	const own = asset.organisationId === actor.organisationId;
 	const editable = own && (survey.status === 'draft' || survey.status === 'returned');
+	// The survey's plan, when one is saved: each member's count shows "of N planned".
+	const planned = (await plannedReadingsByMember(surveyId)).filter((row) => row.planned !== null);
 	return {
 		survey: { id: survey.id, title: survey.title, status: survey.status },
 		asset: { id: asset.id, name: asset.name, designCode: asset.designCode },
 		members: await listMembers(actor, surveyId),
-		/**
-		 * Planned readings per member id, from the survey's plan, shown as "of N planned" beside
-		 * each member's running count. No plan service exists on this branch yet: null shows none.
-		 */
-		plannedReadingsByMember: null as Record<number, number> | null,
+		/** Planned readings per member id from the survey's plan; null when no population is planned. */
+		plannedReadingsByMember:
+			planned.length > 0
+				? (Object.fromEntries(
+						planned.map((row) => [row.memberId, row.planned as number])
+					) as Record<number, number>)
+				: null,
 		can: {
 			enter: editable && can(actor.role, 'reading:edit'),
 			holes: editable && can(actor.role, 'hole:write'),
