@@ -52,3 +52,7 @@ export function formatDateTime(value: Date | string | null | undefined, none = '
 	if (Number.isNaN(date.getTime())) return String(value);
 	return `${date.toISOString().slice(0, 16).replace('T', ' ')} UTC`;
 }
+
+/** What "depassivated" means, for an owner who is not a corrosion engineer (pages and report). */
+export const DEPASSIVATED_WORDS =
+	'“Without protection” (depassivated) means the concrete around the steel no longer keeps it from corroding: carbonation or chlorides have reached the bar. Corrosion can start from then on; it is not yet damage.';
