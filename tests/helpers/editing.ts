@@ -1,6 +1,7 @@
 import type { Sequelize } from 'sequelize';
 import { afterAll, beforeAll } from 'vitest';
-import { AuditEvent, VerificationHole } from '../../src/lib/server/db/models';
+import { AuditEvent, Member, VerificationHole } from '../../src/lib/server/db/models';
+import { addReadings } from './readings';
 import type { Actor } from '../../src/lib/server/policy';
 import { actorFor, freshSurvey, otherOrganisation, testSequelize } from './intake';
 import { DEMO_USERS, signInAs, type HttpClient } from './session';
@@ -46,8 +47,14 @@ export async function foreignRecords() {
 	return editableRecords(other.actor);
 }
 
-/** Hands a survey to review through the API, as its surveyor would: its records freeze. */
+/**
+ * Hands a survey to review through the API, as its surveyor would: its records freeze. A survey
+ * without readings cannot be submitted, so its first member is given one reading first.
+ */
 export async function submitSurvey(client: HttpClient, surveyId: number): Promise<void> {
+	const first = await Member.findOne({ where: { surveyId }, order: [['id', 'ASC']] });
+	if (!first) throw new Error(`survey ${surveyId} has no member to give a reading`);
+	await addReadings(surveyId, first.id, [{ xMm: 0, yMm: 0, coverMm: 30 }]);
 	const response = await client.postJson(`/api/v1/surveys/${surveyId}/submit`, {});
 	if (response.status !== 200) throw new Error(`submit failed: ${response.status}`);
 }

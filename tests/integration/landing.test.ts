@@ -1,5 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { appUrl } from '../helpers/env';
+import { signInAs } from '../helpers/session';
 
 describe('the landing page', () => {
 	it('says what the product does and for whom, with the caution', async () => {
@@ -32,5 +33,21 @@ describe('the landing page', () => {
 		expect(response.headers.get('x-content-type-options')).toBe('nosniff');
 		expect(response.headers.get('content-security-policy')).toContain("frame-ancestors 'none'");
 		expect(response.headers.get('referrer-policy')).toBeTruthy();
+	});
+
+	it('offers a signed-in visitor their dashboard, not sign-in or a new organisation', async () => {
+		const engineer = await signInAs('engineer');
+		const landing = await (await engineer.get('/')).text();
+		expect(landing).toContain('href="/dashboard"');
+		expect(landing).not.toContain('Set up an organisation');
+		expect(landing).not.toContain('href="/sign-in"');
+		const anonymous = await (await fetch(appUrl())).text();
+		expect(anonymous).toContain('Set up an organisation');
+	});
+
+	it('does not offer "Open my dashboard" on the signed-in pages themselves', async () => {
+		const engineer = await signInAs('engineer');
+		const dashboard = await (await engineer.get('/dashboard')).text();
+		expect(dashboard).not.toContain('Open my dashboard');
 	});
 });

@@ -5,6 +5,7 @@ import type { Actor } from '../../../src/lib/server/policy';
 import { signUpNewOrganisation } from '../../helpers/accounts';
 import { appUrl } from '../../helpers/env';
 import { actorFor, countReadings, csv, freshSurvey, testSequelize } from '../../helpers/intake';
+import { addReadings } from '../../helpers/readings';
 import { signInAs, type HttpClient } from '../../helpers/session';
 
 const HEADER = 'Member,X,Y,Cover';
@@ -108,8 +109,20 @@ describe('intake API over HTTP (the built app, the real database)', () => {
 		);
 	});
 
-	it('moves a survey draft → submitted → returned → submitted → approved, audited, readings frozen', async () => {
+	it('refuses to submit a survey without readings, saying why, and leaves it a draft', async () => {
 		const { survey } = await freshSurvey(actor);
+		const refused = await surveyor.postJson(`/api/v1/surveys/${survey.id}/submit`, {});
+		expect(refused.status).toBe(409);
+		expect((await refused.json()).error.message).toBe(
+			'The survey has no readings yet: enter or import readings before submitting it for review.'
+		);
+		await survey.reload();
+		expect(survey.status).toBe('draft');
+	});
+
+	it('moves a survey draft → submitted → returned → submitted → approved, audited, readings frozen', async () => {
+		const { survey, members } = await freshSurvey(actor);
+		await addReadings(survey.id, members[0].id, [{ xMm: 0, yMm: 0, coverMm: 31 }]);
 		const engineer = await signInAs('engineer');
 		expect((await surveyor.postJson(`/api/v1/surveys/${survey.id}/submit`, {})).status).toBe(200);
 		const frozen = await upload(surveyor, survey.id, csv([HEADER, 'M-01,0,0,31']));

@@ -1,12 +1,14 @@
 import type { Transaction } from 'sequelize';
 import type { Survey } from '../db/models';
 import { StateError } from '../domainErrors';
+import { frozenWords } from '$lib/intake/frozen';
 
-/** Why a survey may not be changed, or null: a submitted or approved survey is frozen. */
-export function frozenReason(survey: Pick<Survey, 'status'>): string | null {
-	if (survey.status !== 'submitted' && survey.status !== 'approved') return null;
-	const next = survey.status === 'submitted' ? ' An engineer can return it for changes.' : '';
-	return `The survey is ${survey.status}: its readings are frozen.${next}`;
+/**
+ * Why a survey may not be changed, or null: a submitted or approved survey is frozen. Pages
+ * pass whether the reader may return it, so the way to unfreeze is named for them.
+ */
+export function frozenReason(survey: Pick<Survey, 'status'>, mayReturn?: boolean): string | null {
+	return frozenWords(survey.status, mayReturn);
 }
 
 /** A submitted or approved survey's readings, members and holes are frozen. */

@@ -1,5 +1,5 @@
 import type { Transaction } from 'sequelize';
-import { Survey } from '../db/models';
+import { Member, Survey } from '../db/models';
 import type { SurveyState } from '../db/models/Survey';
 import { recordAudit } from '../audit';
 import { StateError } from '../domainErrors';
@@ -8,6 +8,8 @@ import type { Actor } from '../policy';
 import { scopedAsset, scopedSurvey } from '../scope';
 import { assertSurveyEditableLocked } from './frozen';
 import { saveAudited } from './changes';
+import { readingCounts } from '../readings/coverSets';
+import { EMPTY_SURVEY_WORDS } from '$lib/intake/frozen';
 
 export async function listSurveys(actor: Actor, assetId: number) {
 	await scopedAsset(actor, assetId, 'read');
@@ -89,6 +91,9 @@ export async function transitionSurvey(
 		}
 		if (step === 'return' && !comment)
 			throw new StateError('Say what must change when returning a survey.');
+		if (step === 'submit' && !(await hasReadings(survey.id, transaction))) {
+			throw new StateError(EMPTY_SURVEY_WORDS);
+		}
 		const now = new Date();
 		const previous = survey.status;
 		await survey.update(
@@ -100,4 +105,12 @@ export async function transitionSurvey(
 		await audit(actor, `survey.${to}`, survey, { from: previous, to, comment }, transaction);
 		return survey;
 	});
+}
+
+/** Whether any member of the survey has a reading: an empty survey has nothing to review. */
+async function hasReadings(surveyId: number, transaction: Transaction): Promise<boolean> {
+	const members = await Member.findAll({ attributes: ['id'], where: { surveyId }, transaction });
+	if (members.length === 0) return false;
+	const counts = await readingCounts(members.map((m) => m.id));
+	return counts.size > 0;
 }

@@ -6,7 +6,7 @@
  * chosen explicitly; the choice travels with the page URL into the saved assessment.
  */
 import { Member, MemberCoverSet, Survey } from '$lib/server/db';
-import { surveyStateWords } from '$lib/words';
+import { counted, surveyStateWords } from '$lib/words';
 import { apiError } from '$lib/server/http';
 
 export interface SelectableSurvey {
@@ -38,8 +38,6 @@ export function requestedSurveyIds(scope: {
 	return null;
 }
 
-const plural = (n: number, one: string, many: string) => `${n} ${n === 1 ? one : many}`;
-
 function describe(surveys: SelectableSurvey[], basis: SurveySelection['basis']): string {
 	const included = surveys.filter((s) => s.included);
 	if (included.length === 0) {
@@ -51,13 +49,13 @@ function describe(surveys: SelectableSurvey[], basis: SurveySelection['basis']):
 	const list = included.map((s) => `${s.title} (${surveyStateWords(s.status)})`).join('; ');
 	const lead =
 		basis === 'approved'
-			? `Approved surveys only, ${plural(included.length, 'survey', 'surveys')}: `
+			? `Approved surveys only, ${counted(included.length, 'survey', 'surveys')}: `
 			: basis === 'submitted'
-				? `No survey is approved yet, so the submitted ${plural(included.length, 'survey is', 'surveys are')} shown: `
-				: `${plural(included.length, 'survey', 'surveys')} chosen: `;
+				? `No survey is approved yet, so the submitted ${counted(included.length, 'survey is', 'surveys are')} shown: `
+				: `${counted(included.length, 'survey', 'surveys')} chosen: `;
 	const caution =
 		notApproved.length > 0
-			? ` ${plural(notApproved.length, 'survey is', 'surveys are')} not approved; an assessment made from them says so.`
+			? ` ${counted(notApproved.length, 'survey is', 'surveys are')} not approved; an assessment made from them says so.`
 			: '';
 	return `${lead}${list}.${caution}`;
 }

@@ -36,11 +36,22 @@ const FIGURES: [string, (g: GroupStatistics) => number | string | boolean | null
 	['belowCMinUpperBound', (g) => g.belowCMin?.upperBound ?? null]
 ];
 
+/**
+ * A figure without binary floating-point noise: 12 significant digits keep every digit a cover
+ * meter (0.1 mm) or a fraction can carry, and drop the tail of sums such as -8.899999999999999
+ * (IEEE 754 doubles hold 15–17 significant digits, so the last ones are rounding, not data).
+ */
+export function tidyFigure<T>(value: T): T | number {
+	return typeof value === 'number' && Number.isFinite(value)
+		? Number(value.toPrecision(12))
+		: value;
+}
+
 export const GROUP_STAT_COLUMNS = ['population', ...GROUP_KEYS, ...FIGURES.map(([name]) => name)];
 
 function line(label: string, g: GroupStatistics, groupBy: readonly GroupKey[]): string {
 	const keys = GROUP_KEYS.map((k) => (groupBy.includes(k) ? (g.key[k] ?? null) : null));
-	return csvLine([label, ...keys, ...FIGURES.map(([, value]) => value(g))]);
+	return csvLine([label, ...keys, ...FIGURES.map(([, value]) => tidyFigure(value(g)))]);
 }
 
 export function groupStatisticsCsv(stats: ResearchStatistics): string {

@@ -60,3 +60,57 @@ export function operationsOf(paths: Record<string, Record<string, unknown>>) {
 		})
 	);
 }
+
+/** A JSON schema as the OpenAPI document writes it (the parts the reference shows). */
+interface JsonSchema {
+	type?: string | string[];
+	$ref?: string;
+	enum?: unknown[];
+	anyOf?: JsonSchema[];
+	items?: JsonSchema;
+	properties?: Record<string, JsonSchema>;
+	required?: string[];
+	description?: string;
+}
+
+/** "string", "integer | null", "one of mm, inch", "SurveyRecord", "list of Reading"… */
+function schemaType(schema: JsonSchema): string {
+	if (schema.$ref) return schemaName(schema) ?? 'object';
+	if (schema.enum) return `one of ${schema.enum.map(String).join(', ')}`;
+	if (schema.anyOf) return schema.anyOf.map(schemaType).join(' | ');
+	const types = Array.isArray(schema.type) ? schema.type : [schema.type ?? 'object'];
+	return types.map((t) => (t === 'array' && schema.items ? `list of ${schemaType(schema.items)}` : t)).join(' | ');
+}
+
+export interface SchemaField {
+	name: string;
+	type: string;
+	required: boolean;
+	description: string;
+}
+
+/**
+ * The named schemas as field tables, so a body or an answer named on the page is also shown
+ * there (nested objects one level down, as "parent.child").
+ */
+export function schemaTables(schemas: Record<string, JsonSchema>): Record<string, SchemaField[]> {
+	const fieldsOf = (schema: JsonSchema, prefix = ''): SchemaField[] =>
+		Object.entries(schema.properties ?? {}).flatMap(([name, field]) => {
+			const row = {
+				name: prefix + name,
+				type: schemaType(field),
+				required: (schema.required ?? []).includes(name),
+				description: field.description ?? ''
+			};
+			return field.properties && !prefix ? [row, ...fieldsOf(field, `${name}.`)] : [row];
+		});
+	return Object.fromEntries(Object.entries(schemas).map(([name, s]) => [name, fieldsOf(s)]));
+}
+
+/** Text with `code` in backticks, as parts to print: code parts in a code face, never raw ticks. */
+export function withCode(text: string): { text: string; code: boolean }[] {
+	return text
+		.split('`')
+		.map((part, i) => ({ text: part, code: i % 2 === 1 }))
+		.filter((part) => part.text !== '');
+}

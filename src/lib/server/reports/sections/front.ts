@@ -2,7 +2,7 @@
 import { referenceSurvey, toRiskView, type AssessedSource } from '$lib/server/risk';
 import { CAUTION_TEXT, CAUTION_TITLE } from '../caution';
 import type { ReportWriter } from '../layout';
-import { surveyStateWords } from '$lib/words';
+import { DEPASSIVATED_WORDS, surveyStateWords } from '$lib/words';
 import { dateOnly, pct } from '../text';
 
 /** Each survey whose readings are in the figures, with its state when the figures were taken. */
@@ -85,10 +85,7 @@ export function ownerSummary(w: ReportWriter, source: AssessedSource): void {
 			[p.reason, p.explanation, p.indicative].filter(Boolean).join(' ')
 		])
 	);
-	w.paragraph(
-		'“Without protection” (depassivated) means the concrete around the steel no longer keeps it from corroding: carbonation or chlorides have reached the bar. Corrosion can start from then on; it is not yet damage.',
-		{ size: 9 }
-	);
+	w.paragraph(DEPASSIVATED_WORDS, { size: 9 });
 	w.heading("Engineer's recommendations", 2);
 	w.paragraph(
 		header.recommendations ?? 'The engineer gave no recommendations with this assessment.'

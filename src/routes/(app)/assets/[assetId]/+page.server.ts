@@ -25,7 +25,13 @@ export const load: PageServerLoad = async (event) => {
 		})),
 		canReadSurveys,
 		canCreateSurvey: own && can(actor.role, 'survey:create'),
-		canEdit: own && can(actor.role, 'asset:write')
+		canEdit: own && can(actor.role, 'asset:write'),
+		// Where the asset leads on, each only for a role the policy lets follow it.
+		onward: {
+			populations: can(actor.role, 'population:read'),
+			assessments: can(actor.role, 'assessment:read'),
+			ownerView: can(actor.role, 'report:read')
+		}
 	};
 };
 

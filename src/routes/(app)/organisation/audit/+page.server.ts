@@ -1,26 +1,12 @@
+import { z } from 'zod';
 import type { PageServerLoad } from './$types';
 import { pageActor } from '$lib/server/guard';
-import { AuditEvent, User } from '$lib/server/db';
+import { auditLogPage } from '$lib/server/auditLog';
 
-/** The latest audit events of the active organisation, with who did them. */
+const pageSchema = z.coerce.number().int().min(1).max(1_000_000).catch(1);
+
+/** One page of the organisation's audit events, newest first, in words. */
 export const load: PageServerLoad = async (event) => {
 	const actor = pageActor(event, 'audit:read');
-	const events = await AuditEvent.findAll({
-		where: { organisationId: actor.organisationId },
-		order: [['id', 'DESC']],
-		limit: 200
-	});
-	const userIds = [...new Set(events.map((e) => e.userId).filter((id): id is number => !!id))];
-	const users = await User.findAll({ where: { id: userIds }, attributes: ['id', 'displayName'] });
-	const names = new Map(users.map((u) => [u.id, u.displayName]));
-	return {
-		events: events.map((e) => ({
-			id: e.id,
-			at: e.createdAt,
-			action: e.action,
-			who: e.userId ? (names.get(e.userId) ?? `user ${e.userId}`) : '—',
-			subject: e.subjectType ? `${e.subjectType} ${e.subjectId ?? ''}` : '',
-			detail: e.detail ? JSON.stringify(e.detail) : ''
-		}))
-	};
+	return auditLogPage(actor, pageSchema.parse(event.url.searchParams.get('page') ?? 1));
 };

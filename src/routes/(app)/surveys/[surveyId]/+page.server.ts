@@ -14,6 +14,9 @@ import { actOr, loadOr404 } from '$lib/server/intake/pages';
 import { idParam } from '$lib/server/intake/respond';
 import { scopedSurvey } from '$lib/server/scope';
 import { hasSurveyPlan } from '$lib/server/planning/service';
+import { EMPTY_SURVEY_WORDS } from '$lib/intake/frozen';
+import { counted } from '$lib/words';
+import { frozenReason } from '$lib/server/intake/frozen';
 
 export const load: PageServerLoad = async (event) => {
 	const actor = pageActor(event, 'survey:read');
@@ -22,10 +25,16 @@ export const load: PageServerLoad = async (event) => {
 	const own = asset.organisationId === actor.organisationId;
 	const editable = own && (survey.status === 'draft' || survey.status === 'returned');
 	const attachments = await Attachment.findAll({ where: { surveyId }, order: [['id', 'DESC']] });
+	const members = await listMembers(actor, surveyId);
+	// A survey without readings has nothing to review; the service refuses it too.
+	const hasReadings = members.some((m) => m.readingCount > 0);
 	return {
 		survey: survey.get({ plain: true }),
 		asset: { id: asset.id, name: asset.name, designCode: asset.designCode },
-		members: await listMembers(actor, surveyId),
+		members,
+		frozen: own ? frozenReason(survey, can(actor.role, 'survey:review')) : null,
+		emptyNotice:
+			editable && !hasReadings && can(actor.role, 'survey:submit') ? EMPTY_SURVEY_WORDS : null,
 		imports: await listImports(actor, surveyId),
 		attachments: attachments.map((a) => ({
 			id: a.id,
@@ -42,7 +51,7 @@ export const load: PageServerLoad = async (event) => {
 			editMembers: editable && can(actor.role, 'member:write'),
 			importReadings: editable && can(actor.role, 'reading:import'),
 			upload: editable && can(actor.role, 'attachment:upload'),
-			submit: editable && can(actor.role, 'survey:submit'),
+			submit: editable && hasReadings && can(actor.role, 'survey:submit'),
 			review: own && survey.status === 'submitted' && can(actor.role, 'survey:review'),
 			// Planners plan; anyone who reads the survey sees a saved plan and its site sheet.
 			plan: (own && can(actor.role, 'survey:plan')) || (await hasSurveyPlan(surveyId))
@@ -81,7 +90,7 @@ export const actions = {
 				2
 			);
 		});
-		return Array.isArray(done) ? { ok: `${done.length} members added.` } : done;
+		return Array.isArray(done) ? { ok: `${counted(done.length, 'member')} added.` } : done;
 	},
 	submit: async ({ locals, request, params }) => {
 		const actor = authorize(locals, 'survey:submit');

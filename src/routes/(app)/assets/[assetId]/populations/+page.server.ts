@@ -17,6 +17,7 @@ export const load: PageServerLoad = async (event) => {
 	return {
 		asset: { id: asset.id, name: asset.name },
 		surveys,
-		canAssess: access === 'own' && can(actor.role, 'assessment:write')
+		canAssess: access === 'own' && can(actor.role, 'assessment:write'),
+		canReadAssessments: can(actor.role, 'assessment:read')
 	};
 };

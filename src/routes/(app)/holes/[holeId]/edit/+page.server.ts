@@ -1,6 +1,7 @@
 import { z } from 'zod';
 import type { Actions, PageServerLoad } from './$types';
 import { pageActor } from '$lib/server/guard';
+import { can } from '$lib/server/policy';
 import { holeSchema } from '$lib/intake/schemas';
 import { formValuesOf } from '$lib/intake/formValues';
 import { deleteHole, updateHole } from '$lib/server/intake/holes';
@@ -19,7 +20,7 @@ export const load: PageServerLoad = async (event) => {
 		hole: { id: hole.id, label: hole.label },
 		member: { id: member.id, label: member.label },
 		values: formValuesOf(hole.get({ plain: true }), holeSchema),
-		frozen: frozenReason(survey)
+		frozen: frozenReason(survey, can(actor.role, 'survey:review'))
 	};
 };
 

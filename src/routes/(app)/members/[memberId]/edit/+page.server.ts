@@ -1,5 +1,6 @@
 import type { Actions, PageServerLoad } from './$types';
 import { pageActor } from '$lib/server/guard';
+import { can } from '$lib/server/policy';
 import { memberSchema } from '$lib/intake/schemas';
 import { formValuesOf } from '$lib/intake/formValues';
 import { updateMember } from '$lib/server/intake/members';
@@ -18,7 +19,7 @@ export const load: PageServerLoad = async (event) => {
 		member: { id: member.id, label: member.label },
 		designCode: asset.designCode,
 		values: formValuesOf(member.get({ plain: true }), memberSchema),
-		frozen: frozenReason(survey)
+		frozen: frozenReason(survey, can(actor.role, 'survey:review'))
 	};
 };
 

@@ -8,6 +8,7 @@ import { createHole, listHoles } from '$lib/server/intake/holes';
 import { actOr, loadOr404 } from '$lib/server/intake/pages';
 import { idParam } from '$lib/server/intake/respond';
 import { scopedMember } from '$lib/server/scope';
+import { frozenReason } from '$lib/server/intake/frozen';
 
 export const load: PageServerLoad = async (event) => {
 	const actor = pageActor(event, 'survey:read');
@@ -22,6 +23,8 @@ export const load: PageServerLoad = async (event) => {
 		survey: { id: survey.id, title: survey.title, status: survey.status },
 		readingCount: await Reading.count({ where: { memberId } }),
 		holes: holes.map((h) => h.get({ plain: true })),
+		// Said where the grid would be, so a frozen survey does not just lack one.
+		frozen: frozenReason(survey, can(actor.role, 'survey:review')),
 		can: {
 			enter: editable && can(actor.role, 'reading:edit'),
 			editMember: editable && can(actor.role, 'member:write'),

@@ -1,5 +1,6 @@
 import type { Actions, PageServerLoad } from './$types';
 import { pageActor } from '$lib/server/guard';
+import { can } from '$lib/server/policy';
 import { surveySchema } from '$lib/intake/schemas';
 import { formValuesOf } from '$lib/intake/formValues';
 import { updateSurvey } from '$lib/server/intake/surveys';
@@ -17,7 +18,7 @@ export const load: PageServerLoad = async (event) => {
 	return {
 		survey: { id: survey.id, title: survey.title },
 		values: formValuesOf(survey.get({ plain: true }), surveySchema),
-		frozen: frozenReason(survey)
+		frozen: frozenReason(survey, can(actor.role, 'survey:review'))
 	};
 };
 
