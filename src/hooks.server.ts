@@ -44,7 +44,7 @@ export const handle: Handle = async ({ event, resolve }) => {
 	event.locals.session = null;
 	event.locals.membership = null;
 	event.locals.authMethod = null;
-	let throttledUntil: Date | null = null;
+	let throttledUntil: Date | null;
 	let limited: Response | null = null;
 	try {
 		({ throttledUntil } = await resolveAuth(event));

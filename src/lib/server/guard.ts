@@ -23,7 +23,7 @@ const PROBE_ORIGIN = 'https://fractile.invalid';
  * and newline anywhere in a URL (so "/\t/evil.example" becomes "//evil.example") and read "\" as
  * "/"; a newline in a Location header is also refused by Node itself (a 500, not a redirect).
  */
-const UNSAFE_CHARACTER = /[\u0000-\u001f\u007f-\u009f\\]/;
+const UNSAFE_CHARACTER = /[\p{Cc}\\]/u; // Cc: U+0000–001F and U+007F–009F
 
 /**
  * Only paths on our own site, so `next` cannot send anyone elsewhere after sign-in. The path is

@@ -5,7 +5,7 @@ import { visibleAssets } from '$lib/server/api/visible';
 import { assetAnswer } from '$lib/server/api/ownRecords';
 import { readJson } from '$lib/server/http';
 import { assetSchema } from '$lib/intake/schemas';
-import { createAsset, listAssets } from '$lib/server/intake/assets';
+import { createAsset } from '$lib/server/intake/assets';
 import { api } from '$lib/server/intake/respond';
 
 /** Assets the caller's organisation owns or has been shared. */

@@ -8,7 +8,7 @@ import { visibleAsset } from '$lib/server/api/visible';
 import { surveysOf } from '$lib/server/api/ownRecords';
 import { readJson } from '$lib/server/http';
 import { surveySchema } from '$lib/intake/schemas';
-import { createSurvey, listSurveys } from '$lib/server/intake/surveys';
+import { createSurvey } from '$lib/server/intake/surveys';
 import { api, idParam as intakeId } from '$lib/server/intake/respond';
 
 export const GET: RequestHandler = async ({ locals, params }) => {

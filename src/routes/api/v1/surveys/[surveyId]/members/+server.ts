@@ -8,7 +8,7 @@ import { visibleSurvey } from '$lib/server/api/visible';
 import { membersOf } from '$lib/server/api/ownRecords';
 import { readJson } from '$lib/server/http';
 import { memberSchema } from '$lib/intake/schemas';
-import { createMembers, listMembers } from '$lib/server/intake/members';
+import { createMembers } from '$lib/server/intake/members';
 import { api, idParam as intakeId } from '$lib/server/intake/respond';
 
 export const GET: RequestHandler = async ({ locals, params }) => {
