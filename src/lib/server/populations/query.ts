@@ -3,7 +3,7 @@
  * One zod schema for the API's query string and the page URL, so a view can be bookmarked.
  */
 import { error } from '@sveltejs/kit';
-import { apiError } from '$lib/server/http';
+import { apiError } from '$lib/server/web/http';
 import { z } from 'zod';
 import { RULE_SETS, type AssessOptions, type RuleSetName } from '$lib/analysis';
 import { MEMBER_FACES, MEMBER_TYPES } from '$lib/server/db/migrations/002-surveys';

@@ -1,7 +1,7 @@
 import { error, redirect } from '@sveltejs/kit';
 import { z } from 'zod';
 import type { Actions, PageServerLoad } from './$types';
-import { pageActor } from '$lib/server/guard';
+import { pageActor } from '$lib/server/web/guard';
 import { authorize } from '$lib/server/policy';
 import { endDevice, listDevices } from '$lib/server/auth/devices';
 

@@ -1,6 +1,6 @@
 import { fail, redirect } from '@sveltejs/kit';
 import type { Actions, PageServerLoad } from './$types';
-import { pageActor } from '$lib/server/guard';
+import { pageActor } from '$lib/server/web/guard';
 import { authorize, can } from '$lib/server/policy';
 import { pathId, visibleAsset } from '$lib/server/populations';
 import { approve, getAssessment, mayApprove, withSnapshot } from '$lib/server/assessments';

@@ -1,10 +1,10 @@
 import type { Actions, PageServerLoad } from './$types';
 import { can } from '$lib/server/policy';
-import { pageActor } from '$lib/server/guard';
+import { pageActor } from '$lib/server/web/guard';
 import { surveySchema } from '$lib/intake/schemas';
 import { createSurvey, listSurveys } from '$lib/server/intake/surveys';
-import { loadOr404, savingAction } from '$lib/server/intake/pages';
-import { idParam } from '$lib/server/intake/respond';
+import { loadOr404, savingAction } from '$lib/server/web/pages';
+import { idParam } from '$lib/server/web/respond';
 import { scopedAsset } from '$lib/server/scope';
 
 export const load: PageServerLoad = async (event) => {

@@ -1,5 +1,5 @@
 import type { PageServerLoad } from './$types';
-import { pageActor } from '$lib/server/guard';
+import { pageActor } from '$lib/server/web/guard';
 import { pathId, visibleMember } from '$lib/server/populations';
 
 /** The frame of a member's view; readings and holes are fetched from the API by the browser. */

@@ -1,5 +1,5 @@
 import type { PageServerLoad } from './$types';
-import { pageActor } from '$lib/server/guard';
+import { pageActor } from '$lib/server/web/guard';
 import { AuditEvent, User } from '$lib/server/db';
 
 /** The latest audit events of the active organisation, with who did them. */

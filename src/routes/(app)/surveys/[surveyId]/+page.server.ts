@@ -2,16 +2,16 @@ import { fail } from '@sveltejs/kit';
 import type { Actions, PageServerLoad } from './$types';
 import { Attachment } from '$lib/server/db';
 import { authorize, can } from '$lib/server/policy';
-import { pageActor } from '$lib/server/guard';
-import { parseForm } from '$lib/server/forms';
+import { pageActor } from '$lib/server/web/guard';
+import { parseForm } from '$lib/server/web/forms';
 import { memberSchema, reviewSchema } from '$lib/intake/schemas';
 import { createMembers, listMembers } from '$lib/server/intake/members';
 import { parsePastedMembers } from '$lib/server/intake/pastedMembers';
 import { transitionSurvey } from '$lib/server/intake/surveys';
 import { listImports } from '$lib/server/import/batchActions';
 import { IMPORT_LIMITS } from '$lib/server/import/limits';
-import { actOr, loadOr404 } from '$lib/server/intake/pages';
-import { idParam } from '$lib/server/intake/respond';
+import { actOr, loadOr404 } from '$lib/server/web/pages';
+import { idParam } from '$lib/server/web/respond';
 import { scopedSurvey } from '$lib/server/scope';
 
 export const load: PageServerLoad = async (event) => {

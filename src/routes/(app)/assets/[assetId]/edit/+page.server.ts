@@ -1,10 +1,10 @@
 import type { Actions, PageServerLoad } from './$types';
-import { pageActor } from '$lib/server/guard';
+import { pageActor } from '$lib/server/web/guard';
 import { assetSchema } from '$lib/intake/schemas';
 import { formValuesOf } from '$lib/intake/formValues';
 import { updateAsset } from '$lib/server/intake/assets';
-import { loadOr404, savingAction } from '$lib/server/intake/pages';
-import { idParam } from '$lib/server/intake/respond';
+import { loadOr404, savingAction } from '$lib/server/web/pages';
+import { idParam } from '$lib/server/web/respond';
 import { withSavedNotice } from '$lib/intake/savedNotice';
 import { scopedAsset } from '$lib/server/scope';
 

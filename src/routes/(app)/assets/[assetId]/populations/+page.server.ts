@@ -1,5 +1,5 @@
 import type { PageServerLoad } from './$types';
-import { pageActor } from '$lib/server/guard';
+import { pageActor } from '$lib/server/web/guard';
 import { Survey } from '$lib/server/db';
 import { can } from '$lib/server/policy';
 import { pathId, visibleAsset } from '$lib/server/populations';

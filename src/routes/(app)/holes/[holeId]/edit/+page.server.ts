@@ -1,12 +1,12 @@
 import { z } from 'zod';
 import type { Actions, PageServerLoad } from './$types';
-import { pageActor } from '$lib/server/guard';
+import { pageActor } from '$lib/server/web/guard';
 import { holeSchema } from '$lib/intake/schemas';
 import { formValuesOf } from '$lib/intake/formValues';
 import { deleteHole, updateHole } from '$lib/server/intake/holes';
 import { frozenReason } from '$lib/server/intake/frozen';
-import { loadOr404, savingAction } from '$lib/server/intake/pages';
-import { idParam } from '$lib/server/intake/respond';
+import { loadOr404, savingAction } from '$lib/server/web/pages';
+import { idParam } from '$lib/server/web/respond';
 import { withSavedNotice } from '$lib/intake/savedNotice';
 import { scopedHole } from '$lib/server/scope';
 

@@ -1,12 +1,12 @@
 import type { Actions, PageServerLoad } from './$types';
 import { authorize, can } from '$lib/server/policy';
-import { pageActor } from '$lib/server/guard';
-import { parseForm } from '$lib/server/forms';
+import { pageActor } from '$lib/server/web/guard';
+import { parseForm } from '$lib/server/web/forms';
 import { Reading } from '$lib/server/db';
 import { holeSchema } from '$lib/intake/schemas';
 import { createHole, listHoles } from '$lib/server/intake/holes';
-import { actOr, loadOr404 } from '$lib/server/intake/pages';
-import { idParam } from '$lib/server/intake/respond';
+import { actOr, loadOr404 } from '$lib/server/web/pages';
+import { idParam } from '$lib/server/web/respond';
 import { scopedMember } from '$lib/server/scope';
 
 export const load: PageServerLoad = async (event) => {

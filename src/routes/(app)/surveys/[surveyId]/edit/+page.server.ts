@@ -1,11 +1,11 @@
 import type { Actions, PageServerLoad } from './$types';
-import { pageActor } from '$lib/server/guard';
+import { pageActor } from '$lib/server/web/guard';
 import { surveySchema } from '$lib/intake/schemas';
 import { formValuesOf } from '$lib/intake/formValues';
 import { updateSurvey } from '$lib/server/intake/surveys';
 import { frozenReason } from '$lib/server/intake/frozen';
-import { loadOr404, savingAction } from '$lib/server/intake/pages';
-import { idParam } from '$lib/server/intake/respond';
+import { loadOr404, savingAction } from '$lib/server/web/pages';
+import { idParam } from '$lib/server/web/respond';
 import { withSavedNotice } from '$lib/intake/savedNotice';
 import { scopedSurvey } from '$lib/server/scope';
 

@@ -2,8 +2,8 @@ import { fail } from '@sveltejs/kit';
 import { z } from 'zod';
 import type { Actions, PageServerLoad } from './$types';
 import { authorize, can } from '$lib/server/policy';
-import { pageActor } from '$lib/server/guard';
-import { fieldErrors, safeValues } from '$lib/server/forms';
+import { pageActor } from '$lib/server/web/guard';
+import { fieldErrors, safeValues } from '$lib/server/web/forms';
 import {
 	carbonationDepths,
 	carbonationTestSchema,
@@ -21,9 +21,9 @@ import {
 	deleteChlorideProfile
 } from '$lib/server/intake/chloride';
 import { listMembers } from '$lib/server/intake/members';
-import { actOr, loadOr404 } from '$lib/server/intake/pages';
+import { actOr, loadOr404 } from '$lib/server/web/pages';
 import { frozenReason } from '$lib/server/intake/frozen';
-import { idParam } from '$lib/server/intake/respond';
+import { idParam } from '$lib/server/web/respond';
 import { scopedSurvey } from '$lib/server/scope';
 
 export const load: PageServerLoad = async (event) => {

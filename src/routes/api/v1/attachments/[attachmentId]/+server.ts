@@ -5,7 +5,7 @@ import { scopedAttachment } from '$lib/server/storage/attachments';
 import { attachmentDownloadQuerySchema } from '$lib/server/storage/attachmentQuery';
 import { getObject } from '$lib/server/storage/s3';
 import { contentDisposition } from '$lib/server/storage/names';
-import { api, idParam } from '$lib/server/intake/respond';
+import { api, idParam } from '$lib/server/web/respond';
 
 /** Downloads go through the policy and the scope, never straight to the bucket. */
 export const GET: RequestHandler = async ({ locals, params, url }) => {

@@ -3,7 +3,7 @@ import type { RequestHandler } from './$types';
 import { authorize } from '$lib/server/policy';
 import { deleteCarbonationTest } from '$lib/server/intake/carbonation';
 import { scopedCarbonationTest } from '$lib/server/scope';
-import { api, idParam } from '$lib/server/intake/respond';
+import { api, idParam } from '$lib/server/web/respond';
 
 export const GET: RequestHandler = async ({ locals, params }) => {
 	const actor = authorize(locals, 'survey:read');

@@ -2,7 +2,7 @@ import { json } from '@sveltejs/kit';
 import type { RequestHandler } from './$types';
 import { authorize } from '$lib/server/policy';
 import { deleteChlorideProfile, getChlorideProfile } from '$lib/server/intake/chloride';
-import { api, idParam } from '$lib/server/intake/respond';
+import { api, idParam } from '$lib/server/web/respond';
 
 export const GET: RequestHandler = async ({ locals, params }) => {
 	const actor = authorize(locals, 'survey:read');

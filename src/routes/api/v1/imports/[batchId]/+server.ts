@@ -2,7 +2,7 @@ import { json } from '@sveltejs/kit';
 import type { RequestHandler } from './$types';
 import { authorize } from '$lib/server/policy';
 import { importStatus } from '$lib/server/import/batchActions';
-import { api, idParam } from '$lib/server/intake/respond';
+import { api, idParam } from '$lib/server/web/respond';
 
 /** State and progress of an import, from MariaDB: any app process can answer it. */
 export const GET: RequestHandler = async ({ locals, params }) => {

@@ -1,5 +1,5 @@
 import type { PageServerLoad } from './$types';
-import { pageActor } from '$lib/server/guard';
+import { pageActor } from '$lib/server/web/guard';
 import { pathId, visibleAsset } from '$lib/server/populations';
 
 /** The frame of a population detail; the figures are fetched from the API by the browser. */

@@ -2,7 +2,7 @@ import { json } from '@sveltejs/kit';
 import { z } from 'zod';
 import type { RequestHandler } from './$types';
 import { Assessment } from '$lib/server/db';
-import { apiError, readJson } from '$lib/server/http';
+import { apiError, readJson } from '$lib/server/web/http';
 import { authorize } from '$lib/server/policy';
 import {
 	CARBONATION_DEFAULTS,

@@ -1,6 +1,6 @@
 import { z } from 'zod';
 import type { RequestHandler } from './$types';
-import { apiError } from '$lib/server/http';
+import { apiError } from '$lib/server/web/http';
 import { authorize } from '$lib/server/policy';
 import { pdfResponse } from '$lib/server/reports';
 import { assessedSource, readableAssessment } from '$lib/server/risk';

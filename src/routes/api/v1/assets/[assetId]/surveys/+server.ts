@@ -6,10 +6,10 @@ import { parseInput } from '$lib/server/api/request';
 import { idParam } from '$lib/server/api/schemas';
 import { visibleAsset } from '$lib/server/api/visible';
 import { surveysOf } from '$lib/server/api/ownRecords';
-import { readJson } from '$lib/server/http';
+import { readJson } from '$lib/server/web/http';
 import { surveySchema } from '$lib/intake/schemas';
 import { createSurvey } from '$lib/server/intake/surveys';
-import { api, idParam as intakeId } from '$lib/server/intake/respond';
+import { api, idParam as intakeId } from '$lib/server/web/respond';
 
 export const GET: RequestHandler = async ({ locals, params }) => {
 	const actor = authorize(locals, 'survey:read');

@@ -2,7 +2,7 @@ import { json } from '@sveltejs/kit';
 import type { RequestHandler } from './$types';
 import { authorize } from '$lib/server/policy';
 import { cancelImport } from '$lib/server/import/batchActions';
-import { api, idParam } from '$lib/server/intake/respond';
+import { api, idParam } from '$lib/server/web/respond';
 
 export const POST: RequestHandler = async ({ locals, params }) => {
 	const actor = authorize(locals, 'reading:import');

@@ -1,8 +1,8 @@
 import type { RequestHandler } from './$types';
 import { authorize } from '$lib/server/policy';
-import { apiError } from '$lib/server/http';
+import { apiError } from '$lib/server/web/http';
 import { rejectedRowsCsv } from '$lib/server/import/batchActions';
-import { api, idParam } from '$lib/server/intake/respond';
+import { api, idParam } from '$lib/server/web/respond';
 import { contentDisposition } from '$lib/server/storage/names';
 
 /** The rows an import refused, with row number and reason, as CSV (formulas neutralised). */

@@ -1,10 +1,10 @@
 import { json } from '@sveltejs/kit';
 import type { RequestHandler } from './$types';
 import { authorize } from '$lib/server/policy';
-import { readJson } from '$lib/server/http';
+import { readJson } from '$lib/server/web/http';
 import { startImport } from '$lib/server/import/batches';
 import { importStartSchema } from '$lib/server/import/mapping';
-import { api, idParam } from '$lib/server/intake/respond';
+import { api, idParam } from '$lib/server/web/respond';
 
 /** Step 2: the mapping and choices; the import runs on, and GET /api/v1/imports/:id follows it. */
 export const POST: RequestHandler = async ({ locals, params, request }) => {

@@ -2,7 +2,7 @@ import { json } from '@sveltejs/kit';
 import type { RequestHandler } from './$types';
 import { authorize } from '$lib/server/policy';
 import { undoImport } from '$lib/server/import/batchActions';
-import { api, idParam } from '$lib/server/intake/respond';
+import { api, idParam } from '$lib/server/web/respond';
 
 /** Removes exactly the readings this import wrote (audited). */
 export const POST: RequestHandler = async ({ locals, params }) => {

@@ -7,10 +7,10 @@ import { parseInput, queryObject } from '$lib/server/api/request';
 import { idParam } from '$lib/server/api/schemas';
 import { visibleMember } from '$lib/server/api/visible';
 import { readingPage } from '$lib/server/api/ownRecords';
-import { apiError, readJson } from '$lib/server/http';
+import { apiError, readJson } from '$lib/server/web/http';
 import { manualEntrySchema } from '$lib/intake/schemas';
 import { saveManualReadings } from '$lib/server/intake/manualEntry';
-import { api, idParam as intakeId } from '$lib/server/intake/respond';
+import { api, idParam as intakeId } from '$lib/server/web/respond';
 
 export const GET: RequestHandler = async ({ locals, params, url }) => {
 	const actor = authorize(locals, 'survey:read');

@@ -1,7 +1,7 @@
 import { json } from '@sveltejs/kit';
 import type { RequestHandler } from './$types';
 import { authorize } from '$lib/server/policy';
-import { apiError } from '$lib/server/http';
+import { apiError } from '$lib/server/web/http';
 import {
 	ATTACHMENT_MAX_BYTES,
 	listAttachments,
@@ -9,7 +9,7 @@ import {
 } from '$lib/server/storage/attachments';
 import { attachmentUploadQuerySchema } from '$lib/server/storage/attachmentQuery';
 import { scopedSurvey } from '$lib/server/scope';
-import { api, idParam, noBodyAnswer } from '$lib/server/intake/respond';
+import { api, idParam, noBodyAnswer } from '$lib/server/web/respond';
 
 export const GET: RequestHandler = async ({ locals, params }) => {
 	const actor = authorize(locals, 'attachment:read');

@@ -1,12 +1,12 @@
 import { json } from '@sveltejs/kit';
 import type { RequestHandler } from './$types';
 import { authorize } from '$lib/server/policy';
-import { apiError } from '$lib/server/http';
+import { apiError } from '$lib/server/web/http';
 import { listImports } from '$lib/server/import/batchActions';
 import { receiveUpload } from '$lib/server/import/batches';
 import { IMPORT_LIMITS } from '$lib/server/import/limits';
 import { importUploadQuerySchema } from '$lib/server/import/mapping';
-import { api, idParam, noBodyAnswer } from '$lib/server/intake/respond';
+import { api, idParam, noBodyAnswer } from '$lib/server/web/respond';
 
 export const GET: RequestHandler = async ({ locals, params }) => {
 	const actor = authorize(locals, 'survey:read');

@@ -1,10 +1,10 @@
 import { json } from '@sveltejs/kit';
 import type { RequestHandler } from './$types';
 import { authorize } from '$lib/server/policy';
-import { readJson } from '$lib/server/http';
+import { readJson } from '$lib/server/web/http';
 import { reviewSchema } from '$lib/intake/schemas';
 import { transitionSurvey } from '$lib/server/intake/surveys';
-import { api, idParam } from '$lib/server/intake/respond';
+import { api, idParam } from '$lib/server/web/respond';
 
 /** submitted → approved, or returned with a comment saying what must change. */
 export const POST: RequestHandler = async ({ locals, params, request }) => {

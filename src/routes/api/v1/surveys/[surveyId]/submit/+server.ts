@@ -2,7 +2,7 @@ import { json } from '@sveltejs/kit';
 import type { RequestHandler } from './$types';
 import { authorize } from '$lib/server/policy';
 import { transitionSurvey } from '$lib/server/intake/surveys';
-import { api, idParam } from '$lib/server/intake/respond';
+import { api, idParam } from '$lib/server/web/respond';
 
 /** draft or returned → submitted; its readings are frozen from now on. */
 export const POST: RequestHandler = async ({ locals, params }) => {

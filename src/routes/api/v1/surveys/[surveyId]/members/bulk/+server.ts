@@ -1,11 +1,11 @@
 import { json } from '@sveltejs/kit';
 import type { RequestHandler } from './$types';
 import { authorize } from '$lib/server/policy';
-import { readJson } from '$lib/server/http';
+import { readJson } from '$lib/server/web/http';
 import { createMembers } from '$lib/server/intake/members';
 import { parsePastedMembers, pastedTableSchema } from '$lib/server/intake/pastedMembers';
 import { scopedSurvey } from '$lib/server/scope';
-import { api, idParam } from '$lib/server/intake/respond';
+import { api, idParam } from '$lib/server/web/respond';
 
 /** Members from a pasted table, all created or none. */
 export const POST: RequestHandler = async ({ locals, params, request }) => {

@@ -1,5 +1,5 @@
 import { redirect, type RequestEvent } from '@sveltejs/kit';
-import { authorize, type Action, type Actor } from './policy';
+import { authorize, type Action, type Actor } from '../policy';
 
 /**
  * For page loads: a signed-out visitor is sent to sign in (and brought back afterwards);

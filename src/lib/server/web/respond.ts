@@ -1,5 +1,5 @@
 import { isHttpError, isRedirect } from '@sveltejs/kit';
-import { apiError } from '../http';
+import { apiError } from './http';
 import {
 	InputError,
 	NotFoundError,

@@ -1,6 +1,6 @@
 import { error, redirect, type ActionFailure, type RequestEvent } from '@sveltejs/kit';
 import type { z } from 'zod';
-import { formMessage, parseForm, type FormFailure } from '../forms';
+import { formMessage, parseForm, type FormFailure } from './forms';
 import { authorize, type Action, type Actor } from '../policy';
 import { InputError, NotFoundError, ReadOnlyError, StateError } from '../domainErrors';
 import { ImportError } from '../import/errors';
