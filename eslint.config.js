@@ -26,7 +26,6 @@ const KIT_IN_SERVICES = [
 	'src/lib/server/auth/request.ts',
 	'src/lib/server/auth/resolve.ts',
 	'src/lib/server/auth/sign-in.ts',
-	'src/lib/server/policy.ts',
 	'src/lib/server/populations/access.ts',
 	'src/lib/server/populations/query.ts',
 	'src/lib/server/reports/links.ts',

@@ -1,5 +1,6 @@
 import { redirect, type RequestEvent } from '@sveltejs/kit';
-import { authorize, type Action, type Actor } from '../policy';
+import type { Action, Actor } from '../policy';
+import { authorize } from './actor';
 
 /**
  * For page loads: a signed-out visitor is sent to sign in (and brought back afterwards);

@@ -2,7 +2,7 @@ import { error, fail, redirect } from '@sveltejs/kit';
 import { z } from 'zod';
 import type { Actions, PageServerLoad } from './$types';
 import { pageActor } from '$lib/server/web/guard';
-import { authorize } from '$lib/server/policy';
+import { authorize } from '$lib/server/web/actor';
 import { fieldErrors, safeValues } from '$lib/server/web/forms';
 import { listApiTokens, TOKEN_MAX_DAYS } from '$lib/server/auth/api-tokens';
 import { createTokenSchema, idParamSchema } from '$lib/server/auth/token-schemas';

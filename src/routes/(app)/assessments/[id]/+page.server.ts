@@ -1,7 +1,8 @@
 import { fail, redirect } from '@sveltejs/kit';
 import type { Actions, PageServerLoad } from './$types';
 import { pageActor } from '$lib/server/web/guard';
-import { authorize, can } from '$lib/server/policy';
+import { authorize } from '$lib/server/web/actor';
+import { can } from '$lib/server/policy';
 import { pathId, visibleAsset } from '$lib/server/populations';
 import { approve, getAssessment, mayApprove, withSnapshot } from '$lib/server/assessments';
 import type { AssessmentSnapshot } from '$lib/server/assessments/snapshot';

@@ -4,7 +4,7 @@ import type { Actions, PageServerLoad } from './$types';
 import { Asset } from '$lib/server/db';
 import { parseForm } from '$lib/server/web/forms';
 import { pageActor } from '$lib/server/web/guard';
-import { authorize } from '$lib/server/policy';
+import { authorize } from '$lib/server/web/actor';
 import { AssetNotFoundError, setConsent } from '$lib/server/research/consent';
 
 /** The owning organisation's consent, asset by asset, to anonymised research use. */

@@ -1,7 +1,8 @@
 import { fail } from '@sveltejs/kit';
 import type { Actions, PageServerLoad } from './$types';
 import { Attachment } from '$lib/server/db';
-import { authorize, can } from '$lib/server/policy';
+import { authorize } from '$lib/server/web/actor';
+import { can } from '$lib/server/policy';
 import { pageActor } from '$lib/server/web/guard';
 import { parseForm } from '$lib/server/web/forms';
 import { memberSchema, reviewSchema } from '$lib/intake/schemas';

@@ -1,6 +1,6 @@
 import { json } from '@sveltejs/kit';
 import type { RequestHandler } from './$types';
-import { authorize } from '$lib/server/policy';
+import { authorize } from '$lib/server/web/actor';
 import { visibleAssets } from '$lib/server/api/visible';
 import { assetAnswer } from '$lib/server/api/ownRecords';
 import { readJson } from '$lib/server/web/http';

@@ -2,7 +2,8 @@ import { fail, redirect, type ActionFailure } from '@sveltejs/kit';
 import { z } from 'zod';
 import type { Actions, PageServerLoad } from './$types';
 import { pageActor } from '$lib/server/web/guard';
-import { authorize, can } from '$lib/server/policy';
+import { authorize } from '$lib/server/web/actor';
+import { can } from '$lib/server/policy';
 import {
 	methodSchema,
 	pathId,

@@ -1,5 +1,6 @@
 import type { Actions, PageServerLoad } from './$types';
-import { authorize, can } from '$lib/server/policy';
+import { authorize } from '$lib/server/web/actor';
+import { can } from '$lib/server/policy';
 import { pageActor } from '$lib/server/web/guard';
 import { parseForm } from '$lib/server/web/forms';
 import { Reading } from '$lib/server/db';

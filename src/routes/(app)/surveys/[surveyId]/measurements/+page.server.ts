@@ -1,7 +1,8 @@
 import { fail } from '@sveltejs/kit';
 import { z } from 'zod';
 import type { Actions, PageServerLoad } from './$types';
-import { authorize, can } from '$lib/server/policy';
+import { authorize } from '$lib/server/web/actor';
+import { can } from '$lib/server/policy';
 import { pageActor } from '$lib/server/web/guard';
 import { fieldErrors, safeValues } from '$lib/server/web/forms';
 import {

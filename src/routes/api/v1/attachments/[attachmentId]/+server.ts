@@ -1,6 +1,6 @@
 import { Readable } from 'node:stream';
 import type { RequestHandler } from './$types';
-import { authorize } from '$lib/server/policy';
+import { authorize } from '$lib/server/web/actor';
 import { scopedAttachment } from '$lib/server/storage/attachments';
 import { attachmentDownloadQuerySchema } from '$lib/server/storage/attachmentQuery';
 import { getObject } from '$lib/server/storage/s3';

@@ -1,6 +1,6 @@
 import { json } from '@sveltejs/kit';
 import type { RequestHandler } from './$types';
-import { authorize } from '$lib/server/policy';
+import { authorize } from '$lib/server/web/actor';
 import { deleteCarbonationTest } from '$lib/server/intake/carbonation';
 import { scopedCarbonationTest } from '$lib/server/scope';
 import { api, idParam } from '$lib/server/web/respond';

@@ -1,6 +1,6 @@
 import { json } from '@sveltejs/kit';
 import type { RequestHandler } from './$types';
-import { authorize } from '$lib/server/policy';
+import { authorize } from '$lib/server/web/actor';
 import { deleteChlorideProfile, getChlorideProfile } from '$lib/server/intake/chloride';
 import { api, idParam } from '$lib/server/web/respond';
 

@@ -1,6 +1,6 @@
 import { json } from '@sveltejs/kit';
 import type { RequestHandler } from './$types';
-import { authorize } from '$lib/server/policy';
+import { authorize } from '$lib/server/web/actor';
 import { readJson } from '$lib/server/web/http';
 import { holeSchema } from '$lib/intake/schemas';
 import { deleteHole, updateHole } from '$lib/server/intake/holes';

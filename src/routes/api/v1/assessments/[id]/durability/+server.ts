@@ -3,7 +3,7 @@ import { z } from 'zod';
 import type { RequestHandler } from './$types';
 import { Assessment } from '$lib/server/db';
 import { apiError, readJson } from '$lib/server/web/http';
-import { authorize } from '$lib/server/policy';
+import { authorize } from '$lib/server/web/actor';
 import {
 	CARBONATION_DEFAULTS,
 	CHLORIDE_DEFAULTS,

@@ -1,6 +1,6 @@
 import { json } from '@sveltejs/kit';
 import type { RequestHandler } from './$types';
-import { authorize } from '$lib/server/policy';
+import { authorize } from '$lib/server/web/actor';
 import { pathId } from '$lib/server/populations';
 import { history, readSaveBody, saveDraft, summarise } from '$lib/server/assessments';
 

@@ -1,7 +1,7 @@
 import { json } from '@sveltejs/kit';
 import { z } from 'zod';
 import type { RequestHandler } from './$types';
-import { authorize } from '$lib/server/policy';
+import { authorize } from '$lib/server/web/actor';
 import { parseInput } from '$lib/server/api/request';
 import { idParam } from '$lib/server/api/schemas';
 import { visibleAsset } from '$lib/server/api/visible';

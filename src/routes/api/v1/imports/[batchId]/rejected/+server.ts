@@ -1,5 +1,5 @@
 import type { RequestHandler } from './$types';
-import { authorize } from '$lib/server/policy';
+import { authorize } from '$lib/server/web/actor';
 import { apiError } from '$lib/server/web/http';
 import { rejectedRowsCsv } from '$lib/server/import/batchActions';
 import { api, idParam } from '$lib/server/web/respond';

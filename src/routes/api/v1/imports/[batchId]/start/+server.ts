@@ -1,6 +1,6 @@
 import { json } from '@sveltejs/kit';
 import type { RequestHandler } from './$types';
-import { authorize } from '$lib/server/policy';
+import { authorize } from '$lib/server/web/actor';
 import { readJson } from '$lib/server/web/http';
 import { startImport } from '$lib/server/import/batches';
 import { importStartSchema } from '$lib/server/import/mapping';

@@ -1,6 +1,6 @@
 import { json } from '@sveltejs/kit';
 import type { RequestHandler } from './$types';
-import { authorize } from '$lib/server/policy';
+import { authorize } from '$lib/server/web/actor';
 import { readJson } from '$lib/server/web/http';
 import { chlorideProfileSchema } from '$lib/intake/measurements';
 import { createChlorideProfile, listChlorideProfiles } from '$lib/server/intake/chloride';

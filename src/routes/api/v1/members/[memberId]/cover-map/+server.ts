@@ -1,6 +1,6 @@
 import { json } from '@sveltejs/kit';
 import type { RequestHandler } from './$types';
-import { authorize } from '$lib/server/policy';
+import { authorize } from '$lib/server/web/actor';
 import { memberView, pathId, visibleMember } from '$lib/server/populations';
 
 /** A member's readings on its grid, its verification holes and the survey meter's check. */

@@ -1,7 +1,7 @@
 import { error, json } from '@sveltejs/kit';
 import type { RequestHandler } from './$types';
 import { toPlainJson } from '$lib/analysis';
-import { authorize } from '$lib/server/policy';
+import { authorize } from '$lib/server/web/actor';
 import {
 	groupSchema,
 	memberBoxes,
