@@ -27,7 +27,6 @@ const KIT_IN_SERVICES = [
 	'src/lib/server/auth/resolve.ts',
 	'src/lib/server/auth/sign-in.ts',
 	'src/lib/server/populations/access.ts',
-	'src/lib/server/populations/query.ts',
 	'src/lib/server/reports/links.ts',
 	'src/lib/server/risk/portfolio.ts',
 	'src/lib/server/risk/store.ts',

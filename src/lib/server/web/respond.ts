@@ -32,15 +32,6 @@ export async function api<T>(work: () => Promise<T>): Promise<T> {
 	}
 }
 
-/** A path parameter that must be a positive integer id; anything else is a 404, not a 500. */
-export function idParam(value: string | undefined): number {
-	const id = Number(value);
-	if (!/^\d{1,10}$/.test(value ?? '') || !Number.isSafeInteger(id) || id < 1) {
-		apiError(404, 'not_found', 'Not found.');
-	}
-	return id;
-}
-
 /**
  * Why an upload route got no body to read (SvelteKit gives none to an empty body, nor to a
  * request without a Content-Type): an empty file is named as such, not as a missing header.

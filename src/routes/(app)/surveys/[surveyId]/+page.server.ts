@@ -12,12 +12,12 @@ import { transitionSurvey } from '$lib/server/intake/surveys';
 import { listImports } from '$lib/server/import/batchActions';
 import { IMPORT_LIMITS } from '$lib/server/import/limits';
 import { actOr, loadOr404 } from '$lib/server/web/pages';
-import { idParam } from '$lib/server/web/respond';
+import { pathId } from '$lib/server/web/params';
 import { scopedSurvey } from '$lib/server/scope';
 
 export const load: PageServerLoad = async (event) => {
 	const actor = pageActor(event, 'survey:read');
-	const surveyId = idParam(event.params.surveyId);
+	const surveyId = pathId(event.params.surveyId);
 	const { survey, asset } = await loadOr404(() => scopedSurvey(actor, surveyId, 'read'));
 	const own = asset.organisationId === actor.organisationId;
 	const editable = own && (survey.status === 'draft' || survey.status === 'returned');
@@ -48,7 +48,7 @@ export const load: PageServerLoad = async (event) => {
 	};
 };
 
-const surveyIdOf = (params: { surveyId: string }) => idParam(params.surveyId);
+const surveyIdOf = (params: { surveyId: string }) => pathId(params.surveyId);
 
 export const actions = {
 	addMember: async ({ locals, request, params }) => {

@@ -6,13 +6,13 @@ import { authorize } from '$lib/server/web/actor';
 import { can } from '$lib/server/policy';
 import {
 	methodSchema,
-	pathId,
 	readingCountOf,
 	requestedSurveyIds,
 	scopeSchema,
 	surveySelection,
 	visibleAsset
 } from '$lib/server/populations';
+import { pathId } from '$lib/server/web/params';
 import { history, saveDraft, saveSchema, summarise } from '$lib/server/assessments';
 
 export const load: PageServerLoad = async (event) => {

@@ -7,12 +7,12 @@ import { Reading } from '$lib/server/db';
 import { holeSchema } from '$lib/intake/schemas';
 import { createHole, listHoles } from '$lib/server/intake/holes';
 import { actOr, loadOr404 } from '$lib/server/web/pages';
-import { idParam } from '$lib/server/web/respond';
+import { pathId } from '$lib/server/web/params';
 import { scopedMember } from '$lib/server/scope';
 
 export const load: PageServerLoad = async (event) => {
 	const actor = pageActor(event, 'survey:read');
-	const memberId = idParam(event.params.memberId);
+	const memberId = pathId(event.params.memberId);
 	const { member, survey, asset } = await loadOr404(() => scopedMember(actor, memberId, 'read'));
 	const editable =
 		asset.organisationId === actor.organisationId &&
@@ -37,7 +37,7 @@ export const actions = {
 		const parsed = await parseForm(request, holeSchema);
 		if (!parsed.ok) return parsed.failure;
 		const done = await actOr(parsed.form, () =>
-			createHole(actor, idParam(params.memberId), parsed.data)
+			createHole(actor, pathId(params.memberId), parsed.data)
 		);
 		return 'id' in done ? { ok: `Hole ${parsed.data.label} recorded.` } : done;
 	}

@@ -24,12 +24,12 @@ import {
 import { listMembers } from '$lib/server/intake/members';
 import { actOr, loadOr404 } from '$lib/server/web/pages';
 import { frozenReason } from '$lib/server/intake/frozen';
-import { idParam } from '$lib/server/web/respond';
+import { pathId } from '$lib/server/web/params';
 import { scopedSurvey } from '$lib/server/scope';
 
 export const load: PageServerLoad = async (event) => {
 	const actor = pageActor(event, 'survey:read');
-	const surveyId = idParam(event.params.surveyId);
+	const surveyId = pathId(event.params.surveyId);
 	const { survey, asset } = await loadOr404(() => scopedSurvey(actor, surveyId, 'read'));
 	const own = asset.organisationId === actor.organisationId;
 	const [members, tests, profiles] = await Promise.all([

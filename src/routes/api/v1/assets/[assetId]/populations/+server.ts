@@ -5,13 +5,13 @@ import {
 	methodSchema,
 	paramsOf,
 	parseParams,
-	pathId,
 	populationOverview,
 	requestedSurveyIds,
 	scopeSchema,
 	surveySelection,
 	visibleAsset
 } from '$lib/server/populations';
+import { pathId } from '$lib/server/web/params';
 
 /** The population overview of an asset or one of its surveys: every group, judged by the engine. */
 export const GET: RequestHandler = async ({ locals, params, url }) => {

@@ -11,13 +11,13 @@ import {
 	methodSchema,
 	paramsOf,
 	parseParams,
-	pathId,
 	populationDetail,
 	requestedSurveyIds,
 	scopeSchema,
 	surveySelection,
 	visibleAsset
 } from '$lib/server/populations';
+import { pathId } from '$lib/server/web/params';
 
 /** One population with chart data, per-member box figures and comparison, and the meter's verification. */
 export const GET: RequestHandler = async ({ locals, params, url }) => {
