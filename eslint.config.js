@@ -116,6 +116,16 @@ export default ts.config(
 		rules: { 'no-restricted-imports': restricted(MODELS) }
 	},
 	{
+		// A migration is history: it copies the literals it needs, so live code cannot change it.
+		files: ['src/lib/server/db/migrations/**'],
+		rules: {
+			'no-restricted-imports': restricted({
+				group: ['../../*', '$lib/*'],
+				message: 'A migration imports nothing live: copy the literal into it.'
+			})
+		}
+	},
+	{
 		files: ['src/lib/analysis/**'],
 		rules: { 'no-restricted-imports': restricted(SERVER) }
 	}
