@@ -1,6 +1,6 @@
 #!/usr/bin/env bash
 # `npm test`: the whole suite on a throwaway database, from a fresh clone if need be.
-# Order: install, services (test instance), migrations, type check, format check, unit tests,
+# Order: install, services (test instance), migrations, type check, format check and lint, unit tests,
 # build, the built app on its test port, integration and browser tests. Stops what it started.
 set -euo pipefail
 . "$(dirname "$0")/lib.sh"
@@ -37,7 +37,7 @@ npx tsx scripts/seed.ts --reset >/dev/null
 
 say "type check (svelte-check)"
 npm run --silent check
-say "format check (prettier)"
+say "format check (prettier) and lint (eslint)"
 npm run --silent lint
 
 say "unit tests"

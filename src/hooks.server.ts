@@ -4,7 +4,7 @@ import { closeDb, db } from '$lib/server/db';
 import { closeStorage } from '$lib/server/storage/s3';
 import { databaseUnavailableResponse, isDatabaseUnavailable } from '$lib/server/db/unavailable';
 import { resolveAuth } from '$lib/server/auth/resolve';
-import { toApiErrorResponse } from '$lib/server/http';
+import { toApiErrorResponse } from '$lib/server/web/http';
 import { limitApiRate } from '$lib/server/api/rateLimit';
 import { lockedMessage, retryAfterSeconds } from '$lib/server/auth/throttle-rules';
 import { startAuthHousekeeping, stopAuthHousekeeping } from '$lib/server/auth/housekeeping';
@@ -44,7 +44,7 @@ export const handle: Handle = async ({ event, resolve }) => {
 	event.locals.session = null;
 	event.locals.membership = null;
 	event.locals.authMethod = null;
-	let throttledUntil: Date | null = null;
+	let throttledUntil: Date | null;
 	let limited: Response | null = null;
 	try {
 		({ throttledUntil } = await resolveAuth(event));

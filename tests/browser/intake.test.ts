@@ -7,7 +7,6 @@ import { appUrl } from '../helpers/env';
 import { actorFor, countReadings, freshSurvey, testSequelize } from '../helpers/intake';
 import { DEMO_PASSWORD, DEMO_USERS } from '../helpers/session';
 import { screenshot } from '../helpers/pages';
-import { Member } from '../../src/lib/server/db/models';
 
 /** Opens a fresh draft member's edit page, at `width` px, from its survey's member list. */
 async function openMemberEdit(page: Page, width: number, height: number) {

@@ -1,6 +1,6 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { startBuiltApp } from '../helpers/server';
-import { anonymousClient, httpClient } from '../helpers/session';
+import { httpClient } from '../helpers/session';
 import { FRESH_PASSWORD, signUpNewOrganisation, uniqueEmail } from '../helpers/accounts';
 import { mailsTo, waitForMail } from '../helpers/mail';
 

@@ -1,9 +1,8 @@
-import { error } from '@sveltejs/kit';
 import type { Role } from './db/models/Membership';
 
 /**
  * The one permission matrix: role × action → allowed. Every load, form action and +server.ts
- * route asks it (through `authorize`), so a role's rights are read and changed here only.
+ * route asks it (through `authorize` in web/actor.ts), so a role's rights are read and changed here only.
  * docs/roles.md explains each row and why it differs from the starting matrix, if it does.
  */
 export const ACTIONS = [
@@ -103,24 +102,4 @@ export interface Actor {
 	userId: number;
 	organisationId: number;
 	role: Role;
-}
-
-/** The actor of a request, or 401 when nobody is signed in (routes redirect pages themselves). */
-export function requireActor(locals: App.Locals): Actor {
-	if (!locals.user) error(401, 'Sign in to continue.');
-	if (!locals.membership) error(403, 'You are not a member of any organisation.');
-	return {
-		userId: locals.user.id,
-		organisationId: locals.membership.organisationId,
-		role: locals.membership.role
-	};
-}
-
-/** The actor, if they may do `action`; 401 when signed out, 403 when their role may not. */
-export function authorize(locals: App.Locals, action: Action): Actor {
-	const actor = requireActor(locals);
-	if (!can(actor.role, action)) {
-		error(403, `Your role (${actor.role}) does not allow this.`);
-	}
-	return actor;
 }

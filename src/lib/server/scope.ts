@@ -1,4 +1,3 @@
-import { error } from '@sveltejs/kit';
 import { Op, type Model, type ModelStatic, type Transaction, type WhereOptions } from 'sequelize';
 import {
 	Asset,
@@ -147,13 +146,15 @@ export async function scopedImportBatch(actor: Actor, batchId: number, access: A
 }
 
 /**
- * A record of the actor's organisation, or 404. Another organisation's record is "not found",
+ * A record of the actor's organisation, or NotFoundError (the route layer's 404). Another organisation's record is "not found",
  * never "forbidden", so that ids reveal nothing. Use after `authorize` in every route with an id.
  */
 export function ownRecord<T extends { organisationId: number }>(
 	record: T | null | undefined,
 	actor: Actor
 ): T {
-	if (!record || record.organisationId !== actor.organisationId) error(404, 'Not found.');
+	if (!record || record.organisationId !== actor.organisationId) {
+		throw new NotFoundError('The record');
+	}
 	return record;
 }

@@ -2,7 +2,7 @@ import { redirect } from '@sveltejs/kit';
 import type { LayoutServerLoad } from './$types';
 import { Membership, Organisation } from '$lib/server/db';
 import { can } from '$lib/server/policy';
-import { signInUrl } from '$lib/server/guard';
+import { signInUrl } from '$lib/server/web/guard';
 import { devOutboxEnabled } from '$lib/server/mail/dev-outbox';
 
 /**

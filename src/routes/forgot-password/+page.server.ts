@@ -1,7 +1,7 @@
 import { redirect } from '@sveltejs/kit';
 import { z } from 'zod';
 import type { Actions, PageServerLoad } from './$types';
-import { formMessage, parseForm } from '$lib/server/forms';
+import { formMessage, parseForm } from '$lib/server/web/forms';
 import { emailSchema } from '$lib/server/auth/schemas';
 import { requestPasswordResetInBackground } from '$lib/server/auth/password-reset';
 import { resetRequestWait } from '$lib/server/auth/reset-throttle';

@@ -1,9 +1,9 @@
 import { redirect } from '@sveltejs/kit';
 import type { Actions, PageServerLoad } from './$types';
-import { parseForm, formMessage } from '$lib/server/forms';
+import { parseForm, formMessage } from '$lib/server/web/forms';
 import { signInSchema } from '$lib/server/auth/schemas';
 import { attemptSignIn, clientAddress, startSession } from '$lib/server/auth/sign-in';
-import { safeNext } from '$lib/server/guard';
+import { safeNext } from '$lib/server/web/guard';
 
 export const load: PageServerLoad = async ({ locals, url }) => {
 	if (locals.user) redirect(303, safeNext(url.searchParams.get('next')));

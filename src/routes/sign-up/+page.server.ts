@@ -1,6 +1,6 @@
 import { redirect } from '@sveltejs/kit';
 import type { Actions, PageServerLoad } from './$types';
-import { formMessage, parseForm } from '$lib/server/forms';
+import { formMessage, parseForm } from '$lib/server/web/forms';
 import { signUpSchema } from '$lib/server/auth/schemas';
 import { createAccountWithOrganisation, EmailTakenError } from '$lib/server/auth/accounts';
 import { startSession } from '$lib/server/auth/sign-in';

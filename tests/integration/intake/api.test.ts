@@ -212,6 +212,20 @@ describe('intake API over HTTP (the built app, the real database)', () => {
 		expect(hole.status).toBe(201);
 	});
 
+	it('answers a path id that is not an id with 404 for GET and POST alike', async () => {
+		// A path that names no record is a 404 whatever the method: the id is not a field the
+		// caller filled in (web/params.ts).
+		for (const bad of ['abc', '0', '12abc', '99999999999']) {
+			const path = `/api/v1/surveys/${bad}/members`;
+			const read = await surveyor.get(path);
+			expect(read.status, `GET ${path}`).toBe(404);
+			expect((await read.json()).error.code, `GET ${path}`).toBe('not_found');
+			const write = await surveyor.postJson(path, { label: 'M-01' });
+			expect(write.status, `POST ${path}`).toBe(404);
+			expect((await write.json()).error.code, `POST ${path}`).toBe('not_found');
+		}
+	});
+
 	it('saves grid readings for one member all or none', async () => {
 		const { members } = await freshSurvey(actor);
 		const bad = await surveyor.postJson(`/api/v1/members/${members[0].id}/readings`, {

@@ -8,7 +8,6 @@ import {
 	foreignRecords,
 	submitSurvey
 } from '../../helpers/editing';
-import { signInAs } from '../../helpers/session';
 
 describe('deleting a hole through its page', () => {
 	const session = asDemoSurveyor();

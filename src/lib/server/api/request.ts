@@ -1,5 +1,5 @@
 import type { z } from 'zod';
-import { apiError } from '../http';
+import { apiError } from '../web/http';
 import { InvalidInputError, parseOrThrow } from '../research/validate';
 
 /**

@@ -1,6 +1,6 @@
 import { Asset, Member, Survey } from '../db/models';
 import { NotFoundError } from '../domainErrors';
-import { apiError } from '../http';
+import { apiError } from '../web/http';
 import type { Actor } from '../policy';
 import { readableAssetsWhere, scopedAsset, scopedMember, scopedSurvey } from '../scope';
 

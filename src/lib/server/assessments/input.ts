@@ -1,5 +1,5 @@
 /** What a client sends to save an assessment, checked with zod. */
-import { readJson } from '$lib/server/http';
+import { readJson } from '$lib/server/web/http';
 import { z } from 'zod';
 import { methodSchema, SPLITS } from '$lib/server/populations';
 

@@ -8,7 +8,7 @@ import { error } from '@sveltejs/kit';
 import type { Transaction } from 'sequelize';
 import { db, Assessment, Asset, Organisation } from '$lib/server/db';
 import { recordAudit } from '$lib/server/audit';
-import { apiError } from '$lib/server/http';
+import { apiError } from '$lib/server/web/http';
 import { can, type Actor } from '$lib/server/policy';
 import { ownAsset, surveySelection, visibleAsset, visibleSurvey } from '$lib/server/populations';
 import type { MethodChoice, Split } from '$lib/server/populations';

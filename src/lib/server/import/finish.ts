@@ -4,7 +4,7 @@ import type { ImportState } from '../db/models/ImportBatch';
 import { recordAudit } from '../audit';
 import { mergeIntoCoverSets } from '../readings/coverSets';
 import { ImportError } from './errors';
-import type { ImportJob, ImportTally } from './run';
+import type { ImportJob, ImportTally } from './job';
 
 export interface ImportOutcome {
 	state: ImportState;

@@ -22,10 +22,16 @@ export function isPlainNumber(text: string): boolean {
 	let code = text.charCodeAt(0);
 	if (code === 43 || code === 45) i++; // + or -
 	let digits = 0;
-	while (i < n && isDigit(text.charCodeAt(i))) (i++, digits++);
+	while (i < n && isDigit(text.charCodeAt(i))) {
+		i++;
+		digits++;
+	}
 	if (i < n && text.charCodeAt(i) === 46) {
 		i++; // .
-		while (i < n && isDigit(text.charCodeAt(i))) (i++, digits++);
+		while (i < n && isDigit(text.charCodeAt(i))) {
+			i++;
+			digits++;
+		}
 	}
 	if (digits === 0) return false;
 	code = text.charCodeAt(i);
@@ -34,7 +40,10 @@ export function isPlainNumber(text: string): boolean {
 		code = text.charCodeAt(i);
 		if (code === 43 || code === 45) i++;
 		let exponentDigits = 0;
-		while (i < n && isDigit(text.charCodeAt(i))) (i++, exponentDigits++);
+		while (i < n && isDigit(text.charCodeAt(i))) {
+			i++;
+			exponentDigits++;
+		}
 		if (exponentDigits === 0) return false;
 	}
 	return i === n;

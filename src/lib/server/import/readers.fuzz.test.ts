@@ -98,7 +98,11 @@ async function readLikeAnImport(content: Uint8Array, name: string) {
 				? xlsxRecordBatches(path)
 				: csvRecordBatches(createReadStream(path), options);
 		let rows = 0;
-		for await (const batch of batches) for (const cells of batch) (validate(cells), rows++);
+		for await (const batch of batches)
+			for (const cells of batch) {
+				validate(cells);
+				rows++;
+			}
 		return rows;
 	} finally {
 		await rm(path, { force: true });

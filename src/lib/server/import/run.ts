@@ -1,4 +1,4 @@
-import { PassThrough, type Readable } from 'node:stream';
+import { PassThrough } from 'node:stream';
 import { setImmediate } from 'node:timers/promises';
 import type { Transaction } from 'sequelize';
 import { ImportBatch, Member } from '../db/models';
@@ -6,12 +6,11 @@ import { recordAudit } from '../audit';
 import { DuplicateFinder } from './dedupe';
 import { ImportError } from './errors';
 import { IMPORT_LIMITS } from './limits';
-import type { ColumnMapping, ImportOptions } from './mapping';
-import { tickProgress, type ProgressCounts } from './progress';
+import type { ColumnMapping } from './mapping';
+import { tickProgress } from './progress';
 import { RejectedRows } from './rejected';
 import type { RecordBatch } from './records';
 import { csvRecordBatches, xlsxRecordBatches } from './sources';
-import type { SourceFormat } from './sniff';
 import { createRowValidator, labelKey } from './validateRow';
 import { CoverCollector } from '../readings/coverSetCodec';
 import {
@@ -19,47 +18,14 @@ import {
 	connectionOf,
 	OPTIONAL_COLUMNS,
 	ReadingWriter,
-	type OptionalColumn,
-	type WriteMethod
+	type OptionalColumn
 } from './writer';
 import { finishImport, type ImportOutcome } from './finish';
-
-export interface ImportJob {
-	batchId: number;
-	surveyId: number;
-	organisationId: number;
-	userId: number | null;
-	format: SourceFormat;
-	/** Opens the file from its start (a staged file, or any stream in the benchmark). */
-	open: () => Readable;
-	mapping: ColumnMapping;
-	options: ImportOptions;
-	/** Reading flags for every row (READING_FLAGS.manual for the entry grid). */
-	flags?: number;
-	/** How rows reach the table; chosen from the server's settings when absent (tests set it). */
-	writeMethod?: WriteMethod;
-	/**
-	 * Runs first inside the import's transaction, so what it writes commits with the readings or
-	 * not at all: a site sync takes its batch id (a unique key, so a doubled send waits here and
-	 * then fails) and records its holes. It throws ImportError to refuse the batch.
-	 */
-	claim?: (transaction: Transaction) => Promise<void>;
-}
+import type { ImportJob, ImportTally } from './job';
 
 export async function memberIndex(surveyId: number): Promise<Map<string, number>> {
 	const members = await Member.findAll({ where: { surveyId }, attributes: ['id', 'label'] });
 	return new Map(members.map((m) => [labelKey(m.label), m.id]));
-}
-
-/** Tallies of one pass over the file. */
-export interface ImportTally extends ProgressCounts {
-	rejected: RejectedRows;
-	headers: string[];
-	smallCovers: number;
-	/** The covers written, by member, for the members' cover sets. */
-	covers: CoverCollector;
-	/** What the reader noticed about the file as a whole (other sheets of a workbook). */
-	sourceWarnings: string[];
 }
 
 function recordBatches(job: ImportJob, tally: ImportTally): AsyncGenerator<RecordBatch> {

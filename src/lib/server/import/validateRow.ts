@@ -20,7 +20,7 @@ export type RowResult =
 /** Member labels compare as MariaDB's utf8mb4_unicode_ci does for the unique index: no case. */
 export const labelKey = (label: string) => label.trim().toLowerCase();
 
-const LENGTH_FIELDS = ['x', 'y', 'cover', 'diameter', 'spacing'] as const;
+type LengthField = 'x' | 'y' | 'cover' | 'diameter' | 'spacing';
 
 /** The error values a spreadsheet writes in place of a formula's result (ECMA-376 Part 1,
  * §18.17.7 error values, and the later #SPILL!, #CALC!). */
@@ -136,7 +136,7 @@ export function createRowValidator(
 		const index = mapping[field];
 		return index == null ? '' : (cells[index] ?? '');
 	};
-	const readLength = (cells: readonly string[], field: (typeof LENGTH_FIELDS)[number]) => {
+	const readLength = (cells: readonly string[], field: LengthField) => {
 		const raw = cell(cells, field);
 		const value = parseDecimal(raw, options.decimalMark);
 		if (typeof value !== 'string') return value === null ? null : value * factor;

@@ -2,8 +2,7 @@
  * The population query: which readings, how they are grouped and which methods judge them.
  * One zod schema for the API's query string and the page URL, so a view can be bookmarked.
  */
-import { error } from '@sveltejs/kit';
-import { apiError } from '$lib/server/http';
+import { apiError } from '$lib/server/web/http';
 import { z } from 'zod';
 import { RULE_SETS, type AssessOptions, type RuleSetName } from '$lib/analysis';
 import { MEMBER_FACES, MEMBER_TYPES } from '$lib/server/db/migrations/002-surveys';
@@ -107,9 +106,3 @@ export function parseParams<S extends z.ZodType>(
 }
 
 export const idParam = z.object({ id: id });
-/** A path id ("12"); anything else is a 404, as an unknown record is. */
-export function pathId(value: string): number {
-	const parsed = id.safeParse(value);
-	if (!parsed.success) error(404, 'Not found.');
-	return parsed.data;
-}

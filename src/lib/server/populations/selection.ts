@@ -7,7 +7,7 @@
  */
 import { Member, MemberCoverSet, Survey } from '$lib/server/db';
 import { counted, surveyStateWords } from '$lib/words';
-import { apiError } from '$lib/server/http';
+import { apiError } from '$lib/server/web/http';
 
 export interface SelectableSurvey {
 	id: number;

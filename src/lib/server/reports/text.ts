@@ -4,7 +4,7 @@
  * would print as boxes, are dropped, and the text is composed (NFC) so accents keep one glyph.
  */
 export function pdfText(text: string): string {
-	return text.normalize('NFC').replace(/[\u0000-\u0008\u000b-\u001f\u007f-\u009f]/g, '');
+	return text.normalize('NFC').replace(/(?![\t\n])\p{Cc}/gu, ''); // Cc: U+0000–001F, U+007F–009F
 }
 
 export const pct = (share: number | null | undefined, digits = 1) =>

@@ -6,6 +6,7 @@ export function sanitiseFileName(raw: string, fallback = 'file'): string {
 	const base = raw.split(/[\\/]/).pop() ?? '';
 	const cleaned = base
 		.normalize('NFC')
+		// eslint-disable-next-line no-control-regex -- removing control characters is the point
 		.replace(/[\u0000-\u001f\u007f<>:"|?*\u202a-\u202e\u2066-\u2069]/g, '')
 		.replace(/\s+/g, ' ')
 		.replace(/^[.\s]+/, '')

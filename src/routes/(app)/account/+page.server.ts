@@ -1,8 +1,8 @@
 import { redirect } from '@sveltejs/kit';
 import type { Actions, PageServerLoad } from './$types';
-import { pageActor } from '$lib/server/guard';
-import { authorize } from '$lib/server/policy';
-import { formMessage, parseForm } from '$lib/server/forms';
+import { pageActor } from '$lib/server/web/guard';
+import { authorize } from '$lib/server/web/actor';
+import { formMessage, parseForm } from '$lib/server/web/forms';
 import { changePasswordSchema } from '$lib/server/auth/schemas';
 import { changePassword } from '$lib/server/auth/password-change';
 

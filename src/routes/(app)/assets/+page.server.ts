@@ -1,9 +1,9 @@
 import type { Actions, PageServerLoad } from './$types';
 import { can } from '$lib/server/policy';
-import { pageActor } from '$lib/server/guard';
+import { pageActor } from '$lib/server/web/guard';
 import { assetSchema } from '$lib/intake/schemas';
 import { createAsset, listAssets } from '$lib/server/intake/assets';
-import { savingAction } from '$lib/server/intake/pages';
+import { savingAction } from '$lib/server/web/pages';
 
 export const load: PageServerLoad = async (event) => {
 	const actor = pageActor(event, 'asset:read');

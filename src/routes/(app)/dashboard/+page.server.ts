@@ -1,5 +1,5 @@
 import type { PageServerLoad } from './$types';
-import { pageActor } from '$lib/server/guard';
+import { pageActor } from '$lib/server/web/guard';
 import { can } from '$lib/server/policy';
 import { dashboardFor } from '$lib/server/dashboard';
 

@@ -1,5 +1,5 @@
 import type { PageServerLoad } from './$types';
-import { pageActor } from '$lib/server/guard';
+import { pageActor } from '$lib/server/web/guard';
 import { portfolio, RISK_WORDS } from '$lib/server/risk';
 
 export const load: PageServerLoad = async (event) => {

@@ -2,7 +2,7 @@ import { error, redirect } from '@sveltejs/kit';
 import { z } from 'zod';
 import type { Actions, PageServerLoad } from './$types';
 import { switchOrganisation } from '$lib/server/auth/membership';
-import { requireActor } from '$lib/server/policy';
+import { requireActor } from '$lib/server/web/actor';
 
 export const load: PageServerLoad = async () => redirect(303, '/dashboard');
 

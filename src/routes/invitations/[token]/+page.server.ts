@@ -1,10 +1,10 @@
 import { redirect } from '@sveltejs/kit';
 import type { Actions, PageServerLoad } from './$types';
-import { formMessage, parseForm } from '$lib/server/forms';
+import { formMessage, parseForm } from '$lib/server/web/forms';
 import { acceptInvitationSchema } from '$lib/server/auth/schemas';
 import { acceptInvitation, findOpenInvitation } from '$lib/server/auth/invitations';
 import { startSession } from '$lib/server/auth/sign-in';
-import { requireActor } from '$lib/server/policy';
+import { requireActor } from '$lib/server/web/actor';
 
 const GONE = 'This invitation has expired, was withdrawn or was already used.';
 

@@ -1,6 +1,6 @@
 import { redirect } from '@sveltejs/kit';
 import type { Actions, PageServerLoad } from './$types';
-import { formMessage, parseForm } from '$lib/server/forms';
+import { formMessage, parseForm } from '$lib/server/web/forms';
 import { resetPasswordSchema } from '$lib/server/auth/schemas';
 import { completePasswordReset, findUsableReset } from '$lib/server/auth/password-reset';
 

@@ -3,7 +3,7 @@ import type { Endpoint } from './endpoint';
 /**
  * The error answers an operation documents: the ones its kind always can give (401 and 403 when
  * it needs a right, 404 when it names a record, 400 when it takes input), then its own. All have
- * the one error body (`Error`), as src/lib/server/http.ts makes every /api failure.
+ * the one error body (`Error`), as src/lib/server/web/http.ts makes every /api failure.
  */
 const COMMON = {
 	'400': 'Invalid input: `field` names the body field, query or path parameter at fault.',

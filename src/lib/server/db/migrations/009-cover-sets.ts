@@ -1,5 +1,4 @@
 import { DataTypes, literal, QueryTypes, type Sequelize } from 'sequelize';
-import { encodeCovers } from '../../readings/coverSetCodec';
 import { reference, tableOptions } from './columns';
 import type { Migration } from './types';
 
@@ -160,3 +159,14 @@ export const coverSets: Migration = {
 		await qi.dropTable('member_cover_sets');
 	}
 };
+
+/**
+ * The stored form of sorted covers as this migration wrote it: IEEE 754 doubles, little-endian,
+ * 8 bytes each. Copied from readings/coverSetCodec.ts rather than imported, so that a later
+ * change to live code cannot change what this migration does.
+ */
+function encodeCovers(sortedCoversMm: Float64Array): Buffer {
+	const bytes = Buffer.alloc(sortedCoversMm.length * 8);
+	for (let i = 0; i < sortedCoversMm.length; i++) bytes.writeDoubleLE(sortedCoversMm[i], i * 8);
+	return bytes;
+}

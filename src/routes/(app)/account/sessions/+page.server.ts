@@ -1,8 +1,8 @@
 import { error, redirect } from '@sveltejs/kit';
 import { z } from 'zod';
 import type { Actions, PageServerLoad } from './$types';
-import { pageActor } from '$lib/server/guard';
-import { authorize } from '$lib/server/policy';
+import { pageActor } from '$lib/server/web/guard';
+import { authorize } from '$lib/server/web/actor';
 import { endDevice, listDevices } from '$lib/server/auth/devices';
 
 export const load: PageServerLoad = async (event) => {

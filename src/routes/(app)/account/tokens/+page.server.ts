@@ -1,9 +1,9 @@
 import { error, fail, redirect } from '@sveltejs/kit';
 import { z } from 'zod';
 import type { Actions, PageServerLoad } from './$types';
-import { pageActor } from '$lib/server/guard';
-import { authorize } from '$lib/server/policy';
-import { fieldErrors, safeValues } from '$lib/server/forms';
+import { pageActor } from '$lib/server/web/guard';
+import { authorize } from '$lib/server/web/actor';
+import { fieldErrors, safeValues } from '$lib/server/web/forms';
 import { listApiTokens, TOKEN_MAX_DAYS } from '$lib/server/auth/api-tokens';
 import { createTokenSchema, idParamSchema } from '$lib/server/auth/token-schemas';
 import { createTokenFor, revokeTokenOf } from '$lib/server/auth/token-actions';

@@ -1,8 +1,10 @@
 import { fail, redirect } from '@sveltejs/kit';
 import type { Actions, PageServerLoad } from './$types';
-import { pageActor } from '$lib/server/guard';
-import { authorize, can } from '$lib/server/policy';
-import { pathId, visibleAsset } from '$lib/server/populations';
+import { pageActor } from '$lib/server/web/guard';
+import { authorize } from '$lib/server/web/actor';
+import { can } from '$lib/server/policy';
+import { visibleAsset } from '$lib/server/populations';
+import { pathId } from '$lib/server/web/params';
 import { approve, getAssessment, mayApprove, withSnapshot } from '$lib/server/assessments';
 import type { AssessmentSnapshot } from '$lib/server/assessments/snapshot';
 import {

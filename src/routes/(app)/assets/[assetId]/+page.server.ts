@@ -1,15 +1,15 @@
 import type { Actions, PageServerLoad } from './$types';
 import { can } from '$lib/server/policy';
-import { pageActor } from '$lib/server/guard';
+import { pageActor } from '$lib/server/web/guard';
 import { surveySchema } from '$lib/intake/schemas';
 import { createSurvey, listSurveys } from '$lib/server/intake/surveys';
-import { loadOr404, savingAction } from '$lib/server/intake/pages';
-import { idParam } from '$lib/server/intake/respond';
+import { loadOr404, savingAction } from '$lib/server/web/pages';
+import { pathId } from '$lib/server/web/params';
 import { scopedAsset } from '$lib/server/scope';
 
 export const load: PageServerLoad = async (event) => {
 	const actor = pageActor(event, 'asset:read');
-	const assetId = idParam(event.params.assetId);
+	const assetId = pathId(event.params.assetId);
 	const asset = await loadOr404(() => scopedAsset(actor, assetId, 'read'));
 	// Owners read an asset's assessments and reports, not its surveys (docs/roles.md).
 	const canReadSurveys = can(actor.role, 'survey:read');
@@ -40,7 +40,7 @@ export const actions = {
 		'survey:create',
 		surveySchema,
 		(actor, input, params: { assetId: string }) =>
-			createSurvey(actor, idParam(params.assetId), input),
+			createSurvey(actor, pathId(params.assetId), input),
 		(survey) => `/surveys/${survey.id}`
 	)
 } satisfies Actions;

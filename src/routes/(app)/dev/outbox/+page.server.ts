@@ -1,6 +1,6 @@
 import { error } from '@sveltejs/kit';
 import type { PageServerLoad } from './$types';
-import { pageActor } from '$lib/server/guard';
+import { pageActor } from '$lib/server/web/guard';
 import { devOutboxEnabled, devOutboxFor } from '$lib/server/mail/dev-outbox';
 
 /** The signed-in user's own mail, as the local mail fake received it (development and demo only). */

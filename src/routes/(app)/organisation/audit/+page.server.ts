@@ -1,6 +1,6 @@
 import { z } from 'zod';
 import type { PageServerLoad } from './$types';
-import { pageActor } from '$lib/server/guard';
+import { pageActor } from '$lib/server/web/guard';
 import { auditLogPage } from '$lib/server/auditLog';
 
 const pageSchema = z.coerce.number().int().min(1).max(1_000_000).catch(1);

@@ -1,9 +1,9 @@
 import { error, fail, redirect } from '@sveltejs/kit';
 import { z } from 'zod';
 import type { Actions, PageServerLoad } from './$types';
-import { pageActor } from '$lib/server/guard';
-import { authorize } from '$lib/server/policy';
-import { formMessage, parseForm } from '$lib/server/forms';
+import { pageActor } from '$lib/server/web/guard';
+import { authorize } from '$lib/server/web/actor';
+import { formMessage, parseForm } from '$lib/server/web/forms';
 import { inviteSchema, roleSchema } from '$lib/server/auth/schemas';
 import { idParamSchema } from '$lib/server/auth/token-schemas';
 import {

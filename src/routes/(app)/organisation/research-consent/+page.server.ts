@@ -2,9 +2,9 @@ import { error, redirect } from '@sveltejs/kit';
 import { z } from 'zod';
 import type { Actions, PageServerLoad } from './$types';
 import { Asset } from '$lib/server/db';
-import { parseForm } from '$lib/server/forms';
-import { pageActor } from '$lib/server/guard';
-import { authorize } from '$lib/server/policy';
+import { parseForm } from '$lib/server/web/forms';
+import { pageActor } from '$lib/server/web/guard';
+import { authorize } from '$lib/server/web/actor';
 import { AssetNotFoundError, setConsent } from '$lib/server/research/consent';
 
 /** The owning organisation's consent, asset by asset, to anonymised research use. */

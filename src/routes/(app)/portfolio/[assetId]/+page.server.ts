@@ -1,9 +1,10 @@
 import { error, fail, redirect } from '@sveltejs/kit';
 import { z } from 'zod';
 import type { Actions, PageServerLoad } from './$types';
-import { parseForm } from '$lib/server/forms';
-import { pageActor } from '$lib/server/guard';
-import { authorize, can } from '$lib/server/policy';
+import { parseForm } from '$lib/server/web/forms';
+import { pageActor } from '$lib/server/web/guard';
+import { authorize } from '$lib/server/web/actor';
+import { can } from '$lib/server/policy';
 import { linksOf, revokeLink, shareReport, shareSchema } from '$lib/server/reports';
 import { assetView, toRiskView } from '$lib/server/risk';
 

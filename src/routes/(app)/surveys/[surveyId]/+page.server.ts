@@ -1,17 +1,18 @@
 import { fail } from '@sveltejs/kit';
 import type { Actions, PageServerLoad } from './$types';
 import { Attachment } from '$lib/server/db';
-import { authorize, can } from '$lib/server/policy';
-import { pageActor } from '$lib/server/guard';
-import { parseForm } from '$lib/server/forms';
+import { authorize } from '$lib/server/web/actor';
+import { can } from '$lib/server/policy';
+import { pageActor } from '$lib/server/web/guard';
+import { parseForm } from '$lib/server/web/forms';
 import { memberSchema, reviewSchema } from '$lib/intake/schemas';
 import { createMembers, listMembers } from '$lib/server/intake/members';
 import { parsePastedMembers } from '$lib/server/intake/pastedMembers';
 import { transitionSurvey } from '$lib/server/intake/surveys';
 import { listImports } from '$lib/server/import/batchActions';
 import { IMPORT_LIMITS } from '$lib/server/import/limits';
-import { actOr, loadOr404 } from '$lib/server/intake/pages';
-import { idParam } from '$lib/server/intake/respond';
+import { actOr, loadOr404 } from '$lib/server/web/pages';
+import { pathId } from '$lib/server/web/params';
 import { scopedSurvey } from '$lib/server/scope';
 import { hasSurveyPlan } from '$lib/server/planning/service';
 import { EMPTY_SURVEY_WORDS } from '$lib/intake/frozen';
@@ -20,7 +21,7 @@ import { frozenReason } from '$lib/server/intake/frozen';
 
 export const load: PageServerLoad = async (event) => {
 	const actor = pageActor(event, 'survey:read');
-	const surveyId = idParam(event.params.surveyId);
+	const surveyId = pathId(event.params.surveyId);
 	const { survey, asset } = await loadOr404(() => scopedSurvey(actor, surveyId, 'read'));
 	const own = asset.organisationId === actor.organisationId;
 	const editable = own && (survey.status === 'draft' || survey.status === 'returned');
@@ -59,7 +60,7 @@ export const load: PageServerLoad = async (event) => {
 	};
 };
 
-const surveyIdOf = (params: { surveyId: string }) => idParam(params.surveyId);
+const surveyIdOf = (params: { surveyId: string }) => pathId(params.surveyId);
 
 export const actions = {
 	addMember: async ({ locals, request, params }) => {

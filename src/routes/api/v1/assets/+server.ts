@@ -1,12 +1,12 @@
 import { json } from '@sveltejs/kit';
 import type { RequestHandler } from './$types';
-import { authorize } from '$lib/server/policy';
+import { authorize } from '$lib/server/web/actor';
 import { visibleAssets } from '$lib/server/api/visible';
 import { assetAnswer } from '$lib/server/api/ownRecords';
-import { readJson } from '$lib/server/http';
+import { readJson } from '$lib/server/web/http';
 import { assetSchema } from '$lib/intake/schemas';
-import { createAsset, listAssets } from '$lib/server/intake/assets';
-import { api } from '$lib/server/intake/respond';
+import { createAsset } from '$lib/server/intake/assets';
+import { api } from '$lib/server/web/respond';
 
 /** Assets the caller's organisation owns or has been shared. */
 export const GET: RequestHandler = async ({ locals }) => {

@@ -1,6 +1,6 @@
 import { json } from '@sveltejs/kit';
 import type { RequestHandler } from './$types';
-import { authorize } from '$lib/server/policy';
+import { authorize } from '$lib/server/web/actor';
 
 /** Who the caller is, in which organisation and role, and how they proved it. */
 export const GET: RequestHandler = async ({ locals }) => {

@@ -1,8 +1,8 @@
 import { json } from '@sveltejs/kit';
 import { z } from 'zod';
 import type { RequestHandler } from './$types';
-import { authorize } from '$lib/server/policy';
-import { apiError } from '$lib/server/http';
+import { authorize } from '$lib/server/web/actor';
+import { apiError } from '$lib/server/web/http';
 import { EN_DELTA_C_DEV_RANGE_MM, suggestEnCover } from '$lib/server/intake/requirements';
 
 const { min, max } = EN_DELTA_C_DEV_RANGE_MM;

@@ -1,7 +1,7 @@
 import { json } from '@sveltejs/kit';
 import type { RequestHandler } from './$types';
-import { authorize } from '$lib/server/policy';
-import { readJson } from '$lib/server/http';
+import { authorize } from '$lib/server/web/actor';
+import { readJson } from '$lib/server/web/http';
 import { listApiTokens } from '$lib/server/auth/api-tokens';
 import { createTokenSchema } from '$lib/server/auth/token-schemas';
 import { createTokenFor } from '$lib/server/auth/token-actions';

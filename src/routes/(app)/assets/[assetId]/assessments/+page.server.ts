@@ -1,17 +1,18 @@
 import { fail, redirect, type ActionFailure } from '@sveltejs/kit';
 import { z } from 'zod';
 import type { Actions, PageServerLoad } from './$types';
-import { pageActor } from '$lib/server/guard';
-import { authorize, can } from '$lib/server/policy';
+import { pageActor } from '$lib/server/web/guard';
+import { authorize } from '$lib/server/web/actor';
+import { can } from '$lib/server/policy';
 import {
 	methodSchema,
-	pathId,
 	readingCountOf,
 	requestedSurveyIds,
 	scopeSchema,
 	surveySelection,
 	visibleAsset
 } from '$lib/server/populations';
+import { pathId } from '$lib/server/web/params';
 import { history, saveDraft, saveSchema, summarise } from '$lib/server/assessments';
 
 export const load: PageServerLoad = async (event) => {

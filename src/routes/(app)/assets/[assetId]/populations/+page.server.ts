@@ -1,8 +1,9 @@
 import type { PageServerLoad } from './$types';
-import { pageActor } from '$lib/server/guard';
+import { pageActor } from '$lib/server/web/guard';
 import { Survey } from '$lib/server/db';
 import { can } from '$lib/server/policy';
-import { pathId, visibleAsset } from '$lib/server/populations';
+import { visibleAsset } from '$lib/server/populations';
+import { pathId } from '$lib/server/web/params';
 
 /** The frame of the overview; the table itself is fetched from the API by the browser. */
 export const load: PageServerLoad = async (event) => {

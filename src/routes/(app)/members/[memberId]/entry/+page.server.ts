@@ -1,18 +1,19 @@
 import type { Actions, PageServerLoad } from './$types';
-import { authorize, can } from '$lib/server/policy';
-import { pageActor } from '$lib/server/guard';
-import { parseForm } from '$lib/server/forms';
+import { authorize } from '$lib/server/web/actor';
+import { can } from '$lib/server/policy';
+import { pageActor } from '$lib/server/web/guard';
+import { parseForm } from '$lib/server/web/forms';
 import { Reading } from '$lib/server/db';
 import { holeSchema } from '$lib/intake/schemas';
 import { createHole, listHoles } from '$lib/server/intake/holes';
-import { actOr, loadOr404 } from '$lib/server/intake/pages';
-import { idParam } from '$lib/server/intake/respond';
+import { actOr, loadOr404 } from '$lib/server/web/pages';
+import { pathId } from '$lib/server/web/params';
 import { scopedMember } from '$lib/server/scope';
 import { frozenReason } from '$lib/server/intake/frozen';
 
 export const load: PageServerLoad = async (event) => {
 	const actor = pageActor(event, 'survey:read');
-	const memberId = idParam(event.params.memberId);
+	const memberId = pathId(event.params.memberId);
 	const { member, survey, asset } = await loadOr404(() => scopedMember(actor, memberId, 'read'));
 	const editable =
 		asset.organisationId === actor.organisationId &&
@@ -39,7 +40,7 @@ export const actions = {
 		const parsed = await parseForm(request, holeSchema);
 		if (!parsed.ok) return parsed.failure;
 		const done = await actOr(parsed.form, () =>
-			createHole(actor, idParam(params.memberId), parsed.data)
+			createHole(actor, pathId(params.memberId), parsed.data)
 		);
 		return 'id' in done ? { ok: `Hole ${parsed.data.label} recorded.` } : done;
 	}

@@ -1,6 +1,6 @@
 import { error } from '@sveltejs/kit';
 import type { PageServerLoad } from './$types';
-import { pageActor } from '$lib/server/guard';
+import { pageActor } from '$lib/server/web/guard';
 import { AuditEvent } from '$lib/server/db';
 import { idParamSchema } from '$lib/server/auth/token-schemas';
 import { listMembers } from '$lib/server/organisation/members';

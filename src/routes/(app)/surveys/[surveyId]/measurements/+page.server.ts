@@ -1,9 +1,10 @@
 import { fail } from '@sveltejs/kit';
 import { z } from 'zod';
 import type { Actions, PageServerLoad } from './$types';
-import { authorize, can } from '$lib/server/policy';
-import { pageActor } from '$lib/server/guard';
-import { fieldErrors, safeValues } from '$lib/server/forms';
+import { authorize } from '$lib/server/web/actor';
+import { can } from '$lib/server/policy';
+import { pageActor } from '$lib/server/web/guard';
+import { fieldErrors, safeValues } from '$lib/server/web/forms';
 import {
 	carbonationDepths,
 	carbonationTestSchema,
@@ -21,14 +22,14 @@ import {
 	deleteChlorideProfile
 } from '$lib/server/intake/chloride';
 import { listMembers } from '$lib/server/intake/members';
-import { actOr, loadOr404 } from '$lib/server/intake/pages';
+import { actOr, loadOr404 } from '$lib/server/web/pages';
 import { frozenReason } from '$lib/server/intake/frozen';
-import { idParam } from '$lib/server/intake/respond';
+import { pathId } from '$lib/server/web/params';
 import { scopedSurvey } from '$lib/server/scope';
 
 export const load: PageServerLoad = async (event) => {
 	const actor = pageActor(event, 'survey:read');
-	const surveyId = idParam(event.params.surveyId);
+	const surveyId = pathId(event.params.surveyId);
 	const { survey, asset } = await loadOr404(() => scopedSurvey(actor, surveyId, 'read'));
 	const own = asset.organisationId === actor.organisationId;
 	const [members, tests, profiles] = await Promise.all([

@@ -1,10 +1,11 @@
 import { fail } from '@sveltejs/kit';
 import type { Actions, PageServerLoad } from './$types';
-import { authorize, can } from '$lib/server/policy';
-import { pageActor } from '$lib/server/guard';
+import { can } from '$lib/server/policy';
+import { authorize } from '$lib/server/web/actor';
+import { pageActor } from '$lib/server/web/guard';
 import { surveyPlanSchema, type PlannedPopulationInput } from '$lib/intake/plan';
-import { actOr, loadOr404 } from '$lib/server/intake/pages';
-import { idParam } from '$lib/server/intake/respond';
+import { actOr, loadOr404 } from '$lib/server/web/pages';
+import { idParam } from '$lib/server/web/respond';
 import { scopedSurvey } from '$lib/server/scope';
 import { proposedPopulations, saveSurveyPlan, surveyPlanOf } from '$lib/server/planning/service';
 

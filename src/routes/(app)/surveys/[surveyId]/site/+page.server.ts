@@ -1,9 +1,9 @@
 import type { PageServerLoad } from './$types';
 import { can } from '$lib/server/policy';
-import { pageActor } from '$lib/server/guard';
+import { pageActor } from '$lib/server/web/guard';
 import { listMembers } from '$lib/server/intake/members';
-import { loadOr404 } from '$lib/server/intake/pages';
-import { idParam } from '$lib/server/intake/respond';
+import { loadOr404 } from '$lib/server/web/pages';
+import { idParam } from '$lib/server/web/respond';
 import { scopedSurvey } from '$lib/server/scope';
 import { plannedReadingsByMember } from '$lib/server/planning/service';
 

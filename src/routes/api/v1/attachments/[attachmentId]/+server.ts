@@ -1,16 +1,17 @@
 import { Readable } from 'node:stream';
 import type { RequestHandler } from './$types';
-import { authorize } from '$lib/server/policy';
+import { authorize } from '$lib/server/web/actor';
 import { scopedAttachment } from '$lib/server/storage/attachments';
 import { attachmentDownloadQuerySchema } from '$lib/server/storage/attachmentQuery';
 import { getObject } from '$lib/server/storage/s3';
 import { contentDisposition } from '$lib/server/storage/names';
-import { api, idParam } from '$lib/server/intake/respond';
+import { api } from '$lib/server/web/respond';
+import { pathId } from '$lib/server/web/params';
 
 /** Downloads go through the policy and the scope, never straight to the bucket. */
 export const GET: RequestHandler = async ({ locals, params, url }) => {
 	const actor = authorize(locals, 'attachment:read');
-	const attachment = await api(() => scopedAttachment(actor, idParam(params.attachmentId)));
+	const attachment = await api(() => scopedAttachment(actor, pathId(params.attachmentId)));
 	const { thumbnail } = attachmentDownloadQuerySchema.parse(Object.fromEntries(url.searchParams));
 	const wantThumb = thumbnail === '1' && attachment.thumbnailKey;
 	const object = await api(() =>

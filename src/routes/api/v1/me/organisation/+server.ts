@@ -1,8 +1,8 @@
 import { json } from '@sveltejs/kit';
 import { z } from 'zod';
 import type { RequestHandler } from './$types';
-import { authorize } from '$lib/server/policy';
-import { apiError, readJson } from '$lib/server/http';
+import { authorize } from '$lib/server/web/actor';
+import { apiError, readJson } from '$lib/server/web/http';
 import { switchOrganisation } from '$lib/server/auth/membership';
 
 const switchSchema = z.object({ organisationId: z.number().int().positive() });

@@ -1,6 +1,6 @@
 import { json } from '@sveltejs/kit';
 import type { RequestHandler } from './$types';
-import { authorize } from '$lib/server/policy';
+import { authorize } from '$lib/server/web/actor';
 import { listMembers } from '$lib/server/organisation/members';
 
 /** The members of the caller's active organisation, with their roles (admins only). */

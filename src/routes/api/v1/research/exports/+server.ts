@@ -1,6 +1,6 @@
 import { json } from '@sveltejs/kit';
 import type { RequestHandler } from './$types';
-import { authorize } from '$lib/server/policy';
+import { authorize } from '$lib/server/web/actor';
 import { ResearchExport } from '$lib/server/db';
 import { summariseExport } from '$lib/server/research/exportRecord';
 

@@ -1,6 +1,6 @@
 import { json } from '@sveltejs/kit';
 import type { RequestHandler } from './$types';
-import { authorize } from '$lib/server/policy';
+import { authorize } from '$lib/server/web/actor';
 import { pageQuerySchema } from '$lib/server/api/cursor';
 import { parseInput } from '$lib/server/api/request';
 import { researchContext } from '$lib/server/research/context';

@@ -1,6 +1,6 @@
 import { json } from '@sveltejs/kit';
 import type { RequestHandler } from './$types';
-import { authorize } from '$lib/server/policy';
+import { authorize } from '$lib/server/web/actor';
 import { researchContext } from '$lib/server/research/context';
 import { statisticsQueryOf } from '$lib/server/research/requests';
 import { researchStatistics } from '$lib/server/research/statistics';

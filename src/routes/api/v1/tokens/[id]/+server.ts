@@ -1,7 +1,7 @@
 import { json } from '@sveltejs/kit';
 import type { RequestHandler } from './$types';
-import { authorize } from '$lib/server/policy';
-import { apiError } from '$lib/server/http';
+import { authorize } from '$lib/server/web/actor';
+import { apiError } from '$lib/server/web/http';
 import { idParamSchema } from '$lib/server/auth/token-schemas';
 import { revokeTokenOf } from '$lib/server/auth/token-actions';
 import { clientAddress } from '$lib/server/auth/sign-in';

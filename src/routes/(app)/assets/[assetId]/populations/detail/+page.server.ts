@@ -1,6 +1,7 @@
 import type { PageServerLoad } from './$types';
-import { pageActor } from '$lib/server/guard';
-import { pathId, visibleAsset } from '$lib/server/populations';
+import { pageActor } from '$lib/server/web/guard';
+import { visibleAsset } from '$lib/server/populations';
+import { pathId } from '$lib/server/web/params';
 
 /** The frame of a population detail; the figures are fetched from the API by the browser. */
 export const load: PageServerLoad = async (event) => {

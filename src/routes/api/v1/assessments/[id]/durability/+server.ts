@@ -2,8 +2,8 @@ import { json } from '@sveltejs/kit';
 import { z } from 'zod';
 import type { RequestHandler } from './$types';
 import { Assessment } from '$lib/server/db';
-import { apiError, readJson } from '$lib/server/http';
-import { authorize } from '$lib/server/policy';
+import { apiError, readJson } from '$lib/server/web/http';
+import { authorize } from '$lib/server/web/actor';
 import {
 	assessedSource,
 	CARBONATION_DEFAULTS,

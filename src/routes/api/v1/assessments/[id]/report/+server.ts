@@ -1,7 +1,7 @@
 import { z } from 'zod';
 import type { RequestHandler } from './$types';
-import { apiError } from '$lib/server/http';
-import { authorize } from '$lib/server/policy';
+import { apiError } from '$lib/server/web/http';
+import { authorize } from '$lib/server/web/actor';
 import { pdfResponse } from '$lib/server/reports';
 import { assessedSource, readableAssessment } from '$lib/server/risk';
 

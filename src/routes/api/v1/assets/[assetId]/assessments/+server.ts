@@ -1,7 +1,7 @@
 import { json } from '@sveltejs/kit';
 import type { RequestHandler } from './$types';
-import { authorize } from '$lib/server/policy';
-import { pathId } from '$lib/server/populations';
+import { authorize } from '$lib/server/web/actor';
+import { pathId } from '$lib/server/web/params';
 import { history, readSaveBody, saveDraft, summarise } from '$lib/server/assessments';
 
 /** The asset's assessments, newest first (drafts only for those who may write them). */

@@ -1,17 +1,17 @@
 import { json } from '@sveltejs/kit';
 import type { RequestHandler } from './$types';
-import { authorize } from '$lib/server/policy';
+import { authorize } from '$lib/server/web/actor';
 import {
 	methodSchema,
 	paramsOf,
 	parseParams,
-	pathId,
 	populationOverview,
 	requestedSurveyIds,
 	scopeSchema,
 	surveySelection,
 	visibleAsset
 } from '$lib/server/populations';
+import { pathId } from '$lib/server/web/params';
 
 /** The population overview of an asset or one of its surveys: every group, judged by the engine. */
 export const GET: RequestHandler = async ({ locals, params, url }) => {

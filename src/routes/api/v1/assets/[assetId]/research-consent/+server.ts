@@ -1,8 +1,8 @@
 import { json } from '@sveltejs/kit';
 import { z } from 'zod';
 import type { RequestHandler } from './$types';
-import { authorize } from '$lib/server/policy';
-import { apiError, readJson } from '$lib/server/http';
+import { authorize } from '$lib/server/web/actor';
+import { apiError, readJson } from '$lib/server/web/http';
 import { parseInput } from '$lib/server/api/request';
 import { idParam } from '$lib/server/api/schemas';
 import { consentBodySchema } from '$lib/server/research/apiSchemas';

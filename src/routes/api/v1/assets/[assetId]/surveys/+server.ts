@@ -1,15 +1,16 @@
 import { json } from '@sveltejs/kit';
 import { z } from 'zod';
 import type { RequestHandler } from './$types';
-import { authorize } from '$lib/server/policy';
+import { authorize } from '$lib/server/web/actor';
 import { parseInput } from '$lib/server/api/request';
 import { idParam } from '$lib/server/api/schemas';
 import { visibleAsset } from '$lib/server/api/visible';
 import { surveysOf } from '$lib/server/api/ownRecords';
-import { readJson } from '$lib/server/http';
+import { readJson } from '$lib/server/web/http';
 import { surveySchema } from '$lib/intake/schemas';
-import { createSurvey, listSurveys } from '$lib/server/intake/surveys';
-import { api, idParam as intakeId } from '$lib/server/intake/respond';
+import { createSurvey } from '$lib/server/intake/surveys';
+import { api } from '$lib/server/web/respond';
+import { pathId } from '$lib/server/web/params';
 
 export const GET: RequestHandler = async ({ locals, params }) => {
 	const actor = authorize(locals, 'survey:read');
@@ -20,7 +21,7 @@ export const GET: RequestHandler = async ({ locals, params }) => {
 
 export const POST: RequestHandler = async ({ locals, params, request }) => {
 	const actor = authorize(locals, 'survey:create');
-	const assetId = intakeId(params.assetId);
+	const assetId = pathId(params.assetId);
 	const input = await readJson(request, surveySchema);
 	return json({ survey: await api(() => createSurvey(actor, assetId, input)) }, { status: 201 });
 };

@@ -1,14 +1,15 @@
 import type { RequestHandler } from './$types';
-import { authorize } from '$lib/server/policy';
-import { apiError } from '$lib/server/http';
+import { authorize } from '$lib/server/web/actor';
+import { apiError } from '$lib/server/web/http';
 import { rejectedRowsCsv } from '$lib/server/import/batchActions';
-import { api, idParam } from '$lib/server/intake/respond';
+import { api } from '$lib/server/web/respond';
+import { pathId } from '$lib/server/web/params';
 import { contentDisposition } from '$lib/server/storage/names';
 
 /** The rows an import refused, with row number and reason, as CSV (formulas neutralised). */
 export const GET: RequestHandler = async ({ locals, params }) => {
 	const actor = authorize(locals, 'survey:read');
-	const batchId = idParam(params.batchId);
+	const batchId = pathId(params.batchId);
 	const csv = await api(() => rejectedRowsCsv(actor, batchId));
 	if (csv == null) apiError(404, 'not_found', 'This import rejected no rows.');
 	return new Response(csv, {

@@ -1,15 +1,16 @@
 import { json } from '@sveltejs/kit';
 import type { RequestHandler } from './$types';
-import { authorize } from '$lib/server/policy';
-import { readJson } from '$lib/server/http';
+import { authorize } from '$lib/server/web/actor';
+import { readJson } from '$lib/server/web/http';
 import { startImport } from '$lib/server/import/batches';
 import { importStartSchema } from '$lib/server/import/mapping';
-import { api, idParam } from '$lib/server/intake/respond';
+import { api } from '$lib/server/web/respond';
+import { pathId } from '$lib/server/web/params';
 
 /** Step 2: the mapping and choices; the import runs on, and GET /api/v1/imports/:id follows it. */
 export const POST: RequestHandler = async ({ locals, params, request }) => {
 	const actor = authorize(locals, 'reading:import');
-	const batchId = idParam(params.batchId);
+	const batchId = pathId(params.batchId);
 	const input = await readJson(request, importStartSchema);
 	const started = await api(() => startImport(actor, batchId, input));
 	// Not awaited: it settles in the batch's row, which the progress route reads.

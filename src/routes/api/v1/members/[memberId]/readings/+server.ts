@@ -1,16 +1,17 @@
 import { json } from '@sveltejs/kit';
 import { z } from 'zod';
 import type { RequestHandler } from './$types';
-import { authorize } from '$lib/server/policy';
+import { authorize } from '$lib/server/web/actor';
 import { pageQuerySchema } from '$lib/server/api/cursor';
 import { parseInput, queryObject } from '$lib/server/api/request';
 import { idParam } from '$lib/server/api/schemas';
 import { visibleMember } from '$lib/server/api/visible';
 import { readingPage } from '$lib/server/api/ownRecords';
-import { apiError, readJson } from '$lib/server/http';
+import { apiError, readJson } from '$lib/server/web/http';
 import { manualEntrySchema } from '$lib/intake/schemas';
 import { saveManualReadings } from '$lib/server/intake/manualEntry';
-import { api, idParam as intakeId } from '$lib/server/intake/respond';
+import { api } from '$lib/server/web/respond';
+import { pathId } from '$lib/server/web/params';
 
 export const GET: RequestHandler = async ({ locals, params, url }) => {
 	const actor = authorize(locals, 'survey:read');
@@ -22,7 +23,7 @@ export const GET: RequestHandler = async ({ locals, params, url }) => {
 
 export const POST: RequestHandler = async ({ locals, params, request }) => {
 	const actor = authorize(locals, 'reading:edit');
-	const id = intakeId(params.memberId);
+	const id = pathId(params.memberId);
 	const entry = await readJson(request, manualEntrySchema);
 	const outcome = await api(() => saveManualReadings(actor, id, entry));
 	if (outcome.state !== 'completed') apiError(400, 'rows-rejected', outcome.message);

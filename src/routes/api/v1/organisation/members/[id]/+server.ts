@@ -1,8 +1,9 @@
 import { json } from '@sveltejs/kit';
 import { z } from 'zod';
 import type { RequestHandler } from './$types';
-import { authorize, type Actor } from '$lib/server/policy';
-import { apiError, readJson } from '$lib/server/http';
+import { authorize } from '$lib/server/web/actor';
+import type { Actor } from '$lib/server/policy';
+import { apiError, readJson } from '$lib/server/web/http';
 import { roleSchema } from '$lib/server/auth/schemas';
 import { idParamSchema } from '$lib/server/auth/token-schemas';
 import { changeRole, LastAdminError, removeMember } from '$lib/server/organisation/members';

@@ -1,8 +1,8 @@
 import { json } from '@sveltejs/kit';
 import { z } from 'zod';
 import type { RequestHandler } from './$types';
-import { authorize } from '$lib/server/policy';
-import { apiError } from '$lib/server/http';
+import { authorize } from '$lib/server/web/actor';
+import { apiError } from '$lib/server/web/http';
 import { ResearchExport } from '$lib/server/db';
 import { parseInput } from '$lib/server/api/request';
 import { idParam } from '$lib/server/api/schemas';

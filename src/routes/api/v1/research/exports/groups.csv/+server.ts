@@ -1,5 +1,5 @@
 import type { RequestHandler } from './$types';
-import { authorize } from '$lib/server/policy';
+import { authorize } from '$lib/server/web/actor';
 import { groupsExportResponse } from '$lib/server/research/exportResponse';
 import { statisticsQueryOf } from '$lib/server/research/requests';
 

@@ -1,5 +1,5 @@
 import type { RequestHandler } from './$types';
-import { authorize } from '$lib/server/policy';
+import { authorize } from '$lib/server/web/actor';
 import { readingsExportResponse } from '$lib/server/research/exportResponse';
 import { filterOf } from '$lib/server/research/requests';
 

@@ -1,7 +1,7 @@
 import { json } from '@sveltejs/kit';
 import type { RequestHandler } from './$types';
-import { authorize } from '$lib/server/policy';
-import { apiError } from '$lib/server/http';
+import { authorize } from '$lib/server/web/actor';
+import { apiError } from '$lib/server/web/http';
 import {
 	ATTACHMENT_MAX_BYTES,
 	listAttachments,
@@ -9,11 +9,12 @@ import {
 } from '$lib/server/storage/attachments';
 import { attachmentUploadQuerySchema } from '$lib/server/storage/attachmentQuery';
 import { scopedSurvey } from '$lib/server/scope';
-import { api, idParam, noBodyAnswer } from '$lib/server/intake/respond';
+import { api, noBodyAnswer } from '$lib/server/web/respond';
+import { pathId } from '$lib/server/web/params';
 
 export const GET: RequestHandler = async ({ locals, params }) => {
 	const actor = authorize(locals, 'attachment:read');
-	const id = idParam(params.surveyId);
+	const id = pathId(params.surveyId);
 	await api(() => scopedSurvey(actor, id, 'read'));
 	return json({ attachments: await listAttachments(id) });
 };
@@ -21,7 +22,7 @@ export const GET: RequestHandler = async ({ locals, params }) => {
 /** The file as the raw body; kind, name and caption in the query string. */
 export const POST: RequestHandler = async ({ locals, params, request, url }) => {
 	const actor = authorize(locals, 'attachment:upload');
-	const surveyId = idParam(params.surveyId);
+	const surveyId = pathId(params.surveyId);
 	const q = attachmentUploadQuerySchema.safeParse(Object.fromEntries(url.searchParams));
 	if (!q.success)
 		apiError(400, 'invalid_input', q.error.issues[0].message, String(q.error.issues[0].path[0]));

@@ -1,16 +1,17 @@
 import { json } from '@sveltejs/kit';
 import type { RequestHandler } from './$types';
-import { authorize } from '$lib/server/policy';
-import { apiError } from '$lib/server/http';
+import { authorize } from '$lib/server/web/actor';
+import { apiError } from '$lib/server/web/http';
 import { listImports } from '$lib/server/import/batchActions';
 import { receiveUpload } from '$lib/server/import/batches';
 import { IMPORT_LIMITS } from '$lib/server/import/limits';
 import { importUploadQuerySchema } from '$lib/server/import/mapping';
-import { api, idParam, noBodyAnswer } from '$lib/server/intake/respond';
+import { api, noBodyAnswer } from '$lib/server/web/respond';
+import { pathId } from '$lib/server/web/params';
 
 export const GET: RequestHandler = async ({ locals, params }) => {
 	const actor = authorize(locals, 'survey:read');
-	return json({ imports: await api(() => listImports(actor, idParam(params.surveyId))) });
+	return json({ imports: await api(() => listImports(actor, pathId(params.surveyId))) });
 };
 
 /**
@@ -20,7 +21,7 @@ export const GET: RequestHandler = async ({ locals, params }) => {
  */
 export const POST: RequestHandler = async ({ locals, params, request, url }) => {
 	const actor = authorize(locals, 'reading:import');
-	const surveyId = idParam(params.surveyId);
+	const surveyId = pathId(params.surveyId);
 	const declared = Number(request.headers.get('content-length') ?? 0);
 	const limitMb = IMPORT_LIMITS.maxFileBytes / 1024 / 1024;
 	if (declared > IMPORT_LIMITS.maxFileBytes) {

@@ -1,26 +1,23 @@
 import { json } from '@sveltejs/kit';
-import { z } from 'zod';
 import type { RequestHandler } from './$types';
-import { authorize } from '$lib/server/policy';
-import { parseInput } from '$lib/server/api/request';
-import { idParam } from '$lib/server/api/schemas';
+import { authorize } from '$lib/server/web/actor';
 import { visibleSurvey } from '$lib/server/api/visible';
 import { membersOf } from '$lib/server/api/ownRecords';
-import { readJson } from '$lib/server/http';
+import { readJson } from '$lib/server/web/http';
 import { memberSchema } from '$lib/intake/schemas';
-import { createMembers, listMembers } from '$lib/server/intake/members';
-import { api, idParam as intakeId } from '$lib/server/intake/respond';
+import { createMembers } from '$lib/server/intake/members';
+import { api } from '$lib/server/web/respond';
+import { pathId } from '$lib/server/web/params';
 
 export const GET: RequestHandler = async ({ locals, params }) => {
 	const actor = authorize(locals, 'survey:read');
-	const { surveyId } = parseInput(z.object({ surveyId: idParam('survey') }), params);
-	const survey = await visibleSurvey(actor, surveyId);
+	const survey = await visibleSurvey(actor, pathId(params.surveyId));
 	return json({ members: await membersOf(survey.id) });
 };
 
 export const POST: RequestHandler = async ({ locals, params, request }) => {
 	const actor = authorize(locals, 'member:write');
-	const id = intakeId(params.surveyId);
+	const id = pathId(params.surveyId);
 	const input = await readJson(request, memberSchema);
 	const [member] = await api(() => createMembers(actor, id, [input]));
 	return json({ member }, { status: 201 });

@@ -1,10 +1,10 @@
 import { json } from '@sveltejs/kit';
 import type { RequestHandler } from './$types';
-import { authorize } from '$lib/server/policy';
-import { apiError, readJson } from '$lib/server/http';
+import { authorize } from '$lib/server/web/actor';
+import { apiError, readJson } from '$lib/server/web/http';
 import { surveyPlanSchema } from '$lib/intake/plan';
 import { deleteSurveyPlan, saveSurveyPlan, surveyPlanOf } from '$lib/server/planning/service';
-import { api, idParam } from '$lib/server/intake/respond';
+import { api, idParam } from '$lib/server/web/respond';
 
 export const GET: RequestHandler = async ({ locals, params }) => {
 	const actor = authorize(locals, 'survey:read');

@@ -1,10 +1,10 @@
 import { json } from '@sveltejs/kit';
 import type { RequestHandler } from './$types';
-import { authorize } from '$lib/server/policy';
-import { readJson } from '$lib/server/http';
+import { authorize } from '$lib/server/web/actor';
+import { readJson } from '$lib/server/web/http';
 import { siteBatchSchema } from '$lib/intake/schemas';
 import { receiveSiteBatch } from '$lib/server/intake/siteSync';
-import { api, idParam } from '$lib/server/intake/respond';
+import { api, idParam } from '$lib/server/web/respond';
 
 /** A device's queued site entries: 201 when written now, 200 when this batch id already was. */
 export const POST: RequestHandler = async ({ locals, params, request }) => {

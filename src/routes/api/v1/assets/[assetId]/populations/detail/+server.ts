@@ -1,7 +1,7 @@
 import { error, json } from '@sveltejs/kit';
 import type { RequestHandler } from './$types';
 import { toPlainJson } from '$lib/analysis';
-import { authorize } from '$lib/server/policy';
+import { authorize } from '$lib/server/web/actor';
 import {
 	groupSchema,
 	memberBoxes,
@@ -11,13 +11,13 @@ import {
 	methodSchema,
 	paramsOf,
 	parseParams,
-	pathId,
 	populationDetail,
 	requestedSurveyIds,
 	scopeSchema,
 	surveySelection,
 	visibleAsset
 } from '$lib/server/populations';
+import { pathId } from '$lib/server/web/params';
 
 /** One population with chart data, per-member box figures and comparison, and the meter's verification. */
 export const GET: RequestHandler = async ({ locals, params, url }) => {

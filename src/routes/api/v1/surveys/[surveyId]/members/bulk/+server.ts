@@ -1,16 +1,17 @@
 import { json } from '@sveltejs/kit';
 import type { RequestHandler } from './$types';
-import { authorize } from '$lib/server/policy';
-import { readJson } from '$lib/server/http';
+import { authorize } from '$lib/server/web/actor';
+import { readJson } from '$lib/server/web/http';
 import { createMembers } from '$lib/server/intake/members';
 import { parsePastedMembers, pastedTableSchema } from '$lib/server/intake/pastedMembers';
 import { scopedSurvey } from '$lib/server/scope';
-import { api, idParam } from '$lib/server/intake/respond';
+import { api } from '$lib/server/web/respond';
+import { pathId } from '$lib/server/web/params';
 
 /** Members from a pasted table, all created or none. */
 export const POST: RequestHandler = async ({ locals, params, request }) => {
 	const actor = authorize(locals, 'member:write');
-	const id = idParam(params.surveyId);
+	const id = pathId(params.surveyId);
 	const { table } = await readJson(request, pastedTableSchema);
 	const members = await api(async () => {
 		const { asset } = await scopedSurvey(actor, id, 'write');

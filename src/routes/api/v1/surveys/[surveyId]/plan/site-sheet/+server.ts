@@ -1,7 +1,7 @@
 import type { RequestHandler } from './$types';
-import { authorize } from '$lib/server/policy';
+import { authorize } from '$lib/server/web/actor';
 import { siteSheetPdf } from '$lib/server/planning/siteSheet';
-import { api, idParam } from '$lib/server/intake/respond';
+import { api, idParam } from '$lib/server/web/respond';
 
 /** The plan's site sheet: a grid per member to write readings in by hand. */
 export const GET: RequestHandler = async ({ locals, params }) => {

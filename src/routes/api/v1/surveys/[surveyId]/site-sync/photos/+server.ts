@@ -1,11 +1,11 @@
 import { json } from '@sveltejs/kit';
 import type { RequestHandler } from './$types';
-import { authorize } from '$lib/server/policy';
-import { apiError } from '$lib/server/http';
+import { authorize } from '$lib/server/web/actor';
+import { apiError } from '$lib/server/web/http';
 import { sitePhotoQuerySchema } from '$lib/intake/schemas';
 import { ATTACHMENT_MAX_BYTES } from '$lib/server/storage/attachments';
 import { receiveSitePhoto } from '$lib/server/intake/siteSync';
-import { api, idParam, noBodyAnswer } from '$lib/server/intake/respond';
+import { api, idParam, noBodyAnswer } from '$lib/server/web/respond';
 
 /** A photo taken on site, the bytes as the body; sent again under the same client id, a no-op. */
 export const POST: RequestHandler = async ({ locals, params, request, url }) => {

@@ -1,5 +1,6 @@
 import { redirect, type RequestEvent } from '@sveltejs/kit';
-import { authorize, type Action, type Actor } from './policy';
+import type { Action, Actor } from '../policy';
+import { authorize } from './actor';
 
 /**
  * For page loads: a signed-out visitor is sent to sign in (and brought back afterwards);
@@ -23,7 +24,7 @@ const PROBE_ORIGIN = 'https://fractile.invalid';
  * and newline anywhere in a URL (so "/\t/evil.example" becomes "//evil.example") and read "\" as
  * "/"; a newline in a Location header is also refused by Node itself (a 500, not a redirect).
  */
-const UNSAFE_CHARACTER = /[\u0000-\u001f\u007f-\u009f\\]/;
+const UNSAFE_CHARACTER = /[\p{Cc}\\]/u; // Cc: U+0000–001F and U+007F–009F
 
 /**
  * Only paths on our own site, so `next` cannot send anyone elsewhere after sign-in. The path is

@@ -1,5 +1,5 @@
 import { isHttpError, isRedirect } from '@sveltejs/kit';
-import { apiError } from '../http';
+import { apiError } from './http';
 import {
 	InputError,
 	NotFoundError,
@@ -30,15 +30,6 @@ export async function api<T>(work: () => Promise<T>): Promise<T> {
 	} catch (err) {
 		toApiError(err);
 	}
-}
-
-/** A path parameter that must be a positive integer id; anything else is a 404, not a 500. */
-export function idParam(value: string | undefined): number {
-	const id = Number(value);
-	if (!/^\d{1,10}$/.test(value ?? '') || !Number.isSafeInteger(id) || id < 1) {
-		apiError(404, 'not_found', 'Not found.');
-	}
-	return id;
 }
 
 /**

@@ -1,7 +1,8 @@
 import { error, redirect, type ActionFailure, type RequestEvent } from '@sveltejs/kit';
 import type { z } from 'zod';
-import { formMessage, parseForm, type FormFailure } from '../forms';
-import { authorize, type Action, type Actor } from '../policy';
+import { formMessage, parseForm, type FormFailure } from './forms';
+import type { Action, Actor } from '../policy';
+import { authorize } from './actor';
 import { InputError, NotFoundError, ReadOnlyError, StateError } from '../domainErrors';
 import { ImportError } from '../import/errors';
 
