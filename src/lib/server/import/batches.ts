@@ -10,6 +10,7 @@ import { sanitiseFileName } from '../storage/names';
 import { ImportError } from './errors';
 import type { ColumnMapping, ImportOptions } from './mapping';
 import { beginProgress } from './progress';
+import { expireStalePreviews } from './expirePending';
 import { previewStagedFile, type FilePreview } from './preview';
 import { runImport } from './run';
 import type { WriteMethod } from './writer';
@@ -64,6 +65,9 @@ export async function receiveUpload(
 ): Promise<UploadResult> {
 	const { survey, asset } = await scopedSurvey(actor, surveyId, 'write');
 	assertSurveyEditable(survey);
+	await expireStalePreviews().catch((err: Error) =>
+		console.error('expiring stale previews:', err.message)
+	);
 	const fileName = sanitiseFileName(rawFileName, 'readings.csv');
 	const staged = await stageUpload(body, maxBytes);
 	let preview: FilePreview;

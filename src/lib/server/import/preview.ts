@@ -2,7 +2,14 @@ import { createReadStream } from 'node:fs';
 import { detectDecimalMark, detectHeaderRow, detectText, type TextDetection } from './detect';
 import { ImportError } from './errors';
 import { IMPORT_LIMITS } from './limits';
-import { headerSignature, suggestMapping, type ReadingField } from './mapping';
+import {
+	headerSignature,
+	suggestMapping,
+	suggestUnits,
+	type LengthField,
+	type LengthUnit,
+	type ReadingField
+} from './mapping';
 import { sniffFormat, type SourceFormat } from './sniff';
 import { csvRecordBatches, xlsxRecordBatches } from './sources';
 import type { RecordBatch } from './records';
@@ -15,6 +22,8 @@ export interface FilePreview {
 	/** The first data rows as text, for the user to check the mapping against. */
 	rows: string[][];
 	suggestedMapping: Partial<Record<ReadingField, number>>;
+	/** The unit each suggested length column's header names ("Position (m)" → m). */
+	suggestedUnits: Partial<Record<LengthField, LengthUnit>>;
 	headerSignature: string;
 	warnings: string[];
 }
@@ -84,12 +93,14 @@ export async function previewStagedFile(
 	if (width <= 1) {
 		warnings.push('Every row is a single column: check the delimiter.');
 	}
+	const suggestedMapping = suggestMapping(headers);
 	return {
 		format,
 		settings,
 		headers,
 		rows,
-		suggestedMapping: suggestMapping(headers),
+		suggestedMapping,
+		suggestedUnits: suggestUnits(headers, suggestedMapping),
 		headerSignature: headerSignature(headers),
 		warnings
 	};

@@ -11,6 +11,50 @@ export const FIELDS = [
 ] as const;
 export type Field = (typeof FIELDS)[number][0];
 
+/** The fields that hold lengths, each read in its own unit (the server's LENGTH_FIELDS). */
+export const LENGTH_FIELDS = ['x', 'y', 'cover', 'diameter', 'spacing'] as const;
+export type LengthField = (typeof LENGTH_FIELDS)[number];
+export const UNITS = [
+	['mm', 'mm'],
+	['m', 'm (×1000)'],
+	['inch', 'inch (×25.4)']
+] as const;
+export type Unit = (typeof UNITS)[number][0];
+export const isLengthField = (f: string): f is LengthField =>
+	(LENGTH_FIELDS as readonly string[]).includes(f);
+
+/** What the start request sends: the mapping and the choices made against the preview. */
+export interface StartBody {
+	mapping: Record<string, number | null>;
+	options: Record<string, unknown> & {
+		columnUnits: Partial<Record<LengthField, Unit>>;
+		failingRows: string;
+		coverMaxMm: number;
+		acceptSmallCovers: boolean;
+		fixedMemberLabel: string | null;
+	};
+	confirmDuplicate: boolean;
+	saveTemplateAs: string | null;
+	headerSignature: string;
+}
+
+/** One preview row as the import would read it (POST /api/v1/imports/:id/check). */
+export type CheckedRow =
+	| {
+			ok: true;
+			reading: {
+				memberLabel: string;
+				xMm: number | null;
+				yMm: number | null;
+				coverMm: number;
+				barDiameterMm: number | null;
+				barSpacingMm: number | null;
+				barDirection: string | null;
+				note: string | null;
+			};
+	  }
+	| { ok: false; reason: string };
+
 export interface Upload {
 	batchId: number;
 	preview: {
@@ -19,6 +63,7 @@ export interface Upload {
 		headers: string[];
 		rows: string[][];
 		suggestedMapping: Partial<Record<Field, number>>;
+		suggestedUnits: Partial<Record<LengthField, Unit>>;
 		headerSignature: string;
 		warnings: string[];
 	};
