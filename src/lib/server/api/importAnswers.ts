@@ -36,7 +36,11 @@ const previewSchema = z.object({
 		.describe('Detected; send them back (changed if need be) in the start options.'),
 	headers: z.array(z.string()),
 	rows: z.array(z.array(z.string())).describe('The first data rows as text.'),
-	suggestedMapping: z.partialRecord(z.enum(READING_FIELDS), column),
+	suggestedMapping: z
+		.record(z.string(), column)
+		.describe(
+			`For readings, of the fields ${READING_FIELDS.join(', ')}; for measurements, of the columns the help text lists.`
+		),
 	suggestedUnits: z
 		.partialRecord(z.enum(LENGTH_FIELDS), z.enum(LENGTH_UNITS))
 		.describe(
@@ -81,6 +85,7 @@ export const importStatusSchema = z
 		id: z.number().int(),
 		surveyId: z.number().int(),
 		state,
+		kind: z.string().describe('readings, carbonation or chloride: what the file held.'),
 		fileName: z.string().nullable(),
 		sourceFormat: z.string().describe('csv, xlsx, or manual (the entry grid).'),
 		rowsTotal: z.number().int(),

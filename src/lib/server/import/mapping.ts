@@ -76,6 +76,12 @@ export type ImportOptions = z.infer<typeof importOptionsSchema>;
 
 /** Step 1's query: the file itself is the request body. */
 export const importUploadQuerySchema = z.object({
+	kind: z
+		.enum(['readings', 'carbonation', 'chloride'])
+		.default('readings')
+		.describe(
+			'What the file holds: cover readings, carbonation tests (one a row) or chloride profiles (one depth increment a row).'
+		),
 	fileName: z
 		.string()
 		.default('readings.csv')

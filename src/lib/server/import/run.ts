@@ -240,9 +240,9 @@ function messageFor(err: unknown): { message: string; state: 'failed' | 'cancell
 	};
 }
 
-async function failImport(
-	job: ImportJob,
-	tally: ImportTally,
+export async function failImport(
+	job: Pick<ImportJob, 'batchId' | 'organisationId' | 'userId'>,
+	tally: Pick<ImportTally, 'rowsRead' | 'rejected' | 'headers'>,
 	err: unknown
 ): Promise<ImportOutcome> {
 	const { message, state } = messageFor(err);

@@ -1,3 +1,4 @@
+import { measurementImports } from './016-measurement-imports';
 import { accounts } from './001-accounts';
 import { surveys } from './002-surveys';
 import { readings } from './003-readings';
@@ -26,5 +27,6 @@ export const migrations: Migration[] = [
 	intakeProgress,
 	coverSets,
 	secondApprover,
-	durabilityMeasurements
+	durabilityMeasurements,
+	measurementImports
 ];

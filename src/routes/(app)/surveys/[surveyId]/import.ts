@@ -1,4 +1,5 @@
 /** The browser side of the import API: typed calls and the shapes they answer. */
+import { CARBONATION_FIELDS, CHLORIDE_FIELDS } from '$lib/intake/measurementColumns';
 export const FIELDS = [
 	['memberLabel', 'Member label'],
 	['x', 'x'],
@@ -10,6 +11,16 @@ export const FIELDS = [
 	['note', 'Note']
 ] as const;
 export type Field = (typeof FIELDS)[number][0];
+
+/** What a file holds; measurements go through the same two steps as readings. */
+export type ImportKind = 'readings' | 'carbonation' | 'chloride';
+
+/** The mapping form's fields for a kind of file: [field, label, help]. */
+export function fieldsOf(kind: ImportKind): readonly (readonly [string, string, string?])[] {
+	if (kind === 'carbonation') return CARBONATION_FIELDS;
+	if (kind === 'chloride') return CHLORIDE_FIELDS;
+	return FIELDS;
+}
 
 /** The fields that hold lengths, each read in its own unit (the server's LENGTH_FIELDS). */
 export const LENGTH_FIELDS = ['x', 'y', 'cover', 'diameter', 'spacing'] as const;
@@ -62,7 +73,7 @@ export interface Upload {
 		settings: Record<string, string | number | boolean>;
 		headers: string[];
 		rows: string[][];
-		suggestedMapping: Partial<Record<Field, number>>;
+		suggestedMapping: Partial<Record<string, number>>;
 		suggestedUnits: Partial<Record<LengthField, Unit>>;
 		headerSignature: string;
 		warnings: string[];
@@ -100,8 +111,12 @@ export async function answer<T>(response: Response): Promise<T> {
 	return body as T;
 }
 
-export async function uploadFile(surveyId: number, file: File): Promise<Upload> {
-	const url = `/api/v1/surveys/${surveyId}/imports?fileName=${encodeURIComponent(file.name)}`;
+export async function uploadFile(
+	surveyId: number,
+	file: File,
+	kind: ImportKind = 'readings'
+): Promise<Upload> {
+	const url = `/api/v1/surveys/${surveyId}/imports?kind=${kind}&fileName=${encodeURIComponent(file.name)}`;
 	return answer(await fetch(url, { method: 'POST', body: file, headers: fileHeaders(file) }));
 }
 

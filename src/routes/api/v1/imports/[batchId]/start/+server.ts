@@ -2,15 +2,17 @@ import { json } from '@sveltejs/kit';
 import type { RequestHandler } from './$types';
 import { authorize } from '$lib/server/policy';
 import { readJson } from '$lib/server/http';
-import { startImport } from '$lib/server/import/batches';
-import { importStartSchema } from '$lib/server/import/mapping';
+import { importKindOf, startImport } from '$lib/server/import/batches';
+import { startSchemaFor } from '$lib/server/import/measurements/mapping';
 import { api, idParam } from '$lib/server/intake/respond';
 
 /** Step 2: the mapping and choices; the import runs on, and GET /api/v1/imports/:id follows it. */
 export const POST: RequestHandler = async ({ locals, params, request }) => {
 	const actor = authorize(locals, 'reading:import');
 	const batchId = idParam(params.batchId);
-	const input = await readJson(request, importStartSchema);
+	// The mapping's fields depend on what the file holds: readings, or a kind of measurement.
+	const kind = await api(() => importKindOf(actor, batchId));
+	const input = await readJson(request, startSchemaFor(kind));
 	const started = await api(() => startImport(actor, batchId, input));
 	// Not awaited: it settles in the batch's row, which the progress route reads.
 	void started.done.catch((err) => console.error(`import ${batchId} crashed:`, err));
