@@ -2,8 +2,15 @@ import { z } from 'zod';
 import { IMPORT_STATES } from '../db/migrations/003-readings';
 import type { ImportStatus } from '../import/batchActions';
 import type { UploadResult } from '../import/batches';
+import type { CheckedRow } from '../import/checkRows';
 import type { ImportOutcome } from '../import/finish';
-import { columnMappingSchema, importOptionsSchema, READING_FIELDS } from '../import/mapping';
+import {
+	columnMappingSchema,
+	importOptionsSchema,
+	LENGTH_FIELDS,
+	LENGTH_UNITS,
+	READING_FIELDS
+} from '../import/mapping';
 import { isoTime } from './intakeAnswers';
 
 /**
@@ -29,7 +36,16 @@ const previewSchema = z.object({
 		.describe('Detected; send them back (changed if need be) in the start options.'),
 	headers: z.array(z.string()),
 	rows: z.array(z.array(z.string())).describe('The first data rows as text.'),
-	suggestedMapping: z.partialRecord(z.enum(READING_FIELDS), column),
+	suggestedMapping: z
+		.record(z.string(), column)
+		.describe(
+			`For readings, of the fields ${READING_FIELDS.join(', ')}; for measurements, of the columns the help text lists.`
+		),
+	suggestedUnits: z
+		.partialRecord(z.enum(LENGTH_FIELDS), z.enum(LENGTH_UNITS))
+		.describe(
+			'The unit named in each suggested length column\'s header ("Position (m)" → m); send the units chosen in options.columnUnits.'
+		),
 	headerSignature: z.string(),
 	warnings: z.array(z.string())
 });
@@ -69,6 +85,7 @@ export const importStatusSchema = z
 		id: z.number().int(),
 		surveyId: z.number().int(),
 		state,
+		kind: z.string().describe('readings, carbonation or chloride: what the file held.'),
 		fileName: z.string().nullable(),
 		sourceFormat: z.string().describe('csv, xlsx, or manual (the entry grid).'),
 		rowsTotal: z.number().int(),
@@ -90,6 +107,29 @@ export const importStatusSchema = z
 			.describe('While running; null otherwise.')
 	})
 	.meta({ id: 'ImportStatus' }) satisfies z.ZodType<Json<ImportStatus>>;
+
+export const importCheckAnswerSchema = z
+	.object({
+		rows: z.array(
+			z.union([
+				z.object({
+					ok: z.literal(true),
+					reading: z.object({
+						memberLabel: z.string(),
+						xMm: z.number().nullable(),
+						yMm: z.number().nullable(),
+						coverMm: z.number(),
+						barDiameterMm: z.number().nullable(),
+						barSpacingMm: z.number().nullable(),
+						barDirection: z.string().nullable(),
+						note: z.string().nullable()
+					})
+				}),
+				z.object({ ok: z.literal(false), reason: z.string() })
+			])
+		)
+	})
+	.meta({ id: 'ImportCheck' }) satisfies z.ZodType<Json<{ rows: CheckedRow[] }>>;
 
 export const importStatusAnswerSchema = z.object({ import: importStatusSchema });
 export const importStartedSchema = z.object({

@@ -18,6 +18,31 @@ export interface AssetStanding {
 	tooFew: number;
 }
 
+/**
+ * Failed imports a later import has not made good: one drops off once a file of the same name
+ * completes into the same survey after it (the corrected file, or the same one on a retry).
+ */
+async function unfixedFailures(surveyIds: number[]): Promise<ImportBatch[]> {
+	const failed = await ImportBatch.findAll({
+		attributes: ['id', 'surveyId', 'fileName', 'errorMessage'],
+		where: { surveyId: surveyIds, state: 'failed' },
+		limit: 100,
+		order: [['id', 'DESC']]
+	});
+	if (failed.length === 0) return [];
+	const later = await ImportBatch.findAll({
+		attributes: ['id', 'surveyId', 'fileName'],
+		where: {
+			surveyId: [...new Set(failed.map((b) => b.surveyId))],
+			state: { [Op.in]: ['completed', 'undone'] },
+			id: { [Op.gt]: Math.min(...failed.map((b) => b.id)) }
+		}
+	});
+	const fixedBy = (b: ImportBatch) =>
+		later.some((l) => l.surveyId === b.surveyId && l.id > b.id && l.fileName === b.fileName);
+	return failed.filter((b) => !fixedBy(b)).slice(0, 20);
+}
+
 async function standing(actor: Actor, assetIds: number[]): Promise<AssetStanding[]> {
 	const assets = await Asset.findAll({ where: { id: assetIds }, order: [['name', 'ASC']] });
 	const approved = await Assessment.findAll({
@@ -69,13 +94,7 @@ export async function dashboardFor(actor: Actor) {
 	const surveyIds = (await Survey.findAll({ attributes: ['id'], where: { assetId: ownIds } })).map(
 		(s) => s.id
 	);
-	const failedImports = can(actor.role, 'reading:import')
-		? await ImportBatch.findAll({
-				where: { surveyId: surveyIds, state: 'failed' },
-				limit: 20,
-				order: [['id', 'DESC']]
-			})
-		: [];
+	const failedImports = can(actor.role, 'reading:import') ? await unfixedFailures(surveyIds) : [];
 	const failedMails = can(actor.role, 'mail:read')
 		? await MailMessage.count({ where: { organisationId: actor.organisationId, state: 'failed' } })
 		: 0;
@@ -101,6 +120,7 @@ export async function dashboardFor(actor: Actor) {
 		failedImports: failedImports.map((b) => ({
 			id: b.id,
 			surveyId: b.surveyId,
+			href: `/surveys/${b.surveyId}#import-${b.id}`,
 			fileName: b.fileName,
 			error: b.errorMessage
 		})),

@@ -1,5 +1,13 @@
 import { Op, QueryTypes, type Transaction } from 'sequelize';
-import { ImportBatch, ImportProgress, Member, Reading } from '../db/models';
+import {
+	CarbonationTest,
+	ChlorideIncrement,
+	ChlorideProfile,
+	ImportBatch,
+	ImportProgress,
+	Member,
+	Reading
+} from '../db/models';
 import { rebuildCoverSets } from '../readings/coverSets';
 import { recordAudit } from '../audit';
 import { StateError } from '../domainErrors';
@@ -75,6 +83,21 @@ async function deleteBatchReadings(batch: ImportBatch, transaction: Transaction)
 	return deleted;
 }
 
+/** Deletes the carbonation tests or chloride profiles (with their increments) a batch wrote. */
+async function deleteBatchMeasurements(
+	batch: ImportBatch,
+	transaction: Transaction
+): Promise<number> {
+	const where = { importBatchId: batch.id };
+	if (batch.kind === 'carbonation') return CarbonationTest.destroy({ where, transaction });
+	const profiles = await ChlorideProfile.findAll({ attributes: ['id'], where, transaction });
+	await ChlorideIncrement.destroy({
+		where: { profileId: profiles.map((p) => p.id) },
+		transaction
+	});
+	return ChlorideProfile.destroy({ where, transaction });
+}
+
 /** Removes exactly the readings a completed import wrote, with an audit event, in one step. */
 export async function undoImport(actor: Actor, batchId: number): Promise<number> {
 	const { batch, survey } = await scopedImportBatch(actor, batchId, 'write');
@@ -86,7 +109,10 @@ export async function undoImport(actor: Actor, batchId: number): Promise<number>
 		if (batch.state !== 'completed') {
 			throw new StateError(`Only a completed import can be undone; this one is ${batch.state}.`);
 		}
-		const deleted = await deleteBatchReadings(batch, transaction);
+		const deleted =
+			batch.kind === 'readings'
+				? await deleteBatchReadings(batch, transaction)
+				: await deleteBatchMeasurements(batch, transaction);
 		await batch.update(
 			{ state: 'undone', undoneAt: new Date(), undoneByUserId: actor.userId },
 			{ transaction }
@@ -98,7 +124,7 @@ export async function undoImport(actor: Actor, batchId: number): Promise<number>
 				userId: actor.userId,
 				subjectType: 'import_batch',
 				subjectId: batch.id,
-				detail: { rowsDeleted: deleted, fileName: batch.fileName }
+				detail: { rowsDeleted: deleted, kind: batch.kind, fileName: batch.fileName }
 			},
 			transaction
 		);
@@ -110,6 +136,8 @@ export interface ImportStatus {
 	id: number;
 	surveyId: number;
 	state: string;
+	/** What the file held: readings, carbonation tests or chloride profiles. */
+	kind: string;
 	fileName: string | null;
 	sourceFormat: string;
 	rowsTotal: number;
@@ -129,6 +157,7 @@ function statusOf(batch: ImportBatch, progress: ImportProgress | null): ImportSt
 		id: batch.id,
 		surveyId: batch.surveyId,
 		state: batch.state,
+		kind: batch.kind,
 		fileName: batch.fileName,
 		sourceFormat: batch.sourceFormat,
 		rowsTotal: batch.rowsTotal,

@@ -2,6 +2,7 @@ import { rename } from 'node:fs/promises';
 import type { Readable } from 'node:stream';
 import { Op, type CreationAttributes } from 'sequelize';
 import { ColumnTemplate, ImportBatch, Survey } from '../db/models';
+import type { ImportKind } from '../db/models/ImportBatch';
 import { InputError, StateError, StorageUnavailableError } from '../domainErrors';
 import { assertSurveyEditable } from '../intake/frozen';
 import type { Actor } from '../policy';
@@ -9,7 +10,10 @@ import { scopedImportBatch, scopedSurvey } from '../scope';
 import { sanitiseFileName } from '../storage/names';
 import { ImportError } from './errors';
 import type { ColumnMapping, ImportOptions } from './mapping';
+import type { CarbonationMapping, ChlorideMapping } from './measurements/mapping';
+import { runMeasurementImport } from './measurements/run';
 import { beginProgress } from './progress';
+import { expireStalePreviews } from './expirePending';
 import { previewStagedFile, type FilePreview } from './preview';
 import { runImport } from './run';
 import type { WriteMethod } from './writer';
@@ -60,18 +64,23 @@ export async function receiveUpload(
 	surveyId: number,
 	rawFileName: string,
 	body: ReadableStream<Uint8Array> | Readable,
-	maxBytes?: number
+	maxBytes?: number,
+	kind: ImportKind = 'readings'
 ): Promise<UploadResult> {
 	const { survey, asset } = await scopedSurvey(actor, surveyId, 'write');
 	assertSurveyEditable(survey);
+	await expireStalePreviews().catch((err: Error) =>
+		console.error('expiring stale previews:', err.message)
+	);
 	const fileName = sanitiseFileName(rawFileName, 'readings.csv');
 	const staged = await stageUpload(body, maxBytes);
 	let preview: FilePreview;
 	let batch: ImportBatch;
 	try {
-		preview = await previewStagedFile(staged.path, fileName, staged.bytes);
+		preview = await previewStagedFile(staged.path, fileName, staged.bytes, kind);
 		batch = await recordBatch(staged, {
 			surveyId,
+			kind,
 			createdByUserId: actor.userId,
 			sourceFormat: preview.format,
 			fileName,
@@ -121,13 +130,20 @@ async function recordBatch(
 }
 
 export interface StartInput {
-	mapping: ColumnMapping;
+	/** A readings mapping, or a measurements one for a batch of that kind (startSchemaFor). */
+	mapping: ColumnMapping | CarbonationMapping | ChlorideMapping;
 	options: ImportOptions;
 	confirmDuplicate: boolean;
 	saveTemplateAs: string | null;
 	headerSignature?: string;
 	/** Not from the API: the tests and the benchmark compare the two ways of writing. */
 	writeMethod?: WriteMethod;
+}
+
+/** What a batch's file holds, for the start route to read the mapping of that kind. */
+export async function importKindOf(actor: Actor, batchId: number): Promise<ImportKind> {
+	const { batch } = await scopedImportBatch(actor, batchId, 'write');
+	return batch.kind;
 }
 
 /** Step 2: the import runs in the background; `done` settles when it has finished. */
@@ -154,17 +170,34 @@ export async function startImport(actor: Actor, batchId: number, input: StartInp
 		await saveTemplate(actor, input.saveTemplateAs, input.headerSignature, input);
 	}
 	const source = await openAndBegin(batch, input);
-	const done: Promise<ImportOutcome> = runImport({
+	const job = {
 		batchId: batch.id,
 		surveyId: survey.id,
 		organisationId: actor.organisationId,
 		userId: actor.userId,
-		format: batch.sourceFormat === 'xlsx' ? 'xlsx' : 'csv',
+		format: batch.sourceFormat === 'xlsx' ? ('xlsx' as const) : ('csv' as const),
 		open: () => source,
-		mapping: input.mapping,
-		options: input.options,
-		writeMethod: input.writeMethod
-	}).finally(() => removeStagedCopies(batch.id));
+		options: input.options
+	};
+	const run =
+		batch.kind === 'carbonation'
+			? runMeasurementImport({
+					...job,
+					kind: 'carbonation',
+					mapping: input.mapping as CarbonationMapping
+				})
+			: batch.kind === 'chloride'
+				? runMeasurementImport({
+						...job,
+						kind: 'chloride',
+						mapping: input.mapping as ChlorideMapping
+					})
+				: runImport({
+						...job,
+						mapping: input.mapping as ColumnMapping,
+						writeMethod: input.writeMethod
+					});
+	const done: Promise<ImportOutcome> = run.finally(() => removeStagedCopies(batch.id));
 	return { batchId: batch.id, done };
 }
 

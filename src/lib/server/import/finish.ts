@@ -4,6 +4,7 @@ import type { ImportState } from '../db/models/ImportBatch';
 import { recordAudit } from '../audit';
 import { mergeIntoCoverSets } from '../readings/coverSets';
 import { ImportError } from './errors';
+import { unitOf } from './mapping';
 import type { ImportJob, ImportTally } from './job';
 
 export interface ImportOutcome {
@@ -58,7 +59,7 @@ export function blockingProblem(job: ImportJob, tally: ImportTally): ImportError
 	}
 	const share = smallCoverShare(tally);
 	if (
-		job.options.units === 'mm' &&
+		unitOf(job.options, 'cover') === 'mm' &&
 		!job.options.acceptSmallCovers &&
 		share >= INCH_SUSPICION_SHARE
 	) {
@@ -77,7 +78,7 @@ function warningsFor(job: ImportJob, tally: ImportTally): string[] {
 			`${tally.rejected.count} row(s) were not imported; download the rejected rows to see why. ${tally.rejected.describe()}`
 		);
 	}
-	if (job.options.units === 'mm' && smallCoverShare(tally) >= INCH_SUSPICION_SHARE) {
+	if (unitOf(job.options, 'cover') === 'mm' && smallCoverShare(tally) >= INCH_SUSPICION_SHARE) {
 		warnings.push('Nearly all covers are below 4 mm; imported as mm because this was confirmed.');
 	}
 	return warnings;

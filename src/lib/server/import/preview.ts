@@ -2,8 +2,17 @@ import { createReadStream } from 'node:fs';
 import { detectDecimalMark, detectHeaderRow, detectText, type TextDetection } from './detect';
 import { ImportError } from './errors';
 import { IMPORT_LIMITS } from './limits';
-import { headerSignature, suggestMapping, type ReadingField } from './mapping';
+import {
+	headerSignature,
+	suggestMapping,
+	suggestUnits,
+	type LengthField,
+	type LengthUnit,
+	type ReadingField
+} from './mapping';
 import { sniffFormat, type SourceFormat } from './sniff';
+import type { ImportKind } from '../db/models/ImportBatch';
+import { suggestMeasurementMapping } from './measurements/mapping';
 import { csvRecordBatches, xlsxRecordBatches } from './sources';
 import type { RecordBatch } from './records';
 import { readSample } from './stage';
@@ -14,7 +23,10 @@ export interface FilePreview {
 	headers: string[];
 	/** The first data rows as text, for the user to check the mapping against. */
 	rows: string[][];
-	suggestedMapping: Partial<Record<ReadingField, number>>;
+	/** Reading fields, or a measurement file's fields (measurements/mapping.ts), to columns. */
+	suggestedMapping: Partial<Record<ReadingField, number>> | Record<string, number>;
+	/** The unit each suggested length column's header names ("Position (m)" → m). */
+	suggestedUnits: Partial<Record<LengthField, LengthUnit>>;
 	headerSignature: string;
 	warnings: string[];
 }
@@ -60,7 +72,8 @@ async function csvSettings(path: string, sample: Uint8Array, bytes: number) {
 export async function previewStagedFile(
 	path: string,
 	fileName: string,
-	bytes: number
+	bytes: number,
+	kind: ImportKind = 'readings'
 ): Promise<FilePreview> {
 	const sample = await readSample(path);
 	const format = await sniffFormat(sample, fileName);
@@ -84,12 +97,15 @@ export async function previewStagedFile(
 	if (width <= 1) {
 		warnings.push('Every row is a single column: check the delimiter.');
 	}
+	const suggestedMapping =
+		kind === 'readings' ? suggestMapping(headers) : suggestMeasurementMapping(kind, headers);
 	return {
 		format,
 		settings,
 		headers,
 		rows,
-		suggestedMapping: suggestMapping(headers),
+		suggestedMapping,
+		suggestedUnits: kind === 'readings' ? suggestUnits(headers, suggestedMapping) : {},
 		headerSignature: headerSignature(headers),
 		warnings
 	};

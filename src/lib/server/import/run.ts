@@ -62,6 +62,26 @@ function isBlank(cells: string[]): boolean {
 }
 
 /**
+ * A CSV row with more filled fields than its header: a delimiter inside a value that was not
+ * quoted shifts the value's end into a field of its own, which no column maps, so the end of a
+ * note was lost without a word. Empty trailing fields (some exports end every row with the
+ * delimiter) are no loss. A spreadsheet's cells cannot shift, so XLSX rows are not checked.
+ */
+export function extraFields(
+	format: SourceFormat,
+	headers: readonly string[],
+	cells: readonly string[]
+) {
+	if (format !== 'csv' || headers.length === 0 || cells.length <= headers.length) return null;
+	if (cells.slice(headers.length).every((c) => c.trim() === '')) return null;
+	return {
+		ok: false as const,
+		code: 'width.extra',
+		reason: `the row has ${cells.length} fields but the header has ${headers.length}: is there a delimiter inside a value that is not quoted? Put the value in double quotes`
+	};
+}
+
+/**
  * Streams the file through validation into the readings table inside `transaction`, with one
  * chunk being written while the next is parsed. Throws ImportError('cancelled') on a cancel.
  */
@@ -100,7 +120,7 @@ async function streamRows(
 				continue;
 			}
 			tally.rowsRead++;
-			const result = validate(cells);
+			const result = extraFields(job.format, tally.headers, cells) ?? validate(cells);
 			if (!result.ok) {
 				tally.rejected.add(rowNumber, result.code, result.reason, cells);
 			} else {
@@ -193,9 +213,9 @@ function messageFor(err: unknown): { message: string; state: 'failed' | 'cancell
 	};
 }
 
-async function failImport(
-	job: ImportJob,
-	tally: ImportTally,
+export async function failImport(
+	job: Pick<ImportJob, 'batchId' | 'organisationId' | 'userId'>,
+	tally: Pick<ImportTally, 'rowsRead' | 'rejected' | 'headers'>,
 	err: unknown
 ): Promise<ImportOutcome> {
 	const { message, state } = messageFor(err);

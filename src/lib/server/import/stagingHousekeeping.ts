@@ -1,6 +1,7 @@
 import { building } from '$app/environment';
 import { readdir, rm, stat } from 'node:fs/promises';
 import { join } from 'node:path';
+import { expireStalePreviews } from './expirePending';
 import { stagingDir } from './stage';
 
 /** Staged files untouched this long are left over; uploads take minutes at most. */
@@ -37,6 +38,8 @@ async function prune(): Promise<void> {
 	try {
 		const removed = await pruneStagingFolder();
 		if (removed > 0) console.info(`${removed} left-over staged upload(s) removed`);
+		const expired = await expireStalePreviews();
+		if (expired > 0) console.info(`${expired} stale import preview(s) expired`);
 	} catch (err) {
 		console.error('staging folder housekeeping:', err instanceof Error ? err.message : err);
 	}

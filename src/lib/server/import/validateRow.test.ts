@@ -1,5 +1,11 @@
 import { describe, expect, it } from 'vitest';
-import type { ColumnMapping, ImportOptions } from './mapping';
+import {
+	suggestMapping,
+	suggestUnits,
+	unitInHeader,
+	type ColumnMapping,
+	type ImportOptions
+} from './mapping';
 import { createRowValidator, readingSchema } from './validateRow';
 
 const mapping: ColumnMapping = {
@@ -14,6 +20,7 @@ const mapping: ColumnMapping = {
 };
 const options = {
 	units: 'mm',
+	columnUnits: {},
 	failingRows: 'import-valid',
 	coverMaxMm: 300,
 	acceptSmallCovers: false,
@@ -115,5 +122,45 @@ describe('checking a row of an import', () => {
 		});
 		// 12 in = 304.8 mm, above the 300 mm limit.
 		expect(validate(['D-01', '1', '2', '12', '', ''])).toMatchObject({ code: 'coverMm.too_big' });
+	});
+
+	it('reads each length column in its own unit: positions in metres beside covers in mm', () => {
+		const validate = createRowValidator(
+			mapping,
+			{ ...options, columnUnits: { x: 'm', y: 'm', diameter: 'mm' } },
+			members
+		);
+		// 1.25 m = 1250 mm; 0.035 m must be 35 mm exactly, not 35.00000000000001.
+		expect(validate(['D-01', '1.25', '0.035', '31.5', '12', ''])).toMatchObject({
+			ok: true,
+			reading: { xMm: 1250, yMm: 35, coverMm: 31.5, barDiameterMm: 12 }
+		});
+		const inchCover = createRowValidator(
+			mapping,
+			{ ...options, columnUnits: { cover: 'inch' } },
+			members
+		);
+		expect(inchCover(['D-01', '1', '2', '1.5', '', ''])).toMatchObject({
+			reading: { xMm: 1, yMm: 2, coverMm: 38.1 }
+		});
+	});
+});
+
+describe('the unit a header names', () => {
+	it('takes "Position (m)" as metres, not millimetres', () => {
+		const headers = ['Member', 'Position (m)', 'Height [m]', 'Cover (mm)', 'Bar dia (in)'];
+		const suggested = suggestMapping(headers);
+		expect(suggested).toMatchObject({ memberLabel: 0, x: 1, cover: 3, diameter: 4 });
+		expect(suggestUnits(headers, suggested)).toEqual({ x: 'm', cover: 'mm', diameter: 'inch' });
+	});
+
+	it('names no unit where the header names none, and does not take "mm" or "member" as m', () => {
+		expect(unitInHeader('Cover')).toBeNull();
+		expect(unitInHeader('Member')).toBeNull();
+		expect(unitInHeader('cover_mm')).toBe('mm');
+		expect(unitInHeader('x_m')).toBe('m');
+		expect(unitInHeader('Chainage metres')).toBe('m');
+		expect(unitInHeader('Cover inches')).toBe('inch');
+		expect(unitInHeader('Spacing (in)')).toBe('inch');
 	});
 });

@@ -1,6 +1,15 @@
 import { z } from 'zod';
-import { FIELD_LABELS, type ColumnMapping, type ImportOptions, type ReadingField } from './mapping';
-import { MM_PER_INCH, parseDecimal } from './numbers';
+import {
+	FIELD_LABELS,
+	LENGTH_FIELDS,
+	MM_PER_UNIT,
+	unitOf,
+	type ColumnMapping,
+	type ImportOptions,
+	type LengthField,
+	type ReadingField
+} from './mapping';
+import { parseDecimal } from './numbers';
 
 /** A row ready for the readings table, lengths in mm. */
 export interface ValidReading {
@@ -19,8 +28,6 @@ export type RowResult =
 
 /** Member labels compare as MariaDB's utf8mb4_unicode_ci does for the unique index: no case. */
 export const labelKey = (label: string) => label.trim().toLowerCase();
-
-type LengthField = 'x' | 'y' | 'cover' | 'diameter' | 'spacing';
 
 /** The error values a spreadsheet writes in place of a formula's result (ECMA-376 Part 1,
  * §18.17.7 error values, and the later #SPILL!, #CALC!). */
@@ -130,7 +137,13 @@ export function createRowValidator(
 	const [mappedX, mappedY, mappedDiameter, mappedSpacing, mappedDirection, mappedNote] = (
 		['x', 'y', 'diameter', 'spacing', 'direction', 'note'] as const
 	).map(isMapped);
-	const factor = options.units === 'inch' ? MM_PER_INCH : 1;
+	const toMm = {} as Record<LengthField, (value: number) => number>;
+	for (const field of LENGTH_FIELDS) {
+		const factor = MM_PER_UNIT[unitOf(options, field)];
+		// Rounded to a millionth of a mm after converting: 0.035 m × 1000 and 1.5 in × 25.4 are
+		// 35.00000000000001 and 38.099999999999994 in binary floating point.
+		toMm[field] = factor === 1 ? (v) => v : (v) => Math.round(v * factor * 1e6) / 1e6;
+	}
 	const widthNeeded = Math.max(...Object.values(mapping).map((c) => (c ?? -1) + 1));
 	const cell = (cells: readonly string[], field: ReadingField) => {
 		const index = mapping[field];
@@ -139,7 +152,7 @@ export function createRowValidator(
 	const readLength = (cells: readonly string[], field: LengthField) => {
 		const raw = cell(cells, field);
 		const value = parseDecimal(raw, options.decimalMark);
-		if (typeof value !== 'string') return value === null ? null : value * factor;
+		if (typeof value !== 'string') return value === null ? null : toMm[field](value);
 		if (SPREADSHEET_ERROR.test(raw.trim())) {
 			return {
 				code: `${field}.spreadsheet-error`,

@@ -14,6 +14,9 @@ export interface MemberReading {
 	yMm: number | null;
 	coverMm: number;
 	barDiameterMm: number | null;
+	barDirection: string | null;
+	/** The surveyor's note on the reading, as typed or imported. */
+	note: string | null;
 	flags: number;
 }
 
@@ -49,7 +52,7 @@ export async function memberView(member: Member): Promise<MemberView> {
 	const [survey, readings, readingsTotal, coverMap, surveyMembers] = await Promise.all([
 		Survey.findByPk(member.surveyId),
 		Reading.findAll({
-			attributes: ['id', 'xMm', 'yMm', 'coverMm', 'barDiameterMm', 'flags'],
+			attributes: ['id', 'xMm', 'yMm', 'coverMm', 'barDiameterMm', 'barDirection', 'note', 'flags'],
 			where: { memberId: member.id },
 			order: [['id', 'ASC']],
 			limit: MEMBER_READINGS_LISTED,

@@ -1,8 +1,10 @@
 import { manualEntrySchema } from '$lib/intake/schemas';
 import { IMPORT_LIMITS } from '../../import/limits';
+import { importCheckSchema } from '../../import/checkRows';
 import { importStartSchema, importUploadQuerySchema } from '../../import/mapping';
 import {
 	cancelRequestedSchema,
+	importCheckAnswerSchema,
 	importStartedSchema,
 	importStatusAnswerSchema,
 	manualEntryAnswerSchema,
@@ -71,6 +73,25 @@ export const importEndpoints: Endpoint[] = [
 			'409': FROZEN,
 			'413': `Larger than the ${IMPORT_LIMITS.maxFileBytes / MB} MB limit for one import.`
 		}
+	},
+	{
+		method: 'post',
+		path: '/api/v1/imports/{batchId}/check',
+		operationId: 'checkImportRows',
+		tag: 'Intake',
+		summary: "Between steps 1 and 2: the preview's rows as a mapping and its units would read them",
+		description:
+			'The same row checks as the import: each row comes back in mm, or with the reason it would be refused. Nothing is written.',
+		action: 'reading:import',
+		params: batchParams,
+		body: importCheckSchema,
+		exampleBody: {
+			...exampleStart,
+			headers: ['Member', 'Position (m)', 'Height (m)', 'Cover (mm)'],
+			rows: [['M-01', '1.25', '0.4', '31.5']]
+		},
+		response: jsonAnswer(importCheckAnswerSchema, 'Each row as read, or why it would be refused.'),
+		errors: { '400': 'Invalid mapping, options or rows (`field` names it).' }
 	},
 	{
 		method: 'post',

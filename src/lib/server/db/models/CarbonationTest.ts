@@ -27,6 +27,8 @@ export class CarbonationTest extends Model<
 	declare depthMaxMm: number | null;
 	declare method: string | null;
 	declare notes: string | null;
+	/** The import that wrote it (migration 016); null when typed in a form. */
+	declare importBatchId: CreationOptional<number | null>;
 	declare createdAt: CreationOptional<Date>;
 
 	static initModel(sequelize: Sequelize) {
@@ -54,6 +56,7 @@ export class CarbonationTest extends Model<
 				depthMaxMm: { type: DataTypes.DOUBLE, allowNull: true },
 				method: { type: DataTypes.STRING(160), allowNull: true },
 				notes: { type: DataTypes.TEXT, allowNull: true },
+				importBatchId: { type: DataTypes.INTEGER.UNSIGNED, allowNull: true },
 				createdAt: DataTypes.DATE
 			},
 			{ sequelize, tableName: 'carbonation_tests', updatedAt: false }

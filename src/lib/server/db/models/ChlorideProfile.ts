@@ -32,6 +32,8 @@ export class ChlorideProfile extends Model<
 	declare initialContentPercent: number | null;
 	declare method: string | null;
 	declare notes: string | null;
+	/** The import that wrote it (migration 016); null when typed in a form. */
+	declare importBatchId: CreationOptional<number | null>;
 	declare createdAt: CreationOptional<Date>;
 	declare increments?: NonAttribute<ChlorideIncrement[]>;
 
@@ -50,6 +52,7 @@ export class ChlorideProfile extends Model<
 				initialContentPercent: { type: DataTypes.DOUBLE, allowNull: true },
 				method: { type: DataTypes.STRING(160), allowNull: true },
 				notes: { type: DataTypes.TEXT, allowNull: true },
+				importBatchId: { type: DataTypes.INTEGER.UNSIGNED, allowNull: true },
 				createdAt: DataTypes.DATE
 			},
 			{ sequelize, tableName: 'chloride_profiles', updatedAt: false }

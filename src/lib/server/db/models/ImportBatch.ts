@@ -8,6 +8,10 @@ import {
 } from 'sequelize';
 import { IMPORT_STATES } from '../migrations/003-readings';
 
+/** What an import's file holds (migration 016). */
+export const IMPORT_KINDS = ['readings', 'carbonation', 'chloride'] as const;
+export type ImportKind = (typeof IMPORT_KINDS)[number];
+
 export type ImportState = (typeof IMPORT_STATES)[number];
 
 /** One file (or one manual entry session) of readings, written in one transaction. */
@@ -19,6 +23,7 @@ export class ImportBatch extends Model<
 	declare surveyId: number;
 	declare createdByUserId: number | null;
 	declare sourceFormat: 'csv' | 'xlsx' | 'manual';
+	declare kind: CreationOptional<ImportKind>;
 	declare fileName: string | null;
 	declare fileSha256: string | null;
 	declare fileBytes: number | null;
@@ -48,6 +53,11 @@ export class ImportBatch extends Model<
 				surveyId: { type: DataTypes.INTEGER.UNSIGNED, allowNull: false },
 				createdByUserId: { type: DataTypes.INTEGER.UNSIGNED, allowNull: true },
 				sourceFormat: { type: DataTypes.ENUM('csv', 'xlsx', 'manual'), allowNull: false },
+				kind: {
+					type: DataTypes.ENUM(...IMPORT_KINDS),
+					allowNull: false,
+					defaultValue: 'readings'
+				},
 				fileName: { type: DataTypes.STRING(255), allowNull: true },
 				fileSha256: { type: DataTypes.CHAR(64), allowNull: true },
 				fileBytes: { type: DataTypes.BIGINT.UNSIGNED, allowNull: true },

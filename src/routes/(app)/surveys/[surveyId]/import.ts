@@ -1,4 +1,5 @@
 /** The browser side of the import API: typed calls and the shapes they answer. */
+import { CARBONATION_FIELDS, CHLORIDE_FIELDS } from '$lib/intake/measurementColumns';
 export const FIELDS = [
 	['memberLabel', 'Member label'],
 	['x', 'x'],
@@ -11,6 +12,60 @@ export const FIELDS = [
 ] as const;
 export type Field = (typeof FIELDS)[number][0];
 
+/** What a file holds; measurements go through the same two steps as readings. */
+export type ImportKind = 'readings' | 'carbonation' | 'chloride';
+
+/** The mapping form's fields for a kind of file: [field, label, help]. */
+export function fieldsOf(kind: ImportKind): readonly (readonly [string, string, string?])[] {
+	if (kind === 'carbonation') return CARBONATION_FIELDS;
+	if (kind === 'chloride') return CHLORIDE_FIELDS;
+	return FIELDS;
+}
+
+/** The fields that hold lengths, each read in its own unit (the server's LENGTH_FIELDS). */
+export const LENGTH_FIELDS = ['x', 'y', 'cover', 'diameter', 'spacing'] as const;
+export type LengthField = (typeof LENGTH_FIELDS)[number];
+export const UNITS = [
+	['mm', 'mm'],
+	['m', 'm (×1000)'],
+	['inch', 'inch (×25.4)']
+] as const;
+export type Unit = (typeof UNITS)[number][0];
+export const isLengthField = (f: string): f is LengthField =>
+	(LENGTH_FIELDS as readonly string[]).includes(f);
+
+/** What the start request sends: the mapping and the choices made against the preview. */
+export interface StartBody {
+	mapping: Record<string, number | null>;
+	options: Record<string, unknown> & {
+		columnUnits: Partial<Record<LengthField, Unit>>;
+		failingRows: string;
+		coverMaxMm: number;
+		acceptSmallCovers: boolean;
+		fixedMemberLabel: string | null;
+	};
+	confirmDuplicate: boolean;
+	saveTemplateAs: string | null;
+	headerSignature: string;
+}
+
+/** One preview row as the import would read it (POST /api/v1/imports/:id/check). */
+export type CheckedRow =
+	| {
+			ok: true;
+			reading: {
+				memberLabel: string;
+				xMm: number | null;
+				yMm: number | null;
+				coverMm: number;
+				barDiameterMm: number | null;
+				barSpacingMm: number | null;
+				barDirection: string | null;
+				note: string | null;
+			};
+	  }
+	| { ok: false; reason: string };
+
 export interface Upload {
 	batchId: number;
 	preview: {
@@ -18,7 +73,8 @@ export interface Upload {
 		settings: Record<string, string | number | boolean>;
 		headers: string[];
 		rows: string[][];
-		suggestedMapping: Partial<Record<Field, number>>;
+		suggestedMapping: Partial<Record<string, number>>;
+		suggestedUnits: Partial<Record<LengthField, Unit>>;
 		headerSignature: string;
 		warnings: string[];
 	};
@@ -55,8 +111,12 @@ export async function answer<T>(response: Response): Promise<T> {
 	return body as T;
 }
 
-export async function uploadFile(surveyId: number, file: File): Promise<Upload> {
-	const url = `/api/v1/surveys/${surveyId}/imports?fileName=${encodeURIComponent(file.name)}`;
+export async function uploadFile(
+	surveyId: number,
+	file: File,
+	kind: ImportKind = 'readings'
+): Promise<Upload> {
+	const url = `/api/v1/surveys/${surveyId}/imports?kind=${kind}&fileName=${encodeURIComponent(file.name)}`;
 	return answer(await fetch(url, { method: 'POST', body: file, headers: fileHeaders(file) }));
 }
 

@@ -21,6 +21,7 @@ import {
 	createChlorideProfile,
 	deleteChlorideProfile
 } from '$lib/server/intake/chloride';
+import { IMPORT_LIMITS } from '$lib/server/import/limits';
 import { listMembers } from '$lib/server/intake/members';
 import { actOr, loadOr404 } from '$lib/server/web/pages';
 import { frozenReason } from '$lib/server/intake/frozen';
@@ -63,8 +64,14 @@ export const load: PageServerLoad = async (event) => {
 		})),
 		chlorideProfiles: profiles.map((p) => ({ ...p, ageYears: age(p.testedOn) })),
 		frozen: frozenReason(survey),
+		maxImportMb: IMPORT_LIMITS.maxFileBytes / 1024 / 1024,
 		can: {
-			add: own && !frozenReason(survey) && can(actor.role, 'measurement:write')
+			add: own && !frozenReason(survey) && can(actor.role, 'measurement:write'),
+			import:
+				own &&
+				!frozenReason(survey) &&
+				can(actor.role, 'measurement:write') &&
+				can(actor.role, 'reading:import')
 		}
 	};
 };

@@ -5,13 +5,13 @@ import { authorize } from '$lib/server/web/actor';
 import { pageActor } from '$lib/server/web/guard';
 import { surveyPlanSchema, type PlannedPopulationInput } from '$lib/intake/plan';
 import { actOr, loadOr404 } from '$lib/server/web/pages';
-import { idParam } from '$lib/server/web/respond';
+import { pathId } from '$lib/server/web/params';
 import { scopedSurvey } from '$lib/server/scope';
 import { proposedPopulations, saveSurveyPlan, surveyPlanOf } from '$lib/server/planning/service';
 
 export const load: PageServerLoad = async (event) => {
 	const actor = pageActor(event, 'survey:read');
-	const surveyId = idParam(event.params.surveyId);
+	const surveyId = pathId(event.params.surveyId);
 	const { survey, asset } = await loadOr404(() => scopedSurvey(actor, surveyId, 'read'));
 	const plan = await surveyPlanOf(actor, surveyId);
 	const own = asset.organisationId === actor.organisationId;
@@ -70,7 +70,7 @@ function planFromForm(form: FormData) {
 export const actions = {
 	save: async ({ locals, request, params }) => {
 		const actor = authorize(locals, 'survey:plan');
-		const surveyId = idParam(params.surveyId);
+		const surveyId = pathId(params.surveyId);
 		const form = await request.formData();
 		const raw = planFromForm(form);
 		const parsed = surveyPlanSchema.safeParse(raw);

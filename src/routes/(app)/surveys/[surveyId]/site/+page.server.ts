@@ -3,13 +3,13 @@ import { can } from '$lib/server/policy';
 import { pageActor } from '$lib/server/web/guard';
 import { listMembers } from '$lib/server/intake/members';
 import { loadOr404 } from '$lib/server/web/pages';
-import { idParam } from '$lib/server/web/respond';
+import { pathId } from '$lib/server/web/params';
 import { scopedSurvey } from '$lib/server/scope';
 import { plannedReadingsByMember } from '$lib/server/planning/service';
 
 export const load: PageServerLoad = async (event) => {
 	const actor = pageActor(event, 'survey:read');
-	const surveyId = idParam(event.params.surveyId);
+	const surveyId = pathId(event.params.surveyId);
 	const { survey, asset } = await loadOr404(() => scopedSurvey(actor, surveyId, 'read'));
 	const own = asset.organisationId === actor.organisationId;
 	const editable = own && (survey.status === 'draft' || survey.status === 'returned');

@@ -33,7 +33,9 @@ export const POST: RequestHandler = async ({ locals, params, request, url }) => 
 	}
 	// SvelteKit gives no body to a request without a Content-Type.
 	if (!request.body) noBodyAnswer(request);
-	const { fileName } = importUploadQuerySchema.parse(Object.fromEntries(url.searchParams));
-	const result = await api(() => receiveUpload(actor, surveyId, fileName, request.body!));
+	const { fileName, kind } = importUploadQuerySchema.parse(Object.fromEntries(url.searchParams));
+	const result = await api(() =>
+		receiveUpload(actor, surveyId, fileName, request.body!, undefined, kind)
+	);
 	return json(result, { status: 201 });
 };

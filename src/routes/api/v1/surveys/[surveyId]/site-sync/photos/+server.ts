@@ -5,12 +5,13 @@ import { apiError } from '$lib/server/web/http';
 import { sitePhotoQuerySchema } from '$lib/intake/schemas';
 import { ATTACHMENT_MAX_BYTES } from '$lib/server/storage/attachments';
 import { receiveSitePhoto } from '$lib/server/intake/siteSync';
-import { api, idParam, noBodyAnswer } from '$lib/server/web/respond';
+import { api, noBodyAnswer } from '$lib/server/web/respond';
+import { pathId } from '$lib/server/web/params';
 
 /** A photo taken on site, the bytes as the body; sent again under the same client id, a no-op. */
 export const POST: RequestHandler = async ({ locals, params, request, url }) => {
 	const actor = authorize(locals, 'attachment:upload');
-	const surveyId = idParam(params.surveyId);
+	const surveyId = pathId(params.surveyId);
 	const q = sitePhotoQuerySchema.safeParse(Object.fromEntries(url.searchParams));
 	if (!q.success)
 		apiError(400, 'invalid_input', q.error.issues[0].message, String(q.error.issues[0].path[0]));
