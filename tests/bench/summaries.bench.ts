@@ -17,8 +17,11 @@ import { researchStatistics } from '../../src/lib/server/research/statistics';
 import { loadProjectEnv } from '../../scripts/env';
 
 loadProjectEnv();
-const READINGS = Number(process.argv[2] ?? 10_000_000);
-const STRUCTURES = Number(process.argv[3] ?? 1_000);
+const args = process.argv.slice(2).filter((a) => !a.startsWith('--'));
+/** --reuse: time the statistics on the stock a previous run generated (no generation). */
+const REUSE = process.argv.includes('--reuse');
+const READINGS = Number(args[0] ?? 10_000_000);
+const STRUCTURES = Number(args[1] ?? 1_000);
 const MEMBERS_PER_STRUCTURE = 10;
 const RUNS = 5;
 
@@ -101,26 +104,38 @@ async function generate(): Promise<number[]> {
 	return memberIds;
 }
 
-const generationStart = performance.now();
-const memberIds = await generate();
-const generated = seconds(generationStart);
-const summariesStart = performance.now();
-for (let i = 0; i < memberIds.length; i += 100)
-	await sequelize.transaction((t) => rebuildCoverSets(t, memberIds.slice(i, i + 100)));
-const summarised = seconds(summariesStart);
-const [size] = await sequelize.query<{ readings: number; summaries: number; countsBytes: number }>(
-	`SELECT
-	   (SELECT data_length + index_length FROM information_schema.tables WHERE table_schema = DATABASE() AND table_name = 'readings') AS readings,
-	   (SELECT data_length + index_length FROM information_schema.tables WHERE table_schema = DATABASE() AND table_name = 'member_cover_sets') AS summaries,
-	   (SELECT SUM(LENGTH(cover_counts)) FROM member_cover_sets) AS countsBytes`,
-	{ type: QueryTypes.SELECT }
-);
-console.log(
-	`generated ${READINGS} readings in ${STRUCTURES} structures (${memberIds.length} members): ` +
-		`rows ${generated} s, summaries ${summarised} s; on disk readings ${mb(size.readings)} MB, ` +
-		`summary rows ${mb(size.summaries)} MB (counts alone ${mb(Number(size.countsBytes))} MB, ` +
-		`${(Number(size.countsBytes) / memberIds.length).toFixed(0)} bytes a member)`
-);
+let memberIds: number[];
+if (REUSE) {
+	const rows = await sequelize.query<{ id: number }>('SELECT id FROM members', {
+		type: QueryTypes.SELECT
+	});
+	memberIds = rows.map((r) => r.id);
+} else {
+	const generationStart = performance.now();
+	memberIds = await generate();
+	const generated = seconds(generationStart);
+	const summariesStart = performance.now();
+	for (let i = 0; i < memberIds.length; i += 100)
+		await sequelize.transaction((t) => rebuildCoverSets(t, memberIds.slice(i, i + 100)));
+	const summarised = seconds(summariesStart);
+	const [size] = await sequelize.query<{
+		readings: number;
+		summaries: number;
+		countsBytes: number;
+	}>(
+		`SELECT
+		   (SELECT data_length + index_length FROM information_schema.tables WHERE table_schema = DATABASE() AND table_name = 'readings') AS readings,
+		   (SELECT data_length + index_length FROM information_schema.tables WHERE table_schema = DATABASE() AND table_name = 'member_cover_sets') AS summaries,
+		   (SELECT SUM(LENGTH(cover_counts)) FROM member_cover_sets) AS countsBytes`,
+		{ type: QueryTypes.SELECT }
+	);
+	console.log(
+		`generated ${READINGS} readings in ${STRUCTURES} structures (${memberIds.length} members): ` +
+			`rows ${generated} s, summaries ${summarised} s; on disk readings ${mb(size.readings)} MB, ` +
+			`summary rows ${mb(size.summaries)} MB (counts alone ${mb(Number(size.countsBytes))} MB, ` +
+			`${(Number(size.countsBytes) / memberIds.length).toFixed(0)} bytes a member)`
+	);
+}
 
 const filter = researchFilterSchema.parse({});
 const rssBefore = process.memoryUsage().rss;

@@ -11,6 +11,7 @@ import { tickProgress } from './progress';
 import { RejectedRows } from './rejected';
 import type { RecordBatch } from './records';
 import { csvRecordBatches, xlsxRecordBatches } from './sources';
+import type { SourceFormat } from './sniff';
 import { createRowValidator, labelKey } from './validateRow';
 import { CoverCollector } from '../readings/coverSetCodec';
 import {

@@ -1,11 +1,67 @@
-import type { CountedSample } from '$lib/analysis';
+import { countedFromTally, gridValue, type CountedSample, type CoverGrid } from '$lib/analysis';
 import { readCoverCounts } from '../readings/coverSets';
 import type { GroupKey } from './filter';
 import type { SelectedMember } from './members';
 import type { ResearchMember } from './schemas';
 
-/** Readings at each distinct value (mm): a population as counts (analysis/countedSample.ts). */
-export type Tally = Map<number, number>;
+/** Widest run of grid steps one tally holds as an array (beyond: a map of values). */
+const MAX_STEP_RANGE = 1_000_000;
+
+/**
+ * Readings at each distinct value of (cover − shift), mm: a population as counts
+ * (analysis/countedSample.ts). Members on a meter grid add into an array indexed by grid step,
+ * one per grid and shift (c_nom, c_min), so gathering costs array additions rather than hashing
+ * doubles; each value is formed once at the end by the same subtraction a reading would get.
+ */
+export class Tally {
+	private readonly onGrid = new Map<
+		string,
+		{ grid: CoverGrid; shift: number; offset: number; counts: Float64Array }
+	>();
+	private readonly offGrid = new Map<number, number>();
+
+	add(sample: CountedSample, shift: number): void {
+		const { values, counts, lattice } = sample;
+		const steps = lattice?.steps;
+		const lo = steps?.[0] ?? 0;
+		const hi = steps?.[steps.length - 1] ?? 0;
+		if (!lattice || !steps || lattice.a !== 0 || lattice.b !== 1 || hi - lo > MAX_STEP_RANGE) {
+			for (let i = 0; i < values.length; i++) {
+				const v = values[i] - shift;
+				this.offGrid.set(v, (this.offGrid.get(v) ?? 0) + counts[i]);
+			}
+			return;
+		}
+		const key = `${lattice.grid.den}:${lattice.grid.factor}:${shift}`;
+		let entry = this.onGrid.get(key);
+		if (!entry) {
+			entry = { grid: lattice.grid, shift, offset: lo, counts: new Float64Array(hi - lo + 1) };
+			this.onGrid.set(key, entry);
+		}
+		const end = entry.offset + entry.counts.length - 1;
+		if (lo < entry.offset || hi > end) {
+			const from = Math.min(lo, entry.offset);
+			const grown = new Float64Array(Math.max(hi, end) - from + 1);
+			grown.set(entry.counts, entry.offset - from);
+			entry.counts = grown;
+			entry.offset = from;
+		}
+		for (let i = 0; i < steps.length; i++) entry.counts[steps[i] - entry.offset] += counts[i];
+	}
+
+	/** The tally as a counted sample. Cost O(distinct values). */
+	toCounted(): CountedSample {
+		const tally = new Map(this.offGrid);
+		for (const { grid, shift, offset, counts } of this.onGrid.values()) {
+			for (let j = 0; j < counts.length; j++) {
+				if (counts[j] === 0) continue;
+				const v = gridValue(j + offset, grid) - shift;
+				tally.set(v, (tally.get(v) ?? 0) + counts[j]);
+			}
+		}
+		return countedFromTally(tally);
+	}
+}
 
 /**
  * The values of one population of the selection, gathered for the engine as counts: memory
@@ -36,25 +92,19 @@ function emptyGroup(key: GroupValues['key']): GroupValues {
 	return {
 		key,
 		readingCount: 0,
-		coversMm: new Map(),
-		deviationsMm: new Map(),
-		marginsMm: new Map(),
+		coversMm: new Tally(),
+		deviationsMm: new Tally(),
+		marginsMm: new Tally(),
 		memberRefs: new Set(),
 		assetRefs: new Set()
 	};
 }
 
-const tally = (into: Tally, value: number, count: number) =>
-	into.set(value, (into.get(value) ?? 0) + count);
-
 /** A member's counts into the group: each value as each reading would give it (the same doubles). */
 function add(group: GroupValues, member: ResearchMember, counts: CountedSample): void {
-	const { values, counts: times } = counts;
-	for (let i = 0; i < values.length; i++) {
-		tally(group.coversMm, values[i], times[i]);
-		tally(group.deviationsMm, values[i] - member.cNomMm, times[i]);
-		tally(group.marginsMm, values[i] - member.cMinMm, times[i]);
-	}
+	group.coversMm.add(counts, 0);
+	group.deviationsMm.add(counts, member.cNomMm);
+	group.marginsMm.add(counts, member.cMinMm);
 	group.readingCount += counts.n;
 	group.memberRefs.add(member.memberRef);
 	group.assetRefs.add(member.assetRef);

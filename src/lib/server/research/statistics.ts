@@ -1,5 +1,5 @@
 import type { Sequelize } from 'sequelize';
-import { countedFromTally, ENGINE_VERSION, type FractionBelow } from '$lib/analysis';
+import { ENGINE_VERSION, type FractionBelow } from '$lib/analysis';
 import type { GroupKey, ResearchFilter } from './filter';
 import { gatherGroups, type GroupValues } from './groups';
 import { selectedMembers } from './members';
@@ -41,12 +41,9 @@ function groupStatistics(group: GroupValues, options: StatisticsOptions, charts:
 		readingCount: group.readingCount,
 		memberCount: group.memberRefs.size,
 		assetCount: group.assetRefs.size,
-		cover: populationFiguresCounted(countedFromTally(group.coversMm), figureOptions),
-		deviationFromNominal: populationFiguresCounted(
-			countedFromTally(group.deviationsMm),
-			figureOptions
-		),
-		belowCMin: shareBelowCounted(countedFromTally(group.marginsMm), 0, options.confidence)
+		cover: populationFiguresCounted(group.coversMm.toCounted(), figureOptions),
+		deviationFromNominal: populationFiguresCounted(group.deviationsMm.toCounted(), figureOptions),
+		belowCMin: shareBelowCounted(group.marginsMm.toCounted(), 0, options.confidence)
 	};
 }
 
