@@ -9,6 +9,7 @@ import { intakeProgress } from './008-intake-progress';
 import { coverSets } from './009-cover-sets';
 import { secondApprover } from './010-second-approver';
 import { durabilityMeasurements } from './011-durability-measurements';
+import { customPopulations } from './015-custom-populations';
 import type { Migration } from './types';
 
 /**
@@ -26,5 +27,6 @@ export const migrations: Migration[] = [
 	intakeProgress,
 	coverSets,
 	secondApprover,
-	durabilityMeasurements
+	durabilityMeasurements,
+	customPopulations
 ];
