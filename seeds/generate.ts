@@ -35,12 +35,46 @@ export function specifiedCover(member: DemoMemberPlan) {
 
 const round1 = (value: number) => Math.round(value * 10) / 10;
 
-/** The cover at a point: the member's distribution plus, inside a low patch, a smooth dip. */
-function coverAt(plan: CoverPlan, member: DemoMemberPlan, x: number, y: number, rng: SeededRandom) {
+/** Share of a reading's variance that is spatially correlated (the rest is fixing and meter scatter). */
+const CORRELATED_SHARE = 0.7;
+/** Cosine waves summed for the random field: enough for a near-Gaussian marginal. */
+const FIELD_WAVES = 32;
+
+/**
+ * A seeded, stationary random field of unit variance with a Gaussian correlation of length
+ * `lengthMm` (random Fourier features: Rahimi & Recht 2007, "Random features for large-scale
+ * kernel machines"): wave numbers drawn from N(0, 1/L²), phases uniform. Cover on a real deck
+ * drifts as chairs sag and screeds vary, so neighbouring readings are alike.
+ */
+export function correlatedField(
+	rng: SeededRandom,
+	lengthMm: number
+): (x: number, y: number) => number {
+	const waves = Array.from({ length: FIELD_WAVES }, () => ({
+		kx: rng.normal(0, 1 / lengthMm),
+		ky: rng.normal(0, 1 / lengthMm),
+		phase: rng.between(0, 2 * Math.PI)
+	}));
+	const amplitude = Math.sqrt(2 / FIELD_WAVES);
+	return (x, y) => {
+		let sum = 0;
+		for (const w of waves) sum += Math.cos(w.kx * x + w.ky * y + w.phase);
+		return amplitude * sum;
+	};
+}
+
+/** The member's correlation length: a fifth of its longer side, at least 300 mm (invented). */
+export const correlationLengthMm = (member: DemoMemberPlan) =>
+	Math.max(300, Math.max(member.gridWidthMm, member.gridHeightMm) / 5);
+
+/**
+ * The cover at a point: a standard normal z mixing the member's field with independent scatter
+ * (so each reading keeps the planned normal or lognormal distribution), and inside a low patch
+ * a smooth dip.
+ */
+function coverAt(plan: CoverPlan, member: DemoMemberPlan, x: number, y: number, z: number): number {
 	const base =
-		plan.model === 'normal'
-			? rng.normal(plan.meanMm, plan.sdMm)
-			: rng.lognormal(plan.meanMm, plan.sdMm);
+		plan.model === 'normal' ? plan.meanMm + plan.sdMm * z : lognormalAt(plan.meanMm, plan.sdMm, z);
 	if (!plan.lowPatch) return base;
 	const { xFraction, yFraction, radiusFraction, dropMm } = plan.lowPatch;
 	const dx = x / member.gridWidthMm - xFraction;
@@ -49,12 +83,26 @@ function coverAt(plan: CoverPlan, member: DemoMemberPlan, x: number, y: number, 
 	return base - dropMm * Math.exp(-distance2);
 }
 
+/** Lognormal whose own mean and SD are given, at standard normal z. */
+function lognormalAt(mean: number, sd: number, z: number): number {
+	const sigma2 = Math.log(1 + (sd * sd) / (mean * mean));
+	return Math.exp(Math.log(mean) - sigma2 / 2 + Math.sqrt(sigma2) * z);
+}
+
 /**
  * Readings as a cover meter logs them: scan lines across the member, one reading where each bar
- * is crossed (bar positions at the specified spacing with a few mm of fixing scatter).
+ * is crossed (bar positions at the specified spacing with a few mm of fixing scatter), rounded
+ * to the meter's resolution (0.1 mm unless the survey's meter logs whole millimetres).
  */
-export function generateReadings(member: DemoMemberPlan, rng: SeededRandom): GeneratedReading[] {
+export function generateReadings(
+	member: DemoMemberPlan,
+	rng: SeededRandom,
+	resolutionMm = 0.1
+): GeneratedReading[] {
 	const readings: GeneratedReading[] = [];
+	const field = correlatedField(rng, correlationLengthMm(member));
+	const toResolution = (v: number) =>
+		Math.round(Math.round(v / resolutionMm) * resolutionMm * 10) / 10;
 	for (
 		let y = member.scanLineSpacingMm / 2;
 		y < member.gridHeightMm;
@@ -62,11 +110,14 @@ export function generateReadings(member: DemoMemberPlan, rng: SeededRandom): Gen
 	) {
 		for (let x = member.barSpacingMm / 2; x < member.gridWidthMm; x += member.barSpacingMm) {
 			const xMm = round1(x + rng.normal(0, 6));
-			const cover = coverAt(member.cover, member, xMm, y, rng);
+			const z =
+				Math.sqrt(CORRELATED_SHARE) * field(xMm, y) +
+				Math.sqrt(1 - CORRELATED_SHARE) * rng.normal(0, 1);
+			const cover = coverAt(member.cover, member, xMm, y, z);
 			readings.push({
 				xMm,
 				yMm: round1(y),
-				coverMm: round1(Math.min(Math.max(cover, 4), 150)),
+				coverMm: toResolution(Math.min(Math.max(cover, 4), 150)),
 				// Meter diameter estimates scatter about ±1 mm round the real bar (common practice).
 				barDiameterMm: round1(member.barDiameterMm + rng.normal(0, 0.6)),
 				barSpacingMm: round1(member.barSpacingMm + rng.normal(0, 5)),

@@ -229,7 +229,7 @@ async function loadSurvey(
 			},
 			{ transaction }
 		);
-		const rows = generateReadings(memberPlan, rng);
+		const rows = generateReadings(memberPlan, rng, plan.resolutionMm);
 		memberReadings.push({ memberId: member.id, rows });
 		for (let start = 0; start < rows.length; start += 5000) {
 			const chunk = rows

@@ -50,6 +50,8 @@ export interface DemoSurveyPlan {
 	notes: string;
 	members: DemoMemberPlan[];
 	verificationHoleCount: number;
+	/** The meter's logging step (mm); 0.1 unless given. */
+	resolutionMm?: number;
 }
 
 export interface DemoAssetPlan {
@@ -134,7 +136,7 @@ function deckBays(
 			meanMm: meanMm + (i % 3) - 1,
 			sdMm: 6 + (i % 4) * 0.8,
 			lowPatch: lowPatchBays.includes(i + 1)
-				? { xFraction: 0.3 + 0.1 * (i % 3), yFraction: 0.6, radiusFraction: 0.22, dropMm: 17 }
+				? { xFraction: 0.3 + 0.1 * (i % 3), yFraction: 0.6, radiusFraction: 0.22, dropMm: 20 }
 				: undefined
 		}
 	}));
@@ -164,7 +166,7 @@ export const demoAssets: DemoAssetPlan[] = [
 				notes: 'Bays scanned on 300 mm lines across the top mat; soffits scanned from a tower.',
 				verificationHoleCount: 5,
 				members: [
-					...deckBays('L2-BAY', 10, [4, 7], 57),
+					...deckBays('L2-BAY', 10, [4], 57),
 					...repeat(4, (n) => ({
 						label: `L2-SOFFIT-${n}`,
 						memberType: 'slab',
@@ -202,6 +204,8 @@ export const demoAssets: DemoAssetPlan[] = [
 				meterCalibration: 'Checked on calibration block 2025-03-30',
 				notes: 'Roof deck resurfaced in 2019; scanned through the new wearing course where thin.',
 				verificationHoleCount: 4,
+				// This meter logs whole millimetres: ties the fit tests must allow for.
+				resolutionMm: 1,
 				members: deckBays('ROOF-BAY', 6, [], 60)
 			}
 		]
@@ -352,7 +356,7 @@ export const demoAssessments: DemoAssessmentPlan[] = [
 		surveyTitle: demoAssets[0].surveys[0].title,
 		title: 'Level 2 deck and soffits: cover assessment',
 		recommendations:
-			'Take chloride profiles in bays L2-BAY-04 and L2-BAY-07, where cover is lowest, before deciding on repairs. Plan a protective coating of the Level 2 deck within five years; recheck the columns at the next principal inspection.',
+			'Take chloride profiles in bay L2-BAY-04, where cover is lowest, before deciding on repairs. Plan a protective coating of the Level 2 deck within five years; recheck the columns at the next principal inspection.',
 		savedBy: 'engineer@kestrel-lane.example',
 		approvedBy: 'admin@kestrel-lane.example'
 	},

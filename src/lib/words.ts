@@ -56,3 +56,33 @@ export function formatDateTime(value: Date | string | null | undefined, none = '
 /** What "depassivated" means, for an owner who is not a corrosion engineer (pages and report). */
 export const DEPASSIVATED_WORDS =
 	'“Without protection” (depassivated) means the concrete around the steel no longer keeps it from corroding: carbonation or chlorides have reached the bar. Corrosion can start from then on; it is not yet damage.';
+
+const COUNT_WORDS = ['no', 'one', 'two', 'three', 'four', 'five', 'six', 'seven', 'eight', 'nine'];
+/** counted() with small numbers in words, for sentences ("two areas"). */
+const countWords = (n: number, one: string, many: string) =>
+	counted(n, one, many).replace(/^\d+/, (digits) => COUNT_WORDS[n] ?? digits);
+
+/** A member's low-cover areas as the owner's page and the report give them. */
+export interface LowAreaSummary {
+	memberLabel: string;
+	populationLabel: string;
+	areaCount: number;
+	areaM2: number;
+}
+
+/**
+ * "Treat first: member L2-BAY-07 (deck · XD3), two areas, 14 m²": the member with the most area
+ * below c_min; null when no member has any.
+ */
+export function treatFirstWords(members: readonly LowAreaSummary[]): string | null {
+	const first = [...members].sort((a, b) => b.areaM2 - a.areaM2)[0];
+	if (!first || first.areaCount === 0) return null;
+	const m2 = first.areaM2 >= 10 ? first.areaM2.toFixed(0) : first.areaM2.toFixed(1);
+	const others = members.filter((m) => m !== first && m.areaCount > 0).length;
+	const rest =
+		others > 0 ? `; ${countWords(others, 'other member has', 'other members have')} low areas` : '';
+	return (
+		`Treat first: member ${first.memberLabel} (${first.populationLabel}), ` +
+		`${countWords(first.areaCount, 'area', 'areas')} below c_min, ${m2} m²${rest}.`
+	);
+}

@@ -155,6 +155,14 @@ const ORG_ROUTES: Record<string, (v: OrganisationIds, own: OrganisationIds) => P
 	'/api/v1/assets/[assetId]/populations': (v) => [
 		{ method: 'GET', path: `/api/v1/assets/${v.assetId}/populations` }
 	],
+	'/api/v1/assets/[assetId]/populations/custom': (v) => [
+		{ method: 'GET', path: `/api/v1/assets/${v.assetId}/populations/custom` },
+		{
+			method: 'POST',
+			path: `/api/v1/assets/${v.assetId}/populations/custom`,
+			body: { name: 'Stolen', members: [v.memberId] }
+		}
+	],
 	'/api/v1/assets/[assetId]/populations/detail': (v) => [
 		{ method: 'GET', path: `/api/v1/assets/${v.assetId}/populations/detail?type=deck&exposure=XD3` }
 	],

@@ -10,6 +10,9 @@ export const COVER_MAP_COLUMNS = 36;
 export const COVER_MAP_MAX_ROWS = 36;
 
 export interface Cell {
+	/** Column and row of the cell (0-based; row 0 at y = 0). */
+	i: number;
+	j: number;
 	/** Centre of the cell (mm). */
 	x: number;
 	y: number;
@@ -18,13 +21,21 @@ export interface Cell {
 }
 
 export interface CoverMapGrid {
+	/**
+	 * 'area': readings placed by x and y; 'profile': a line scan (x only), one row drawn as cover
+	 * along x.
+	 */
+	kind: 'area' | 'profile';
 	widthMm: number;
+	/** The member's height; for a profile whose member has no height given, 1000 mm (per metre). */
 	heightMm: number;
 	columns: number;
 	rows: number;
 	cells: Cell[];
 	/** Least and greatest of the cells' least covers (mm); null without placed readings. */
 	rangeMm: [number, number] | null;
+	/** False when a profile's height is not known and areas are per metre of width. */
+	heightKnown: boolean;
 	/** Readings without x or y, which no cell shows. */
 	unplaced: number;
 }

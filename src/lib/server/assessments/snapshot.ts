@@ -10,10 +10,14 @@ import { createHash } from 'node:crypto';
 import { ENGINE_VERSION } from '$lib/analysis';
 import { Asset, Survey } from '$lib/server/db';
 import {
+	customOverview,
 	meterCheck,
+	populationLowAreas,
 	populationOverview,
 	type MeterCheck,
 	type MethodChoice,
+	type JudgedCustomPopulation,
+	type PopulationLowAreas,
 	type PopulationResult,
 	type Split,
 	type SurveySelection
@@ -63,6 +67,14 @@ export interface AssessmentSnapshot {
 	/** The meter's verification from every hole in the populations' members. */
 	meter: MeterCheck;
 	readingCount: number;
+	/** Each population's members with areas below c_min (lowAreas.ts); absent in older snapshots. */
+	lowAreas?: PopulationLowAreas[];
+	/**
+	 * The populations the engineers made (members split out of a group, or chosen by hand), each
+	 * with its member ids and judged over the same surveys and methods; kept apart from
+	 * `populations` so no member counts twice in the risk annex. Absent in older snapshots.
+	 */
+	custom?: JudgedCustomPopulation[];
 }
 
 function surveyOf(s: Survey): SnapshotSurvey {
@@ -121,7 +133,14 @@ export async function buildSnapshot(
 		methods,
 		populations: overview.populations,
 		meter: await meterCheck(members.map((m) => m.id)),
-		readingCount: members.reduce((sum, m) => sum + m.readings, 0)
+		readingCount: members.reduce((sum, m) => sum + m.readings, 0),
+		lowAreas: await populationLowAreas(overview.populations),
+		custom: await customOverview({
+			assetId: asset.id,
+			surveyIds: selection?.surveyIds ?? (scope.surveyId ? [scope.surveyId] : undefined),
+			choice: methods,
+			charts: true
+		})
 	};
 }
 

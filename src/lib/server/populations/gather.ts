@@ -49,6 +49,8 @@ export interface MemberFilter {
 	exposureClass?: string;
 	face?: string;
 	memberId?: number;
+	/** Only these members (a custom population); an empty list matches none. */
+	memberIds?: readonly number[];
 }
 
 /** The members in scope with their specified cover, ordered by id. */
@@ -63,6 +65,10 @@ export async function membersInScope(filter: MemberFilter): Promise<MemberSpec[]
 	if (filter.exposureClass) Object.assign(where, { exposureClass: filter.exposureClass });
 	if (filter.face) Object.assign(where, { face: filter.face });
 	if (filter.memberId) Object.assign(where, { id: filter.memberId });
+	if (filter.memberIds) {
+		if (filter.memberIds.length === 0) return [];
+		Object.assign(where, { id: [...filter.memberIds] });
+	}
 	db();
 	const rows = await Member.findAll({
 		attributes: [...SPEC_ATTRIBUTES],

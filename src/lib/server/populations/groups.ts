@@ -12,6 +12,9 @@ export interface PopulationKey {
 	face?: string;
 	surveyId?: number;
 	memberId?: number;
+	/** A population the engineer made (custom.ts), and whether this is what is left of its source. */
+	customId?: number;
+	rest?: boolean;
 }
 
 export interface GatheredGroup {
@@ -44,6 +47,7 @@ export function keyId(key: PopulationKey): string {
 	if (key.face) parts.push(`face:${key.face}`);
 	if (key.surveyId) parts.push(`survey:${key.surveyId}`);
 	if (key.memberId) parts.push(`member:${key.memberId}`);
+	if (key.customId) parts.push(`custom:${key.customId}${key.rest ? ':rest' : ''}`);
 	return parts.join('|');
 }
 
@@ -82,7 +86,28 @@ function joinCovers(parts: (Float64Array | undefined)[]): Float64Array {
  */
 export async function gatherGroups(filter: MemberFilter, split: Split): Promise<GatheredGroup[]> {
 	const members = await membersInScope(filter);
-	const grouped = groupMembers(members, split);
+	return gatherOf(members, groupMembers(members, split));
+}
+
+/**
+ * Every member in scope as one population under the given key (a custom population, whatever
+ * the members' types); null when no member matches.
+ */
+export async function gatherAsOne(
+	filter: MemberFilter,
+	key: (members: MemberSpec[]) => PopulationKey
+): Promise<GatheredGroup | null> {
+	const members = await membersInScope(filter);
+	if (members.length === 0) return null;
+	const k = key(members);
+	const [group] = await gatherOf(members, [[keyId(k), { key: k, members }]]);
+	return group;
+}
+
+async function gatherOf(
+	members: MemberSpec[],
+	grouped: [string, { key: PopulationKey; members: MemberSpec[] }][]
+): Promise<GatheredGroup[]> {
 	const byMember = await coversByMember(members.map((m) => m.id));
 	const covers = grouped.map(([, g]) => joinCovers(g.members.map((m) => byMember.get(m.id))));
 	return grouped.map(([id, g], index) => ({

@@ -9,3 +9,5 @@ export * from './service';
 export type { MemberSpec } from './gather';
 export * from './member';
 export * from './selection';
+export * from './lowAreas';
+export * from './custom';

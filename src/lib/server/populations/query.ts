@@ -69,6 +69,12 @@ export const groupSchema = z.object({
 	member: id.optional()
 });
 
+/** A custom population picked by id, and which part of a split (the chosen members or the rest). */
+export const customSchema = z.object({
+	custom: id,
+	part: z.enum(['chosen', 'rest'], 'The part is chosen or rest.').default('chosen')
+});
+
 export type MethodChoice = z.infer<typeof methodSchema>;
 export type PopulationScope = z.infer<typeof scopeSchema>;
 export type GroupSelector = z.infer<typeof groupSchema>;

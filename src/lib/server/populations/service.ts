@@ -48,7 +48,12 @@ export function populationLabel(key: PopulationKey, members: readonly { label: s
 	return parts.join(' · ');
 }
 
-function judge(group: GatheredGroup, choice: MethodChoice, charts: boolean): PopulationResult {
+/** One gathered group judged by the engine (automatic groups and custom populations alike). */
+export function judgeGroup(
+	group: GatheredGroup,
+	choice: MethodChoice,
+	charts: boolean
+): PopulationResult {
 	const requirement = groupRequirement(group.members);
 	const n = group.coversMm.length;
 	const enough = n >= 2;
@@ -88,7 +93,7 @@ export async function populationOverview(input: PopulationScopeInput): Promise<P
 		engineVersion: ENGINE_VERSION,
 		choice: input.choice,
 		split: input.split,
-		populations: groups.map((g) => judge(g, input.choice, input.charts ?? false))
+		populations: groups.map((g) => judgeGroup(g, input.choice, input.charts ?? false))
 	};
 }
 
@@ -125,5 +130,5 @@ export async function populationDetail(
 		...(selector.member ? { memberId: selector.member } : {})
 	};
 	const keyed = { ...group, key, id: keyId(key) };
-	return { result: judge(keyed, input.choice, true), group: keyed };
+	return { result: judgeGroup(keyed, input.choice, true), group: keyed };
 }

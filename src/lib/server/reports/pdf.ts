@@ -10,6 +10,7 @@ import { registerReportFonts } from './fonts';
 import { MARGIN, ReportWriter } from './layout';
 import { appendices } from './sections/appendices';
 import { coverPage, ownerSummary } from './sections/front';
+import { lowAreaSection } from './sections/lowAreas';
 import { methodStatement } from './sections/method';
 import { populationSections } from './sections/populations';
 import { riskSection } from './sections/risk';
@@ -77,6 +78,7 @@ export function buildReportPdf(
 	const w = new ReportWriter(doc);
 	coverPage(w, source, generatedAt);
 	ownerSummary(w, source);
+	lowAreaSection(w, source);
 	methodStatement(w, source);
 	populationSections(w, source);
 	riskSection(w, source);

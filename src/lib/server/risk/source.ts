@@ -5,6 +5,7 @@
  * main only this file changes.
  */
 import type { MeterVerification, PopulationAssessment } from '$lib/analysis';
+import type { LowAreaSummary } from '$lib/words';
 
 export interface SnapshotPopulationLike {
 	id: string;
@@ -51,6 +52,8 @@ export interface SnapshotLike {
 	populations: SnapshotPopulationLike[];
 	meter: { holes: HoleLike[]; verification: MeterVerification | null; note: string | null };
 	readingCount: number;
+	/** Low-cover areas per population (populations/lowAreas.ts); absent in older snapshots. */
+	lowAreas?: { members: (LowAreaSummary & { share: number })[] }[];
 }
 
 /** The assessment row's own fields that the report shows beside its snapshot. */

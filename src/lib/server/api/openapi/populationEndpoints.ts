@@ -1,5 +1,6 @@
 import { z } from 'zod';
 import { groupSchema, methodSchema, scopeSchema } from '../../populations/query';
+import { customPopulationSchema } from '../../populations/custom';
 import { idParam } from '../schemas';
 import type { Endpoint } from './endpoint';
 
@@ -46,6 +47,39 @@ export const populationEndpoints: Endpoint[] = [
 				meter: engineResult('Meter verification from the check holes.').nullable()
 			}),
 			description: 'Population detail.'
+		}
+	},
+	{
+		method: 'get',
+		path: '/api/v1/assets/{assetId}/populations/custom',
+		operationId: 'customPopulations',
+		tag: 'Populations',
+		summary: 'The populations the engineers made from chosen members of the asset',
+		action: 'population:read',
+		params: assetParams,
+		response: {
+			mediaType: 'application/json',
+			schema: z.object({ populations: z.array(engineResult('A custom population.')) }),
+			description: 'Custom populations, oldest first.'
+		}
+	},
+	{
+		method: 'post',
+		path: '/api/v1/assets/{assetId}/populations/custom',
+		operationId: 'createCustomPopulation',
+		tag: 'Populations',
+		summary: 'Save a population of chosen members (split out of a group with splitFrom); audited',
+		description:
+			'Owning organisation only. Judge it with the detail endpoint and custom=<id> (part=rest for what is left of the group).',
+		action: 'assessment:write',
+		params: assetParams,
+		body: customPopulationSchema,
+		exampleBody: { name: 'Bay 4', members: [1], splitFrom: 'deck|XD3' },
+		response: {
+			status: 201,
+			mediaType: 'application/json',
+			schema: z.object({ population: engineResult('The saved population.') }),
+			description: 'Saved.'
 		}
 	},
 	{

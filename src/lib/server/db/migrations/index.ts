@@ -12,6 +12,7 @@ import { durabilityMeasurements } from './011-durability-measurements';
 import { coverCounts } from './012-cover-counts';
 import { surveyPlans } from './013-survey-plans';
 import { syncBatches } from './014-sync-batches';
+import { customPopulations } from './015-custom-populations';
 import { measurementImports } from './016-measurement-imports';
 import type { Migration } from './types';
 
@@ -34,5 +35,6 @@ export const migrations: Migration[] = [
 	coverCounts,
 	surveyPlans,
 	syncBatches,
+	customPopulations,
 	measurementImports
 ];

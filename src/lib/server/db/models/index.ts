@@ -7,6 +7,7 @@ import { AssetShare } from './AssetShare';
 import { Attachment } from './Attachment';
 import { AuditEvent } from './AuditEvent';
 import { CarbonationTest } from './CarbonationTest';
+import { CustomPopulation } from './CustomPopulation';
 import { ChlorideIncrement } from './ChlorideIncrement';
 import { ChlorideProfile } from './ChlorideProfile';
 import { ColumnTemplate } from './ColumnTemplate';
@@ -39,6 +40,7 @@ export {
 	Attachment,
 	AuditEvent,
 	CarbonationTest,
+	CustomPopulation,
 	ChlorideIncrement,
 	ChlorideProfile,
 	ColumnTemplate,
@@ -72,6 +74,7 @@ const allModels = [
 	Attachment,
 	AuditEvent,
 	CarbonationTest,
+	CustomPopulation,
 	ChlorideIncrement,
 	ChlorideProfile,
 	ColumnTemplate,
@@ -121,6 +124,8 @@ function associate(): void {
 	AssetShare.belongsTo(Organisation, { foreignKey: 'organisationId' });
 
 	Asset.hasMany(Survey, { foreignKey: 'assetId' });
+	Asset.hasMany(CustomPopulation, { foreignKey: 'assetId' });
+	CustomPopulation.belongsTo(Asset, { foreignKey: 'assetId' });
 	Survey.belongsTo(Asset, { foreignKey: 'assetId' });
 	Survey.hasMany(Member, { foreignKey: 'surveyId' });
 	Member.belongsTo(Survey, { foreignKey: 'surveyId' });

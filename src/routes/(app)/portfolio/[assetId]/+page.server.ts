@@ -25,6 +25,7 @@ export const load: PageServerLoad = async (event) => {
 	return {
 		asset,
 		view: latest ? toRiskView(latest) : null,
+		lowAreas: latest?.snapshot.lowAreas?.flatMap((p) => p.members) ?? null,
 		mayShare,
 		links: links.map((l) => ({
 			id: l.id,

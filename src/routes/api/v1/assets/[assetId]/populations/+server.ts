@@ -2,6 +2,7 @@ import { json } from '@sveltejs/kit';
 import type { RequestHandler } from './$types';
 import { authorize } from '$lib/server/web/actor';
 import {
+	customOverview,
 	methodSchema,
 	paramsOf,
 	parseParams,
@@ -28,5 +29,6 @@ export const GET: RequestHandler = async ({ locals, params, url }) => {
 		split: scope.split,
 		choice
 	});
-	return json({ ...overview, selection });
+	const custom = await customOverview({ assetId, surveyIds: selection.surveyIds, choice });
+	return json({ ...overview, selection, custom });
 };

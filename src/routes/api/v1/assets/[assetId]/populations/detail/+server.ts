@@ -2,8 +2,12 @@ import { error, json } from '@sveltejs/kit';
 import type { RequestHandler } from './$types';
 import { toPlainJson } from '$lib/analysis';
 import { authorize } from '$lib/server/web/actor';
+import { api } from '$lib/server/web/respond';
 import {
+	customPopulationsOf,
+	customSchema,
 	groupSchema,
+	judgeCustom,
 	memberBoxes,
 	memberComparison,
 	populationMixture,
@@ -25,14 +29,19 @@ export const GET: RequestHandler = async ({ locals, params, url }) => {
 	const assetId = pathId(params.assetId);
 	const query = paramsOf(url);
 	const scope = parseParams(scopeSchema, query);
-	const selector = parseParams(groupSchema, query);
 	const choice = parseParams(methodSchema, query);
 	await visibleAsset(actor, assetId);
 	const selection = await surveySelection(assetId, requestedSurveyIds(scope));
-	const detail = await populationDetail(
-		{ assetId, surveyIds: selection.surveyIds, choice },
-		selector
-	);
+	const input = { assetId, surveyIds: selection.surveyIds, choice };
+	let detail;
+	if (query.custom !== undefined) {
+		// A population the engineer made, shared by its URL: ?custom=3 (&part=rest for the remainder).
+		const picked = parseParams(customSchema, query);
+		const [custom] = await api(() => customPopulationsOf(assetId, [picked.custom]));
+		[detail] = await judgeCustom({ ...input, charts: true }, custom, picked.part);
+	} else {
+		detail = await populationDetail(input, parseParams(groupSchema, query));
+	}
 	if (!detail) error(404, 'No members of this asset match that population.');
 	const type = choice.percentile === '6' ? 6 : 7;
 	return json({
