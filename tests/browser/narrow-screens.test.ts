@@ -139,4 +139,22 @@ describe('main pages at tablet and phone widths', () => {
 		expect(await heading.innerText()).toContain('c_min');
 		await context.close();
 	});
+
+	it('keeps c_min and the reasons of every population in view at 768 and 390 px', async () => {
+		const context = await signedInContext(browser, 'engineer');
+		const page = await context.newPage();
+		for (const width of [768, 390]) {
+			await page.setViewportSize({ width, height: 900 });
+			await page.goto(`${appUrl()}/assets/${ids.assetId}/populations`);
+			const row = page.locator('[data-testid=population-table] tbody tr').first();
+			for (const label of ['c_min', 'Why']) {
+				const box = await row.locator(`td[data-label="${label}"]`).boundingBox();
+				expect(box, `${label} at ${width} px`).not.toBeNull();
+				expect(box!.x, `${label} at ${width} px`).toBeGreaterThanOrEqual(0);
+				expect(box!.x + box!.width, `${label} at ${width} px`).toBeLessThanOrEqual(width);
+			}
+			await page.screenshot({ path: `${SCREENSHOT_DIR}/narrow-population-table-${width}.png` });
+		}
+		await context.close();
+	});
 });
