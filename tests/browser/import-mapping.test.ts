@@ -84,7 +84,7 @@ describe('the import mapping page in chromium (the built app)', () => {
 		expect(await page.locator('#map-chloridePercent').inputValue()).toBe('5');
 		await screenshot(page, 'import-chloride-mapping-tablet');
 		await page.getByRole('button', { name: 'Check and import' }).click();
-		await page.getByText('1 chloride profile(s) imported from 2 row(s).').waitFor({
+		await page.getByText('1 chloride profile imported from 2 rows.').waitFor({
 			timeout: 20_000
 		});
 		await page.reload({ waitUntil: 'networkidle' });

@@ -48,7 +48,7 @@ describe('import of bad input: a clear message, and the whole batch or none of i
 			'good.csv',
 			csv([HEADER, 'M-01,0,0,31.5', 'M-01,150,0,33', 'M-02,0,0,28.2', 'm-03,0,0,40'])
 		);
-		expect(outcome.message).toBe('4 reading(s) imported.');
+		expect(outcome.message).toBe('4 readings imported.');
 		expect(batch.state).toBe('completed');
 		expect(await countReadings(sequelize, { surveyId: s.id })).toBe(4);
 	});

@@ -1,4 +1,5 @@
 import type { Transaction } from 'sequelize';
+import { counted } from '$lib/words';
 import { ImportBatch } from '../db/models';
 import type { ImportState } from '../db/models/ImportBatch';
 import { recordAudit } from '../audit';
@@ -75,7 +76,7 @@ function warningsFor(job: ImportJob, tally: ImportTally): string[] {
 	const warnings: string[] = [...tally.sourceWarnings];
 	if (tally.rejected.count > 0) {
 		warnings.push(
-			`${tally.rejected.count} row(s) were not imported; download the rejected rows to see why. ${tally.rejected.describe()}`
+			`${counted(tally.rejected.count, 'row was', 'rows were')} not imported; download the rejected rows to see why. ${tally.rejected.describe()}`
 		);
 	}
 	if (unitOf(job.options, 'cover') === 'mm' && smallCoverShare(tally) >= INCH_SUSPICION_SHARE) {
@@ -133,7 +134,7 @@ export async function finishImport(
 		transaction
 	);
 	await transaction.commit();
-	const message = `${tally.rowsWritten} reading(s) imported.`;
+	const message = `${counted(tally.rowsWritten, 'reading')} imported.`;
 	return {
 		state: 'completed',
 		message,

@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { counted } from '$lib/words';
 import {
 	FIELD_LABELS,
 	LENGTH_FIELDS,
@@ -172,7 +173,7 @@ export function createRowValidator(
 			return {
 				ok: false,
 				code: 'width',
-				reason: `the row has ${cells.length} field(s) but the mapping needs ${widthNeeded} (is the delimiter right?)`
+				reason: `the row has ${counted(cells.length, 'field')} but the mapping needs ${widthNeeded} (is the delimiter right?)`
 			};
 		}
 		const coverMm = readLength(cells, 'cover');

@@ -1,4 +1,5 @@
 import type { Transaction } from 'sequelize';
+import { counted } from '$lib/words';
 import type { Readable } from 'node:stream';
 import {
 	CarbonationTest,
@@ -221,8 +222,11 @@ async function finish(
 	written: { records: number; labels: string[] },
 	transaction: Transaction
 ): Promise<ImportOutcome> {
-	const what = job.kind === 'carbonation' ? 'carbonation test(s)' : 'chloride profile(s)';
-	const message = `${written.records} ${what} imported from ${rowsRead} row(s).`;
+	const what: [string, string] =
+		job.kind === 'carbonation'
+			? ['carbonation test', 'carbonation tests']
+			: ['chloride profile', 'chloride profiles'];
+	const message = `${counted(written.records, ...what)} imported from ${counted(rowsRead, 'row')}.`;
 	const [updated] = await ImportBatch.update(
 		{
 			state: 'completed',
