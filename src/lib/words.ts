@@ -86,3 +86,13 @@ export function treatFirstWords(members: readonly LowAreaSummary[]): string | nu
 		`${countWords(first.areaCount, 'area', 'areas')} below c_min, ${m2} m²${rest}.`
 	);
 }
+
+/** The rule sets (src/lib/analysis/rules/ruleSets.ts) as people read them; the key stays in URLs. */
+export const RULE_SET_WORDS: Record<string, string> = {
+	'en-statistical': 'statistical acceptance: characteristic cover, share below c_min, excess cover',
+	'aci-tolerance': 'tolerance on each reading (ACI 117), excess cover',
+	'strict-minimum': 'no reading below c_min, excess cover',
+	'full-review': 'every rule, for a review'
+};
+
+export const ruleSetWords = (name: string): string => RULE_SET_WORDS[name] ?? name;

@@ -26,3 +26,14 @@ describe('dates for people: one format, ISO 8601 order', () => {
 		expect(formatDateTime(undefined)).toBe('—');
 	});
 });
+
+describe('rule set words', () => {
+	it('names every rule set the engine has in words, never by its key', async () => {
+		const { RULE_SETS } = await import('$lib/analysis/rules/ruleSets');
+		const { ruleSetWords } = await import('$lib/words');
+		for (const name of Object.keys(RULE_SETS)) {
+			expect(ruleSetWords(name)).not.toBe(name);
+			expect(ruleSetWords(name)).not.toMatch(/^[a-z]+-[a-z]+$/);
+		}
+	});
+});
