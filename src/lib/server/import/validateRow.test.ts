@@ -150,8 +150,13 @@ describe('the unit a header names', () => {
 	it('takes "Position (m)" as metres, not millimetres', () => {
 		const headers = ['Member', 'Position (m)', 'Height [m]', 'Cover (mm)', 'Bar dia (in)'];
 		const suggested = suggestMapping(headers);
-		expect(suggested).toMatchObject({ memberLabel: 0, x: 1, cover: 3, diameter: 4 });
-		expect(suggestUnits(headers, suggested)).toEqual({ x: 'm', cover: 'mm', diameter: 'inch' });
+		expect(suggested).toMatchObject({ memberLabel: 0, x: 1, y: 2, cover: 3, diameter: 4 });
+		expect(suggestUnits(headers, suggested)).toEqual({
+			x: 'm',
+			y: 'm',
+			cover: 'mm',
+			diameter: 'inch'
+		});
 	});
 
 	it('names no unit where the header names none, and does not take "mm" or "member" as m', () => {
