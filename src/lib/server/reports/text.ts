@@ -13,4 +13,3 @@ export const mm = (value: number | null | undefined, digits = 1) =>
 	value === null || value === undefined ? '–' : `${value.toFixed(digits)} mm`;
 export const num = (value: number | null | undefined, digits = 2) =>
 	value === null || value === undefined ? '–' : value.toFixed(digits);
-export const dateOnly = (iso: string | null) => (iso ? iso.slice(0, 10) : '–');

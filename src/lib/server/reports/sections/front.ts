@@ -2,8 +2,8 @@
 import { referenceSurvey, toRiskView, type AssessedSource } from '$lib/server/risk';
 import { CAUTION_TEXT, CAUTION_TITLE } from '../caution';
 import type { ReportWriter } from '../layout';
-import { DEPASSIVATED_WORDS, surveyStateWords } from '$lib/words';
-import { dateOnly, pct } from '../text';
+import { DEPASSIVATED_WORDS, surveyStateWords, formatDate, formatDateTime } from '$lib/words';
+import { pct } from '../text';
 
 /** Each survey whose readings are in the figures, with its state when the figures were taken. */
 function surveyLines(source: AssessedSource): string {
@@ -22,7 +22,7 @@ function signatoryBlock(w: ReportWriter, source: AssessedSource): void {
 		['Organisation', header.organisation ?? '–'],
 		['Prepared by', header.createdBy ?? '–'],
 		['Approved by', header.approvedBy ?? 'not approved'],
-		['Approved on', dateOnly(header.approvedAt)]
+		['Approved on', formatDate(header.approvedAt, '–')]
 	]);
 }
 
@@ -42,14 +42,14 @@ export function coverPage(w: ReportWriter, source: AssessedSource, generatedAt: 
 		[snapshot.surveys.length === 1 ? 'Survey' : 'Surveys', surveyLines(source)],
 		['Age taken from', survey ? `${survey.title} (${survey.surveyDate})` : '–'],
 		['Assessment', `No. ${header.id}, ${header.state}`],
-		['Figures computed', dateOnly(snapshot.computedAt)],
+		['Figures computed', formatDate(snapshot.computedAt, '–')],
 		['Design service life', `${snapshot.asset.designServiceLifeYears} years`],
 		['Snapshot checksum', `sha256 ${header.snapshotSha256.slice(0, 16)}…`]
 	]);
 	signatoryBlock(w, source);
 	w.doc.moveDown(0.5);
 	w.paragraph(`${CAUTION_TITLE} ${CAUTION_TEXT}`, { size: 9 });
-	w.paragraph(`Generated ${generatedAt}`, { size: 8 });
+	w.paragraph(`Generated ${formatDateTime(generatedAt)}`, { size: 8 });
 }
 
 export function ownerSummary(w: ReportWriter, source: AssessedSource): void {
