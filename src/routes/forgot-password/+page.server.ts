@@ -5,7 +5,7 @@ import { formMessage, parseForm } from '$lib/server/web/forms';
 import { emailSchema } from '$lib/server/auth/schemas';
 import { requestPasswordResetInBackground } from '$lib/server/auth/password-reset';
 import { resetRequestWait } from '$lib/server/auth/reset-throttle';
-import { clientAddress } from '$lib/server/auth/request';
+import { clientAddress } from '$lib/server/web/request';
 import { waitInWords } from '$lib/server/auth/throttle-rules';
 
 export const load: PageServerLoad = async ({ url }) => ({ sent: url.searchParams.has('sent') });

@@ -7,7 +7,7 @@ import { fieldErrors, safeValues } from '$lib/server/web/forms';
 import { listApiTokens, TOKEN_MAX_DAYS } from '$lib/server/auth/api-tokens';
 import { createTokenSchema, idParamSchema } from '$lib/server/auth/token-schemas';
 import { createTokenFor, revokeTokenOf } from '$lib/server/auth/token-actions';
-import { clientAddress } from '$lib/server/auth/sign-in';
+import { clientAddress } from '$lib/server/web/sign-in';
 
 export const load: PageServerLoad = async (event) => {
 	const actor = pageActor(event, 'token:manage');

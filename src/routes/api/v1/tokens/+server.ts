@@ -5,7 +5,7 @@ import { readJson } from '$lib/server/web/http';
 import { listApiTokens } from '$lib/server/auth/api-tokens';
 import { createTokenSchema } from '$lib/server/auth/token-schemas';
 import { createTokenFor } from '$lib/server/auth/token-actions';
-import { clientAddress } from '$lib/server/auth/sign-in';
+import { clientAddress } from '$lib/server/web/sign-in';
 
 /** The caller's own tokens (never their secrets). */
 export const GET: RequestHandler = async ({ locals }) => {

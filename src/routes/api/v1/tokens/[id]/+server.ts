@@ -4,7 +4,7 @@ import { authorize } from '$lib/server/web/actor';
 import { apiError } from '$lib/server/web/http';
 import { idParamSchema } from '$lib/server/auth/token-schemas';
 import { revokeTokenOf } from '$lib/server/auth/token-actions';
-import { clientAddress } from '$lib/server/auth/sign-in';
+import { clientAddress } from '$lib/server/web/sign-in';
 
 /** Revokes one of the caller's tokens; anyone else's is "not found", never "forbidden". */
 export const DELETE: RequestHandler = async (event) => {

@@ -1,8 +1,8 @@
 import type { RequestEvent } from '@sveltejs/kit';
 import { User } from '../db/models';
 import { recordAudit } from '../audit';
-import { hashPassword, verifyPassword } from './password';
-import { lucia } from './lucia';
+import { hashPassword, verifyPassword } from '../auth/password';
+import { lucia } from '../auth/lucia';
 import { clientAddress, setCookie } from './request';
 import {
 	accountKey,
@@ -10,8 +10,8 @@ import {
 	lockedUntil,
 	recordFailure,
 	type ThrottleKey
-} from './throttle';
-import { lockedMessage, retryAfterSeconds } from './throttle-rules';
+} from '../auth/throttle';
+import { lockedMessage, retryAfterSeconds } from '../auth/throttle-rules';
 
 export { clientAddress };
 

@@ -1,9 +1,9 @@
 import type { RequestEvent } from '@sveltejs/kit';
 import { User } from '../db/models';
-import { lucia } from './lucia';
-import { activeMembership, membershipIn } from './membership';
-import { verifyApiToken } from './api-tokens';
-import { lockedUntil, recordFailure } from './throttle';
+import { lucia } from '../auth/lucia';
+import { activeMembership, membershipIn } from '../auth/membership';
+import { verifyApiToken } from '../auth/api-tokens';
+import { lockedUntil, recordFailure } from '../auth/throttle';
 import { clientAddress, setCookie } from './request';
 
 /**
