@@ -1,79 +1,90 @@
-#!/usr/bin/python3
-"""Peer benchmark for the analysis engine: the same figures with numpy and scipy.
+#!/usr/bin/env python3
+"""Peer benchmark for the analysis engine: the same per-group figures with vectorised numpy/scipy.
 
-Usage: /usr/bin/python3 tests/bench/analysis_peer.py DATA.f64 GROUPS REPEATS
-DATA.f64 holds float64 readings (mm); GROUPS splits them into equal groups assessed one by one.
-Prints one JSON line: best wall time (ms) over REPEATS and the figures of the first group.
-Written idiomatically (np.percentile, scipy.stats.anderson/kstest/nct), as an engineer would.
+Usage: python3 tests/bench/analysis_peer.py MODE RUNS_DIR RUNS
+MODE is 'assess' (table 1) or 'summary' (table 2). RUNS_DIR holds, per run r, r.f64 (float64
+readings, mm, the groups one after another) and r.sizes (int64 group sizes). Each run is timed
+once, on data it has not seen, after one untimed run on warm.f64/warm.sizes; prints one JSON line: the wall time (ms) of each run and the
+figures of every group of run 0, keyed by name, one list entry a group.
+
+Written as a numpy user would for groups of unequal size: per group, numpy's mean, std and
+count_nonzero and the order statistics by np.partition (interpolated as numpy's percentile
+'linear', Hyndman & Fan type 7, the engine's default); the scipy quantiles (t, noncentral t,
+beta) evaluated once for the vector of all groups. A fully vectorised form of the sums
+(np.add.reduceat over all groups, then np.repeat of the means for the SD) measured about twice
+as slow on this machine (49 ms against 23 ms for 100 groups, 10^6 readings), so the faster
+per-group loop is the peer.
 """
 import json
 import sys
 import time
 
 import numpy as np
-from scipy import optimize, stats
+from scipy import stats
 
-P, GAMMA, C_MIN, C_NOM, DELTA_PLUS, ALLOWED = 0.05, 0.95, 35.0, 45.0, 15.0, 0.05
-
-
-def variables_upper_bound(mean, sd, n, limit):
-    t = np.sqrt(n) * (mean - limit) / sd
-    f = lambda d: stats.nct.cdf(t, n - 1, d) - GAMMA
-    spread = np.sqrt(1 + t * t / (2 * (n - 1)))
-    lo, hi = t - 10 * spread - 10, t + 10 * spread + 10
-    return float(stats.norm.cdf(-optimize.brentq(f, lo, hi) / np.sqrt(n)))
+P, GAMMA, C_MIN = 0.05, 0.95, 35.0
+QUANTILES = (0.05, 0.5, 0.95)
 
 
-def assess(x):
-    n = x.size
-    mean, sd = x.mean(), x.std(ddof=1)
-    lx = np.log(x)
-    lmean, lsd = lx.mean(), lx.std(ddof=1)
-    pct = np.percentile(x, [5, 10, 25, 50, 75, 90, 95])
-    ad_n = stats.anderson(x, 'norm').statistic
-    ad_l = stats.anderson(lx, 'norm').statistic
-    ks_n = stats.kstest(x, 'norm', args=(mean, sd)).statistic
-    ks_l = stats.kstest(lx, 'norm', args=(lmean, lsd)).statistic
+def summaries(x, sizes):
+    """n, mean, SD (divisor n - 1), P5/P50/P95 (type 7) and the count below c_min per group."""
+    groups = len(sizes)
+    mean, sd, below = np.empty(groups), np.empty(groups), np.empty(groups, dtype=np.int64)
+    pct = np.empty((groups, len(QUANTILES)))
+    q = np.asarray(QUANTILES)
+    start = 0
+    for g, m in enumerate(sizes):
+        part = x[start:start + m]
+        start += m
+        mean[g], sd[g], below[g] = part.mean(), part.std(ddof=1), np.count_nonzero(part < C_MIN)
+        h = (m - 1) * q
+        lo = np.floor(h).astype(np.int64)
+        hi = np.minimum(lo + 1, m - 1)
+        ordered = np.partition(part, np.unique(np.concatenate((lo, hi))))
+        pct[g] = ordered[lo] + (h - lo) * (ordered[hi] - ordered[lo])
+    return sizes, mean, sd, pct, below
+
+
+def assess(x, sizes):
+    """Table 1: the summaries plus Clopper-Pearson, normal characteristic, prediction, tolerance."""
+    sizes, mean, sd, pct, below = summaries(x, sizes)
+    n = sizes.astype(np.float64)
     z = stats.norm.ppf(1 - P)
     kn = stats.t.ppf(1 - P, n - 1) * np.sqrt(1 + 1 / n)
     k = stats.nct.ppf(GAMMA, n - 1, z * np.sqrt(n)) / np.sqrt(n)
-    count = int(np.count_nonzero(x < C_MIN))
-    cp_upper = 1.0 if count == n else float(stats.beta.ppf(GAMMA, count + 1, n - count))
-    a2 = (1 - GAMMA) / 2
-    cp_lo = 0.0 if count == 0 else float(stats.beta.ppf(a2, count, n - count + 1))
-    cp_hi = 1.0 if count == n else float(stats.beta.ppf(1 - a2, count + 1, n - count))
-    upper = float(np.percentile(x, 100 * (1 - P)))
-    figures = {
-        'n': n, 'mean': mean, 'sd': sd, 'cov': sd / mean, 'min': x.min(), 'max': x.max(),
-        'median': float(np.median(x)), 'skewness': float(stats.skew(x, bias=False)),
-        'p5': pct[0], 'p10': pct[1],
-        'adNormal': ad_n, 'adLognormal': ad_l, 'ksNormal': ks_n, 'ksLognormal': ks_l,
-        'normalP5': mean - z * sd, 'lognormalP5': float(np.exp(lmean - z * lsd)),
+    full = below == sizes
+    cp = np.where(full, 1.0, stats.beta.ppf(GAMMA, below + 1, np.where(full, 1, sizes - below)))
+    return {
+        'n': sizes, 'mean': mean, 'sd': sd, 'p5': pct[:, 0], 'p50': pct[:, 1], 'p95': pct[:, 2],
+        'countBelow': below, 'cpUpper': cp, 'normalP5': mean - z * sd,
         'predictionNormal': mean - kn * sd, 'toleranceNormal': mean - k * sd,
-        'predictionLognormal': float(np.exp(lmean - kn * lsd)),
-        'toleranceLognormal': float(np.exp(lmean - k * lsd)),
-        'countBelow': count, 'cpUpper': cp_upper, 'cpLower2': cp_lo, 'cpUpper2': cp_hi,
-        'fractionNormal': float(stats.norm.cdf(C_MIN, mean, sd)),
-        'fractionLognormal': float(stats.norm.cdf(np.log(C_MIN), lmean, lsd)),
-        'variablesNormal': variables_upper_bound(mean, sd, n, C_MIN),
-        'variablesLognormal': variables_upper_bound(lmean, lsd, n, np.log(C_MIN)),
-        'ruleEvery': bool(x.min() >= C_MIN), 'ruleCharacteristic': bool(mean - kn * sd >= C_MIN),
-        'ruleFraction': cp_upper <= ALLOWED, 'ruleExcess': upper <= C_NOM + DELTA_PLUS,
     }
-    return {key: (float(v) if isinstance(v, np.floating) else v) for key, v in figures.items()}
+
+
+def summary(x, sizes):
+    """Table 2: the plain per-group summary."""
+    sizes, mean, sd, pct, below = summaries(x, sizes)
+    return {
+        'n': sizes, 'mean': mean, 'sd': sd, 'p5': pct[:, 0], 'p50': pct[:, 1], 'p95': pct[:, 2],
+        'fractionBelow': below / sizes,
+    }
 
 
 def main():
-    data = np.fromfile(sys.argv[1], dtype=np.float64)
-    groups, repeats = int(sys.argv[2]), int(sys.argv[3])
-    parts = np.split(data, groups)
-    best, first = float('inf'), None
-    for _ in range(repeats):
+    mode, folder, runs = sys.argv[1], sys.argv[2], int(sys.argv[3])
+    work = assess if mode == 'assess' else summary
+    times, first = [], None
+    warm_x = np.fromfile(f'{folder}/warm.f64', dtype=np.float64)
+    work(warm_x, np.fromfile(f'{folder}/warm.sizes', dtype=np.int64))  # as the engine's warm-up
+    for r in range(runs):
+        x = np.fromfile(f'{folder}/{r}.f64', dtype=np.float64)
+        sizes = np.fromfile(f'{folder}/{r}.sizes', dtype=np.int64)
         start = time.perf_counter()
-        results = [assess(part) for part in parts]
-        best = min(best, (time.perf_counter() - start) * 1000)
-        first = results[0]
-    print(json.dumps({'ms': best, 'figures': first}))
+        figures = work(x, sizes)
+        times.append((time.perf_counter() - start) * 1000)
+        if r == 0:
+            first = {key: np.asarray(v, dtype=np.float64).tolist() for key, v in figures.items()}
+    print(json.dumps({'ms': times, 'figures': first}))
 
 
 if __name__ == '__main__':
