@@ -127,6 +127,18 @@ describe('custom populations over HTTP', () => {
 		).toBe(audits);
 	});
 
+	it('lets only one of two simultaneous saves of the same name win', async () => {
+		const { chosen } = split();
+		const name = uniqueName('Race');
+		const answers = await Promise.all(
+			[0, 1].map(() => engineer.postJson(customUrl(), { name, members: chosen }))
+		);
+		expect(answers.map((a) => a.status).sort()).toEqual([201, 400]);
+		const loser = await answers.find((a) => a.status === 400)!.json();
+		expect(loser.error.field).toBe('name');
+		expect(await populationsNamed(name)).toBe(1);
+	});
+
 	it('refuses a member of another asset, naming the field', async () => {
 		const foreign = await sequelize.query<{ id: number }>(
 			'SELECT id FROM members WHERE asset_id <> ? ORDER BY id LIMIT 1',
@@ -224,6 +236,36 @@ describe('custom populations over HTTP', () => {
 			(p) => p.key.memberType === memberType && p.key.exposureClass === exposureClass
 		);
 		expect(chosenN + restN).toBe(source!.assessment!.description.n);
+	});
+
+	it('answers a population id of another asset, or none, with 404 on the detail API', async () => {
+		const created = await engineer.postJson(customUrl(), {
+			name: uniqueName('Kept here'),
+			members: split().chosen
+		});
+		const { population } = await created.json();
+		const otherAsset = await sequelize.query<{ id: number }>(
+			`SELECT a.id FROM assets a JOIN assets c ON c.organisation_id = a.organisation_id
+			  WHERE c.id = ? AND a.id <> c.id ORDER BY a.id LIMIT 1`,
+			{ replacements: [carParkId], type: QueryTypes.SELECT, plain: true }
+		);
+		expect(otherAsset, 'the demo consultancy has a second asset').toBeTruthy();
+		const elsewhere = await engineer.get(
+			`/api/v1/assets/${otherAsset!.id}/populations/detail?custom=${population.id}`,
+			JSON_ACCEPT
+		);
+		expect(elsewhere.status).toBe(404);
+		const none = await engineer.get(
+			`/api/v1/assets/${carParkId}/populations/detail?custom=4000000000`,
+			JSON_ACCEPT
+		);
+		expect(none.status).toBe(404);
+		// A population that is not a split has no rest to judge.
+		const noRest = await engineer.get(
+			`/api/v1/assets/${carParkId}/populations/detail?custom=${population.id}&part=rest`,
+			JSON_ACCEPT
+		);
+		expect(noRest.status).toBe(404);
 	});
 
 	it('answers another organisation’s asset with the 404 of a missing one', async () => {
