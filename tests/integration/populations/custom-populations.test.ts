@@ -173,6 +173,26 @@ describe('custom populations over HTTP', () => {
 		expect(await populationsNamed(name)).toBe(0);
 	});
 
+	it('refuses a split that takes every member of the group, naming the field', async () => {
+		// The page's split form allows this neither: a split must leave a rest to judge beside it.
+		const { key } = split();
+		const [memberType, exposureClass] = key.split('|');
+		const every = await sequelize.query<{ id: number }>(
+			'SELECT id FROM members WHERE asset_id = ? AND member_type = ? AND exposure_class = ?',
+			{ replacements: [carParkId, memberType, exposureClass], type: QueryTypes.SELECT }
+		);
+		const name = uniqueName('Everything');
+		const response = await engineer.postJson(customUrl(), {
+			name,
+			members: every.map((m) => m.id),
+			splitFrom: key
+		});
+		expect(response.status).toBe(400);
+		const body = await response.json();
+		expect(body.error.field).toBe('members');
+		expect(await populationsNamed(name)).toBe(0);
+	});
+
 	it('refuses an empty member list, naming the field', async () => {
 		const name = uniqueName('Nobody');
 		const response = await engineer.postJson(customUrl(), { name, members: [] });

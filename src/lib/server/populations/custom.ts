@@ -88,6 +88,15 @@ export async function createCustomPopulation(
 			const message = `Member ${outside.id} is not in the group ${type} · ${exposure}.`;
 			throw new InputError(message, { members: [message] });
 		}
+		// A split is judged beside what it leaves of the group: taking every member leaves nothing
+		// to compare (the page's form refuses it too; this is the rule for every client).
+		const inGroup = await Member.count({
+			where: { assetId, memberType: type, exposureClass: exposure }
+		});
+		if (inGroup <= memberIds.length) {
+			const message = `A split leaves at least one member in the group ${type} · ${exposure}; these are all ${inGroup} of its members.`;
+			throw new InputError(message, { members: [message] });
+		}
 		splitFromLabel = `${type} · ${exposure}`;
 	}
 	try {
