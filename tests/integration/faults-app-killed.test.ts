@@ -15,7 +15,7 @@ type App = Awaited<ReturnType<typeof startBuiltApp>>;
 // Large enough that the import is still running when the test acts (several seconds here).
 const ROWS = 300_000;
 const ABANDONED =
-	'The import stopped before it finished (the server handling it ended); nothing was written. Start it again.';
+	'The import stopped before it finished (the server handling it ended, or lost its database connection); nothing was written. Start it again.';
 
 function readingsCsv(): Buffer {
 	const lines = ['Member,X (mm),Y (mm),Cover (mm)'];

@@ -247,6 +247,18 @@ const ORG_ROUTES: Record<string, (v: OrganisationIds, own: OrganisationIds) => P
 			}
 		}
 	],
+	'/api/v1/imports/[batchId]/check': (v) => [
+		{
+			method: 'POST',
+			path: `/api/v1/imports/${v.batchId}/check`,
+			body: {
+				mapping: { memberLabel: 0, x: 1, y: 2, cover: 3 },
+				options: {},
+				headers: ['member', 'x', 'y', 'cover'],
+				rows: [['W-01', '0.1', '0.2', '35']]
+			}
+		}
+	],
 	'/api/v1/imports/[batchId]/undo': (v) => [
 		{ method: 'POST', path: `/api/v1/imports/${v.batchId}/undo`, body: {} }
 	],

@@ -120,8 +120,9 @@ describe('member cover counts stay equal to the readings', () => {
 		});
 		expect(grid.state).toBe('completed');
 		const inches = await expectCountsOfReadings(sequelize, ids[0]);
-		// 0.05 in = 1.27 mm steps: the import's (k/100)·25.4 reproduced to the bit.
-		expect(inches!.lattice!.grid).toEqual({ den: 20, factor: 25.4 });
+		// The import rounds a converted length to a millionth of a mm, so 0.05 in steps (1.27 mm)
+		// arrive as exact hundredths of a mm: the counts sit on the 0.01 mm grid.
+		expect(inches!.lattice!.grid).toEqual({ den: 100, factor: 1 });
 		await expectAllInStep(sequelize);
 		const first = await importFile(
 			actor,

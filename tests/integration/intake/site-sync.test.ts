@@ -88,14 +88,16 @@ describe('/api/v1/surveys/:id/site-sync (the built app, the real database)', () 
 
 	it('refuses a batch for a submitted survey with the reason, and writes nothing', async () => {
 		const { survey, members } = await freshSurvey(session.actor, ['F-01']);
+		// Submitting needs a reading: the helper enters one first.
 		await submitSurvey(session.surveyor, survey.id);
+		const before = await countReadings(session.sequelize, { surveyId: survey.id });
 		const response = await session.surveyor.postJson(
 			`/api/v1/surveys/${survey.id}/site-sync`,
 			batchOf([members[0].id], 3)
 		);
 		expect(response.status).toBe(409);
 		expect((await response.json()).error.message).toMatch(/survey is submitted.*frozen/);
-		expect(await countReadings(session.sequelize, { surveyId: survey.id })).toBe(0);
+		expect(await countReadings(session.sequelize, { surveyId: survey.id })).toBe(before);
 		expect(await SyncBatch.count({ where: { surveyId: survey.id } })).toBe(0);
 	});
 

@@ -17,7 +17,7 @@ export interface RunningImport {
 }
 
 export const ABANDONED_MESSAGE =
-	'The import stopped before it finished (the server handling it ended); nothing was written. Start it again.';
+	'The import stopped before it finished (the server handling it ended, or lost its database connection); nothing was written. Start it again.';
 
 /**
  * Whether no process is behind a running import any more:
