@@ -1,3 +1,4 @@
+import type { CheckedRow } from '$lib/intake/checkedRow';
 import { z } from 'zod';
 import type { Actor } from '../policy';
 import { scopedImportBatch } from '../scope';
@@ -15,23 +16,8 @@ export const importCheckSchema = z.object({
 		.max(20)
 		.describe("The preview's first rows, as the upload answered them.")
 });
+export type { CheckedRow };
 export type ImportCheckInput = z.infer<typeof importCheckSchema>;
-
-export type CheckedRow =
-	| {
-			ok: true;
-			reading: {
-				memberLabel: string;
-				xMm: number | null;
-				yMm: number | null;
-				coverMm: number;
-				barDiameterMm: number | null;
-				barSpacingMm: number | null;
-				barDirection: string | null;
-				note: string | null;
-			};
-	  }
-	| { ok: false; reason: string };
 
 /**
  * The preview's first rows as the import would read them with this mapping and these units:

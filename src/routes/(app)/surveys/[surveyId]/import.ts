@@ -49,22 +49,7 @@ export interface StartBody {
 	headerSignature: string;
 }
 
-/** One preview row as the import would read it (POST /api/v1/imports/:id/check). */
-export type CheckedRow =
-	| {
-			ok: true;
-			reading: {
-				memberLabel: string;
-				xMm: number | null;
-				yMm: number | null;
-				coverMm: number;
-				barDiameterMm: number | null;
-				barSpacingMm: number | null;
-				barDirection: string | null;
-				note: string | null;
-			};
-	  }
-	| { ok: false; reason: string };
+export type { CheckedRow } from '$lib/intake/checkedRow';
 
 export interface Upload {
 	batchId: number;
