@@ -39,7 +39,10 @@ describe('what is signed is what was seen', () => {
 		await picker.getByRole('checkbox', { name: approved.title }).uncheck();
 		await expect.poll(urlSurveys).toBe(String(other.id));
 		await page.locator('[data-population="deck|XD3"]').waitFor();
-		expect(await page.getByTestId('selection-words').textContent()).toMatch(/not approved/);
+		// The words follow the new selection once its figures arrive: poll for them.
+		await expect
+			.poll(() => page.getByTestId('selection-words').textContent())
+			.toMatch(/not approved/);
 		await screenshot(page, 'population-one-survey');
 		await Promise.all([
 			page.waitForURL('**/assessments?query=*'),

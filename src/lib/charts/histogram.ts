@@ -35,6 +35,12 @@ export function histogramConfig(
 				.map((c) => ({ x: c.coverMm, y: c.pdf * assessment.description.n * binWidthMm }))
 		: [];
 	const font = { size: look.fontSize };
+	// Every limit line inside the axis: c_min is drawn even when no reading comes near it.
+	const limitValues = lines.map((l) => l.valueMm).filter((v) => Number.isFinite(v));
+	const xMin = Math.floor(Math.min(charts.histogram[0].fromMm, ...limitValues) - binWidthMm);
+	const xMax = Math.ceil(
+		Math.max(charts.histogram[charts.histogram.length - 1].toMm, ...limitValues) + binWidthMm
+	);
 	return {
 		type: 'bar',
 		data: {
@@ -69,6 +75,8 @@ export function histogramConfig(
 			scales: {
 				x: {
 					type: 'linear',
+					min: xMin,
+					max: xMax,
 					title: { display: true, text: 'Cover (mm)', color: AXIS_TEXT, font },
 					// Whole-number ticks, never rotated: a cover axis reads left to right.
 					ticks: { color: AXIS_TEXT, font, maxRotation: 0, autoSkipPadding: 12 }
