@@ -48,7 +48,10 @@ describe('the engineer looks at the car-park deck', () => {
 		await page.waitForTimeout(300);
 		const pixels = await canvasPixels(page, 'canvas[data-chart="histogram"]', VERMILLION);
 		expect(pixels.inked).toBeGreaterThan(5000);
-		expect(pixels.coloured).toBeGreaterThan(100);
+		// The c_min line's vermillion: the legend swatches alone give about 34 pixels (the line off
+		// the axis), the drawn line more; in the demo the characteristic line (44.9 mm, black) lies
+		// over most of c_min's (45.0 mm), so the visible share of the line is small.
+		expect(pixels.coloured).toBeGreaterThan(60);
 		await screenshot(page, 'population-detail-deck');
 		const before = await page.getByTestId('characteristic').textContent();
 		await page.selectOption('select[name=fractile]', '0.1');
