@@ -34,10 +34,10 @@ async function signedInContext(browser: Browser, width: number, height: number) 
 	return { context, page };
 }
 
-async function signInOn(page: Page, next = '') {
+async function signInOn(page: Page, next = '', email: string = DEMO_USERS.surveyor) {
 	await page.goto(`/sign-in${next ? `?next=${encodeURIComponent(next)}` : ''}`);
 	await page.waitForLoadState('networkidle');
-	await page.fill('input[name=email]', DEMO_USERS.surveyor);
+	await page.fill('input[name=email]', email);
 	await page.fill('input[name=password]', DEMO_PASSWORD);
 	await Promise.all([
 		page.waitForURL(next ? `**${next}` : '**/dashboard'),
@@ -248,5 +248,68 @@ describe('on-site entry, offline and back (chromium, the built app)', () => {
 		await until('the reading saved', async () => {
 			return (await countReadings(sequelize, { surveyId: survey.id })) === 1;
 		});
+	});
+
+	it("keeps a person's entries apart on a shared tablet: never sent under the next sign-in", async () => {
+		const surveyor = await actorFor(DEMO_USERS.surveyor);
+		const { survey } = await freshSurvey(surveyor, ['T-01']);
+		const { context, page } = await signedInContext(browser, 820, 1180);
+		contexts.push(context);
+		const senders: string[] = [];
+		page.on('request', (r) => {
+			if (r.method() === 'POST' && r.url().endsWith('/site-sync')) senders.push(r.url());
+		});
+		await openSitePage(page, survey.id);
+		// The server cannot be reached when the reading is sent: it stays on the tablet.
+		await context.route('**/site-sync', (route) => route.abort());
+		await addReading(page, '29.5');
+		expect(await waitingText(page)).toBe('1 reading waiting to send');
+
+		// Signing out says what is still on the device before it goes.
+		let asked = '';
+		page.once('dialog', (dialog) => {
+			asked = dialog.message();
+			void dialog.accept();
+		});
+		await page.getByText(/▾/).click();
+		await Promise.all([
+			page.waitForURL('**/sign-in'),
+			page.getByRole('button', { name: 'Sign out', exact: true }).click()
+		]);
+		expect(asked).toMatch(/^1 on-site entry on this device has not reached the server yet\./);
+		await context.unroute('**/site-sync');
+
+		// The next person on the tablet (the organisation's admin) sees that an entry waits, but
+		// neither sees it nor sends it.
+		const before = senders.length;
+		await signInOn(page, `/surveys/${survey.id}/site`, DEMO_USERS.admin);
+		await expect
+			.poll(() => page.getByTestId('others-waiting').innerText())
+			.toMatch(/^1 entry for this survey was made on this device by someone else\./);
+		expect(await waitingText(page)).toBe('0 readings waiting to send');
+		expect(await page.getByTestId('kept-entry').count()).toBe(0);
+		await page.evaluate(() => dispatchEvent(new Event('online')));
+		await page.waitForLoadState('networkidle');
+		expect(senders.length).toBe(before);
+		expect(await countReadings(sequelize, { surveyId: survey.id })).toBe(0);
+		await page.evaluate(() => scrollTo(0, 0));
+		await page.screenshot({ path: `${SCREENSHOT_DIR}/site-entry-820-shared.png`, fullPage: true });
+
+		// The surveyor signs in again: the reading goes, received under the surveyor's name.
+		page.once('dialog', (dialog) => void dialog.accept());
+		await page.getByText(/▾/).click();
+		await Promise.all([
+			page.waitForURL('**/sign-in'),
+			page.getByRole('button', { name: 'Sign out', exact: true }).click()
+		]);
+		await signInOn(page, `/surveys/${survey.id}/site`);
+		await expect
+			.poll(() => waitingText(page), { timeout: 15000 })
+			.toBe('0 readings waiting to send');
+		await until('the reading saved', async () => {
+			return (await countReadings(sequelize, { surveyId: survey.id })) === 1;
+		});
+		const batches = await SyncBatch.findAll({ where: { surveyId: survey.id } });
+		expect(batches.map((b) => b.receivedByUserId)).toEqual([surveyor.userId]);
 	});
 });

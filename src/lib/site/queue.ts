@@ -4,6 +4,10 @@ import { openDB, type DBSchema, type IDBPDatabase } from 'idb';
  * Site entries kept on the device until the server has them: IndexedDB, which outlives a reload,
  * a closed tab and a lost signal. Each entry has an id made here; readings and holes are sent
  * in batches whose id is fixed before the first try, so a retried send is the same batch.
+ *
+ * A tablet is often shared by a site team. Each entry remembers who made it, and only that person's
+ * session sends it: readings are never saved under the name of whoever signs in next. Entries kept
+ * before entries carried a maker (no `userId`) go with the first person who opens their survey.
  */
 export type EntryKind = 'reading' | 'hole' | 'photo';
 export type EntryState = 'waiting' | 'refused';
@@ -32,6 +36,8 @@ export interface PhotoData {
 
 interface EntryBase {
 	clientId: string;
+	/** Who made the entry (the signed-in user's id); absent on entries kept before makers were kept. */
+	userId?: number;
 	surveyId: number;
 	memberId: number;
 	memberLabel: string;
@@ -61,10 +67,21 @@ function db() {
 	return opened;
 }
 
-/** Entries of a survey, oldest first. */
-export async function entriesOf(surveyId: number): Promise<SiteEntry[]> {
+const madeBy = (e: SiteEntry, userId: number) => e.userId === undefined || e.userId === userId;
+
+/** A survey's entries made by this person, oldest first, and how many others made here wait. */
+export async function entriesOf(
+	surveyId: number,
+	userId: number
+): Promise<{ own: SiteEntry[]; othersWaiting: number }> {
 	const all = await (await db()).getAllFromIndex('entries', 'bySurvey', surveyId);
-	return all.sort((a, b) => a.createdAt - b.createdAt);
+	const own = all.filter((e) => madeBy(e, userId)).sort((a, b) => a.createdAt - b.createdAt);
+	return { own, othersWaiting: all.length - own.length };
+}
+
+/** Every entry on this device that has not reached the server, whoever made it. */
+export async function waitingOnDevice(): Promise<number> {
+	return (await (await db()).getAll('entries')).length;
 }
 
 type NewEntry =
@@ -74,12 +91,14 @@ type NewEntry =
 
 export async function addEntry(
 	surveyId: number,
+	userId: number,
 	member: { id: number; label: string },
 	entry: NewEntry
 ): Promise<SiteEntry> {
 	const row = {
 		...entry,
 		clientId: crypto.randomUUID(),
+		userId,
 		surveyId,
 		memberId: member.id,
 		memberLabel: member.label,
@@ -102,11 +121,14 @@ export async function removeEntries(clientIds: string[]): Promise<void> {
  * was (same id, same entries); only when none is open are the waiting entries given a new id.
  */
 export async function nextBatch(
-	surveyId: number
+	surveyId: number,
+	userId: number
 ): Promise<{ batchId: string; entries: SiteEntry[] } | null> {
 	const tx = (await db()).transaction('entries', 'readwrite');
 	const all = await tx.store.index('bySurvey').getAll(surveyId);
-	const sendable = all.filter((e) => e.kind !== 'photo' && e.state === 'waiting');
+	const sendable = all.filter(
+		(e) => e.kind !== 'photo' && e.state === 'waiting' && madeBy(e, userId)
+	);
 	const open = sendable.find((e) => e.batchId);
 	let batch: SiteEntry[];
 	let batchId: string;
@@ -115,7 +137,8 @@ export async function nextBatch(
 		batch = sendable.filter((e) => e.batchId === batchId);
 	} else {
 		batchId = crypto.randomUUID();
-		batch = sendable.slice(0, 5000).map((e) => ({ ...e, batchId }));
+		// An entry from before makers were kept becomes this person's as it is sent.
+		batch = sendable.slice(0, 5000).map((e) => ({ ...e, batchId, userId }));
 		await Promise.all(batch.map((e) => tx.store.put(e)));
 	}
 	await tx.done;

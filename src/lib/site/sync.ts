@@ -43,12 +43,17 @@ async function settle(response: Response, clientIds: string[]): Promise<SyncStop
 
 /**
  * Sends a survey's waiting entries: readings and holes in batches under their fixed batch id,
- * then each photo under its own id. Stops at the first thing that needs a person.
+ * then each photo under its own id. Stops at the first thing that needs a person. Only the
+ * entries this person made are sent (see queue.ts).
  */
-export async function syncSurvey(surveyId: number): Promise<SyncStop> {
+export async function syncSurvey(surveyId: number, userId: number): Promise<SyncStop> {
 	let sent = 0;
 	try {
-		for (let batch = await nextBatch(surveyId); batch; batch = await nextBatch(surveyId)) {
+		for (
+			let batch = await nextBatch(surveyId, userId);
+			batch;
+			batch = await nextBatch(surveyId, userId)
+		) {
 			const response = await fetch(`/api/v1/surveys/${surveyId}/site-sync`, {
 				method: 'POST',
 				headers: { 'content-type': 'application/json', accept: 'application/json' },
@@ -61,7 +66,7 @@ export async function syncSurvey(surveyId: number): Promise<SyncStop> {
 			if (stop) return stop;
 			sent += batch.entries.length;
 		}
-		const photos = (await entriesOf(surveyId)).filter(
+		const photos = (await entriesOf(surveyId, userId)).own.filter(
 			(e) => e.kind === 'photo' && e.state === 'waiting'
 		);
 		for (const p of photos) {

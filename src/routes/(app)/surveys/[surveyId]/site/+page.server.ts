@@ -17,6 +17,8 @@ export const load: PageServerLoad = async (event) => {
 	const planned = (await plannedReadingsByMember(surveyId)).filter((row) => row.planned !== null);
 	return {
 		survey: { id: survey.id, title: survey.title, status: survey.status },
+		/** Entries on the device are kept per person: only this user's are shown and sent. */
+		userId: actor.userId,
 		asset: { id: asset.id, name: asset.name, designCode: asset.designCode },
 		members: await listMembers(actor, surveyId),
 		/** Planned readings per member id from the survey's plan; null when no population is planned. */
