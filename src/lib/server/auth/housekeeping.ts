@@ -3,7 +3,7 @@ import { Op, QueryTypes } from 'sequelize';
 import { db } from '../db';
 import { SignInThrottle } from '../db/models';
 import { lucia } from './lucia';
-import { FAILURE_WINDOW_SECONDS } from './throttle-rules';
+import { FAILURE_WINDOW_SECONDS } from './throttleRules';
 
 const EVERY_MS = 60 * 60 * 1000;
 let timer: NodeJS.Timeout | null = null;

@@ -2,7 +2,7 @@ import { createHash } from 'node:crypto';
 import { Op, QueryTypes, type Transaction } from 'sequelize';
 import { db } from '../db';
 import { SignInThrottle } from '../db/models';
-import { FAILURE_WINDOW_SECONDS, lockSeconds, type ThrottleScope } from './throttle-rules';
+import { FAILURE_WINDOW_SECONDS, lockSeconds, type ThrottleScope } from './throttleRules';
 
 export interface ThrottleKey {
 	scope: ThrottleScope;
@@ -15,7 +15,7 @@ function accountPart(email: string): string {
 }
 
 /**
- * The 'account' key is an account as tried from one address (throttle-rules.ts): failures from
+ * The 'account' key is an account as tried from one address (throttleRules.ts): failures from
  * a stranger's address lock that address out of the account, never its owner elsewhere.
  */
 export function accountKey(email: string, address: string): ThrottleKey {

@@ -2,7 +2,7 @@ import type { RequestEvent } from '@sveltejs/kit';
 import { User } from '../db/models';
 import { lucia } from '../auth/lucia';
 import { activeMembership, membershipIn } from '../auth/membership';
-import { verifyApiToken } from '../auth/api-tokens';
+import { verifyApiToken } from '../auth/apiTokens';
 import { lockedUntil, recordFailure } from '../auth/throttle';
 import { clientAddress, setCookie } from './request';
 

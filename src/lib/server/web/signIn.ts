@@ -11,7 +11,7 @@ import {
 	recordFailure,
 	type ThrottleKey
 } from '../auth/throttle';
-import { lockedMessage, retryAfterSeconds } from '../auth/throttle-rules';
+import { lockedMessage, retryAfterSeconds } from '../auth/throttleRules';
 
 export { clientAddress };
 
