@@ -123,5 +123,30 @@ export default ts.config(
 	{
 		files: ['src/lib/analysis/**'],
 		rules: { 'no-restricted-imports': restricted(SERVER) }
+	},
+	{
+		// Nor does live code import a migration: word lists come from $lib/words. Only the
+		// migrator, the script that runs it and the migrations' own tests reach into the folder.
+		files: ['**/*.{js,ts,svelte}'],
+		ignores: [
+			'src/lib/server/db/migrations/**',
+			'src/lib/server/db/migrator.ts',
+			'scripts/migrate.ts',
+			'tests/integration/migrations*.test.ts'
+		],
+		rules: {
+			'import-x/no-restricted-paths': [
+				'error',
+				{
+					zones: [
+						{
+							target: '.',
+							from: './src/lib/server/db/migrations',
+							message: 'A migration is history: take word lists from $lib/words.'
+						}
+					]
+				}
+			]
+		}
 	}
 );

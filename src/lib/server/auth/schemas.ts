@@ -1,5 +1,5 @@
 import { z } from 'zod';
-import { ROLES } from '../db/migrations/001-accounts';
+import { ROLES } from '$lib/words';
 import { newPasswordSchema } from './passwordRules';
 
 export const emailSchema = z
