@@ -30,7 +30,7 @@ export async function clearAccountFailures(email: string, transaction?: Transact
 	});
 }
 
-/** The latest lock in force for any of the keys, or null. Counters live in MariaDB (issue 9). */
+/** The latest lock in force for any of the keys, or null. Counters live in MariaDB, shared by every app process. */
 export async function lockedUntil(keys: ThrottleKey[]): Promise<Date | null> {
 	let latest: Date | null = null;
 	for (const key of keys) {
