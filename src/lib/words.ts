@@ -1,6 +1,6 @@
 /**
- * Words the pages and the report both print, written once so the two never speak differently.
- * Browser-safe: no server imports.
+ * Words the pages and the report both print, written once so the two never speak differently,
+ * and the domain's word lists (at the end). Browser-safe: no server imports.
  */
 import type { RuleOutcome } from '$lib/analysis';
 
