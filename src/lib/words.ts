@@ -152,3 +152,15 @@ export const IMPORT_STATES = [
 export const ATTACHMENT_KINDS = ['photo', 'drawing', 'meter-file', 'other'] as const;
 /** What a device sends from site in one batch. */
 export const SYNC_KINDS = ['entries', 'photo'] as const;
+
+/** A population's risk level in our own plain words; the server's risk/levels.ts assigns them. */
+export const RISK_LEVELS = ['act-now', 'plan-repairs', 'keep-watching', 'low-concern'] as const;
+export type RiskLevel = (typeof RISK_LEVELS)[number] | 'not-judged';
+
+export const RISK_WORDS: Record<RiskLevel, string> = {
+	'act-now': 'Act now',
+	'plan-repairs': 'Plan repairs',
+	'keep-watching': 'Keep watching',
+	'low-concern': 'Low concern',
+	'not-judged': 'Not judged'
+};
