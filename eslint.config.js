@@ -64,6 +64,9 @@ const SERVER = {
 	message: 'The engine is pure: nothing of $lib/server in $lib/analysis.'
 };
 
+const LUCIA_MESSAGE =
+	'Sessions go through $lib/server/auth/session (the one file that knows lucia).';
+
 export default ts.config(
 	{
 		ignores: ['build/', '.svelte-kit/', '.local/', 'node_modules/', 'static/', 'docs/', 'coverage/']
@@ -123,5 +126,46 @@ export default ts.config(
 	{
 		files: ['src/lib/analysis/**'],
 		rules: { 'no-restricted-imports': restricted(SERVER) }
+	},
+	{
+		// Nor does live code import a migration: word lists come from $lib/words. Only the
+		// migrator, the script that runs it and the migrations' own tests reach into the folder.
+		files: ['**/*.{js,ts,svelte}'],
+		ignores: [
+			'src/lib/server/db/migrations/**',
+			'src/lib/server/db/migrator.ts',
+			'scripts/migrate.ts',
+			'tests/integration/migrations*.test.ts'
+		],
+		rules: {
+			'import-x/no-restricted-paths': [
+				'error',
+				{
+					zones: [
+						{
+							target: '.',
+							from: './src/lib/server/db/migrations',
+							message: 'A migration is history: take word lists from $lib/words.'
+						}
+					]
+				}
+			]
+		}
+	},
+	{
+		// lucia is deprecated upstream: sessions go through auth/session.ts alone, so replacing it
+		// changes one file. The rule's typescript-eslint twin is used so that it adds to the
+		// folders' no-restricted-imports above instead of replacing their options.
+		files: ['**/*.{js,ts,svelte}'],
+		ignores: ['src/lib/server/auth/session.ts'],
+		rules: {
+			'@typescript-eslint/no-restricted-imports': [
+				'error',
+				{
+					paths: [{ name: 'lucia', message: LUCIA_MESSAGE }],
+					patterns: [{ group: ['lucia/*'], message: LUCIA_MESSAGE }]
+				}
+			]
+		}
 	}
 );

@@ -6,7 +6,7 @@ import { databaseUnavailableResponse, isDatabaseUnavailable } from '$lib/server/
 import { resolveAuth } from '$lib/server/web/resolve';
 import { toApiErrorResponse } from '$lib/server/web/http';
 import { limitApiRate } from '$lib/server/web/apiRate';
-import { lockedMessage, retryAfterSeconds } from '$lib/server/auth/throttle-rules';
+import { lockedMessage, retryAfterSeconds } from '$lib/server/auth/throttleRules';
 import { startAuthHousekeeping, stopAuthHousekeeping } from '$lib/server/auth/housekeeping';
 import { startMailRetryLoop, stopMailRetryLoop } from '$lib/server/mail/retry';
 import { failAbandonedImportsAtStart } from '$lib/server/import/abandoned';

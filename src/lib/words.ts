@@ -1,6 +1,6 @@
 /**
- * Words the pages and the report both print, written once so the two never speak differently.
- * Browser-safe: no server imports.
+ * Words the pages and the report both print, written once so the two never speak differently,
+ * and the domain's word lists (at the end). Browser-safe: no server imports.
  */
 import type { RuleOutcome } from '$lib/analysis';
 
@@ -96,3 +96,71 @@ export const RULE_SET_WORDS: Record<string, string> = {
 };
 
 export const ruleSetWords = (name: string): string => RULE_SET_WORDS[name] ?? name;
+
+/*
+ * The domain's word lists: the values the database's enum columns hold and every form, API and
+ * filter accepts, written once for the server, the pages and the API. A migration keeps its own
+ * copy of a list as it was when it ran (history must not change with the live list);
+ * tests/integration/migrations.test.ts checks that the migrated schema's enums are these lists.
+ */
+
+export const ROLES = ['admin', 'engineer', 'surveyor', 'owner', 'researcher'] as const;
+export type Role = (typeof ROLES)[number];
+
+/** The roles as people read them, in the order of ROLES. */
+export const ROLE_OPTIONS = [
+	{ value: 'admin', label: 'Admin — everything, people and roles included' },
+	{ value: 'engineer', label: 'Engineer — assessments and approval' },
+	{ value: 'surveyor', label: 'Surveyor — surveys and readings' },
+	{ value: 'owner', label: 'Owner — approved results of shared assets' },
+	{ value: 'researcher', label: 'Researcher — anonymised data' }
+] as const satisfies readonly { value: Role; label: string }[];
+
+/** Where a member's required cover comes from: a design code's table or the project's own. */
+export const DESIGN_CODES = ['EN 1992-1-1', 'ACI 318', 'project'] as const;
+export const MEMBER_TYPES = ['slab', 'beam', 'column', 'wall', 'footing', 'deck', 'other'] as const;
+export const MEMBER_FACES = ['top', 'bottom', 'side'] as const;
+/** EN 1992-1-1 Table 4.1's exposure classes. */
+export const EXPOSURE_CLASSES_EN = [
+	'X0',
+	'XC1',
+	'XC2',
+	'XC3',
+	'XC4',
+	'XD1',
+	'XD2',
+	'XD3',
+	'XS1',
+	'XS2',
+	'XS3'
+] as const;
+/** What a chloride content is a percentage of, by mass (intake/measurements.ts converts to binder). */
+export const CHLORIDE_BASES = ['binder', 'concrete'] as const;
+
+export const SURVEY_STATES = ['draft', 'submitted', 'approved', 'returned'] as const;
+export const ASSESSMENT_STATES = ['draft', 'approved', 'superseded'] as const;
+/** What an import's file holds. */
+export const IMPORT_KINDS = ['readings', 'carbonation', 'chloride'] as const;
+export const IMPORT_STATES = [
+	'pending',
+	'running',
+	'completed',
+	'failed',
+	'cancelled',
+	'undone'
+] as const;
+export const ATTACHMENT_KINDS = ['photo', 'drawing', 'meter-file', 'other'] as const;
+/** What a device sends from site in one batch. */
+export const SYNC_KINDS = ['entries', 'photo'] as const;
+
+/** A population's risk level in our own plain words; the server's risk/levels.ts assigns them. */
+export const RISK_LEVELS = ['act-now', 'plan-repairs', 'keep-watching', 'low-concern'] as const;
+export type RiskLevel = (typeof RISK_LEVELS)[number] | 'not-judged';
+
+export const RISK_WORDS: Record<RiskLevel, string> = {
+	'act-now': 'Act now',
+	'plan-repairs': 'Plan repairs',
+	'keep-watching': 'Keep watching',
+	'low-concern': 'Low concern',
+	'not-judged': 'Not judged'
+};

@@ -1,6 +1,6 @@
 import { rebuildCoverSets } from '../../src/lib/server/readings/coverSets';
 import { QueryTypes, type Sequelize } from 'sequelize';
-import { createApiToken } from '../../src/lib/server/auth/api-tokens';
+import { createApiToken } from '../../src/lib/server/auth/apiTokens';
 import {
 	Asset,
 	Member,

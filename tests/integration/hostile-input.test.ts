@@ -175,7 +175,7 @@ const FIELDS: Field[] = [
 	{ role: 'engineer', kind: 'query', path: '/assets/1/populations', field: 'split' },
 	{ role: 'engineer', kind: 'query', path: '/assets/1/populations/detail', field: 'type' },
 	{ role: 'anonymous', kind: 'query', path: '/sign-in', field: 'next' },
-	// Research filters (issue 8): the same list fields on statistics, readings and the exports.
+	// Research filters: the same list fields on statistics, readings and the exports.
 	...[
 		'/api/v1/research/statistics',
 		'/api/v1/research/readings',

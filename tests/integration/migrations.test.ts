@@ -3,6 +3,19 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { decodeCovers } from '../../src/lib/server/readings/coverSetCodec';
 import { createMigrator } from '../../src/lib/server/db/migrator';
 import { migrations } from '../../src/lib/server/db/migrations';
+import {
+	ASSESSMENT_STATES,
+	ATTACHMENT_KINDS,
+	CHLORIDE_BASES,
+	DESIGN_CODES,
+	IMPORT_KINDS,
+	IMPORT_STATES,
+	MEMBER_FACES,
+	MEMBER_TYPES,
+	ROLES,
+	SURVEY_STATES,
+	SYNC_KINDS
+} from '../../src/lib/words';
 import { scratchDatabase } from '../helpers/database';
 
 describe('migrations on a fresh database', () => {
@@ -45,6 +58,44 @@ describe('migrations on a fresh database', () => {
 		await migrator.up();
 		expect((await migrator.pending()).length).toBe(0);
 		expect((await scratch.tables()).length).toBe(tables.length);
+	});
+
+	// The migrations copy their word lists (history must not change with the live list), so this
+	// is what holds the two together: after every migration has run, each enum column allows
+	// exactly the live list, in its order. Equality, not a superset either way: a value only the
+	// live list has would be refused by the database on insert, and a value only the column has
+	// could be stored but never offered, validated or shown. Adding a value means a migration
+	// that widens the column, and this test fails until there is one.
+	it('leave every enum column holding exactly the live word list', async () => {
+		const columns = await scratch.sequelize.query<{ t: string; c: string; type: string }>(
+			`SELECT TABLE_NAME AS t, COLUMN_NAME AS c, COLUMN_TYPE AS type FROM information_schema.COLUMNS
+			  WHERE TABLE_SCHEMA = DATABASE() AND DATA_TYPE = 'enum'`,
+			{ type: QueryTypes.SELECT }
+		);
+		const allowed = (table: string, column: string) => {
+			const row = columns.find((r) => r.t === table && r.c === column);
+			expect(row, `${table}.${column}`).toBeDefined();
+			// MariaDB writes the type as enum('a','b',...); no value of ours holds a quote.
+			return [...row!.type.matchAll(/'([^']*)'/g)].map((m) => m[1]);
+		};
+		const live: [string, string, readonly string[]][] = [
+			['memberships', 'role', ROLES],
+			['invitations', 'role', ROLES],
+			['assets', 'design_code', DESIGN_CODES],
+			['members', 'requirement_source', DESIGN_CODES],
+			['members', 'member_type', MEMBER_TYPES],
+			['members', 'face', MEMBER_FACES],
+			['surveys', 'status', SURVEY_STATES],
+			['assessments', 'state', ASSESSMENT_STATES],
+			['import_batches', 'state', IMPORT_STATES],
+			['import_batches', 'kind', IMPORT_KINDS],
+			['attachments', 'kind', ATTACHMENT_KINDS],
+			['sync_batches', 'kind', SYNC_KINDS],
+			['chloride_profiles', 'basis', CHLORIDE_BASES]
+		];
+		for (const [table, column, list] of live) {
+			expect(allowed(table, column), `${table}.${column}`).toEqual([...list]);
+		}
 	});
 
 	it('each migration reverts on its own, newest first', async () => {

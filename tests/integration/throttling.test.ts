@@ -7,7 +7,7 @@ import { mailsTo, waitForMail } from '../helpers/mail';
 /**
  * A second copy of the built app that trusts X-Forwarded-For (as behind a proxy), so each test
  * can sign in "from" an address of its own and the shared app's 127.0.0.1 count stays clean.
- * Rules (src/lib/server/auth/throttle-rules.ts): 5 free failures per account from one address,
+ * Rules (src/lib/server/auth/throttleRules.ts): 5 free failures per account from one address,
  * 20 per address; new-password requests 3 per e-mail address and 10 per client address.
  */
 const BEHIND_PROXY = {

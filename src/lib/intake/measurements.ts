@@ -1,5 +1,6 @@
 import { z } from 'zod';
-import { CHLORIDE_BASES, optionalNumber, optionalText, text } from './schemas';
+import { CHLORIDE_BASES } from '$lib/words';
+import { optionalNumber, optionalText, text } from './schemas';
 
 /**
  * Input schemas of the durability measurements taken on a member during a survey: carbonation

@@ -1,4 +1,4 @@
-import { DESIGN_CODES, MEMBER_FACES, MEMBER_TYPES } from './schemas';
+import { DESIGN_CODES, MEMBER_FACES, MEMBER_TYPES } from '$lib/words';
 
 export interface Option {
 	value: string;

@@ -1,6 +1,7 @@
 import { z } from 'zod';
 import { RULE_SETS, type RuleSetName } from '$lib/analysis';
-import { MEMBER_TYPES, optionalNumber, requiredNumber, text } from './schemas';
+import { MEMBER_TYPES } from '$lib/words';
+import { optionalNumber, requiredNumber, text } from './schemas';
 
 /**
  * Input of a survey plan: the settings the rules are planned with and the populations to read.

@@ -1,25 +1,8 @@
 import { z } from 'zod';
+import { DESIGN_CODES, MEMBER_FACES, MEMBER_TYPES } from '$lib/words';
 import { cNomProblem } from './specifiedCover';
 
 /** Input schemas of the intake forms and API, shared by the server and the browser. */
-export const DESIGN_CODES = ['EN 1992-1-1', 'ACI 318', 'project'] as const;
-export const MEMBER_TYPES = ['slab', 'beam', 'column', 'wall', 'footing', 'deck', 'other'] as const;
-export const MEMBER_FACES = ['top', 'bottom', 'side'] as const;
-/** What a chloride content is a percentage of, by mass (measurements.ts converts to binder). */
-export const CHLORIDE_BASES = ['binder', 'concrete'] as const;
-export const EXPOSURE_CLASSES_EN = [
-	'X0',
-	'XC1',
-	'XC2',
-	'XC3',
-	'XC4',
-	'XD1',
-	'XD2',
-	'XD3',
-	'XS1',
-	'XS2',
-	'XS3'
-] as const;
 
 // Optional fields end in a plain schema (the pipe) and a default rather than a bare transform, so
 // that the API document generated from these (src/lib/server/api/openapi) can say what they are:

@@ -3,7 +3,7 @@ import type { LayoutServerLoad } from './$types';
 import { Membership, Organisation } from '$lib/server/db';
 import { can } from '$lib/server/policy';
 import { signInUrl } from '$lib/server/web/guard';
-import { devOutboxEnabled } from '$lib/server/mail/dev-outbox';
+import { devOutboxEnabled } from '$lib/server/mail/devOutbox';
 
 /**
  * The frame of every signed-in page. It only sends signed-out visitors to sign in and says

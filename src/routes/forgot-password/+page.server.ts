@@ -3,10 +3,10 @@ import { z } from 'zod';
 import type { Actions, PageServerLoad } from './$types';
 import { formMessage, parseForm } from '$lib/server/web/forms';
 import { emailSchema } from '$lib/server/auth/schemas';
-import { requestPasswordResetInBackground } from '$lib/server/auth/password-reset';
-import { resetRequestWait } from '$lib/server/auth/reset-throttle';
+import { requestPasswordResetInBackground } from '$lib/server/auth/passwordReset';
+import { resetRequestWait } from '$lib/server/auth/resetThrottle';
 import { clientAddress } from '$lib/server/web/request';
-import { waitInWords } from '$lib/server/auth/throttle-rules';
+import { waitInWords } from '$lib/server/auth/throttleRules';
 
 export const load: PageServerLoad = async ({ url }) => ({ sent: url.searchParams.has('sent') });
 

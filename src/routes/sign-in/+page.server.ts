@@ -2,7 +2,7 @@ import { redirect } from '@sveltejs/kit';
 import type { Actions, PageServerLoad } from './$types';
 import { parseForm, formMessage } from '$lib/server/web/forms';
 import { signInSchema } from '$lib/server/auth/schemas';
-import { attemptSignIn, clientAddress, startSession } from '$lib/server/web/sign-in';
+import { attemptSignIn, clientAddress, startSession } from '$lib/server/web/signIn';
 import { safeNext } from '$lib/server/web/guard';
 
 export const load: PageServerLoad = async ({ locals, url }) => {

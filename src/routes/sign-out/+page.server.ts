@@ -1,6 +1,6 @@
 import { redirect } from '@sveltejs/kit';
 import type { Actions, PageServerLoad } from './$types';
-import { endSessions } from '$lib/server/web/sign-in';
+import { endSessions } from '$lib/server/web/signIn';
 import { recordAudit } from '$lib/server/audit';
 
 // Signing out is a POST (a link could be followed by a prefetch or a stranger's page).

@@ -3,7 +3,7 @@ import type { Actions, PageServerLoad } from './$types';
 import { formMessage, parseForm } from '$lib/server/web/forms';
 import { signUpSchema } from '$lib/server/auth/schemas';
 import { createAccountWithOrganisation, EmailTakenError } from '$lib/server/auth/accounts';
-import { startSession } from '$lib/server/web/sign-in';
+import { startSession } from '$lib/server/web/signIn';
 
 export const load: PageServerLoad = async ({ locals }) => {
 	if (locals.user) redirect(303, '/dashboard');

@@ -1,5 +1,5 @@
 import { z } from 'zod';
-import { IMPORT_STATES } from '../db/migrations/003-readings';
+import { IMPORT_STATES } from '$lib/words';
 import type { ImportStatus } from '../import/batchActions';
 import type { UploadResult } from '../import/batches';
 import type { CheckedRow } from '../import/checkRows';

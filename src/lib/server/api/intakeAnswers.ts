@@ -5,8 +5,7 @@ import {
 	chlorideIncrementSchema,
 	chlorideProfileSchema
 } from '$lib/intake/measurements';
-import { ATTACHMENT_KINDS } from '../db/migrations/003-readings';
-import { SURVEY_STATES } from '../db/migrations/002-surveys';
+import { ATTACHMENT_KINDS, SURVEY_STATES } from '$lib/words';
 
 /**
  * Shapes of intake's write answers. A saved record is what its create/edit body became (the same

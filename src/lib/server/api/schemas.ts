@@ -1,10 +1,5 @@
 import { z } from 'zod';
-import {
-	DESIGN_CODES,
-	MEMBER_FACES,
-	MEMBER_TYPES,
-	SURVEY_STATES
-} from '../db/migrations/002-surveys';
+import { DESIGN_CODES, MEMBER_FACES, MEMBER_TYPES, SURVEY_STATES } from '$lib/words';
 
 /**
  * Shapes of the API's read answers for an organisation's own (or shared) records. The routes

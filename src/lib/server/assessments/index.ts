@@ -1,4 +1,4 @@
-/** Assessment snapshots and their sign-off. Issue 7 reads AssessmentSnapshot. */
+/** Assessment snapshots and their sign-off; the risk view and the report read AssessmentSnapshot. */
 export * from './snapshot';
 export * from './service';
 export * from './present';

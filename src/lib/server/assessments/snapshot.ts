@@ -1,6 +1,6 @@
 /**
  * The assessment snapshot: everything an approved assessment says, frozen as JSON text with its
- * sha256. Issue 7 renders the owner's risk view and the PDF from it, so it carries what they
+ * sha256. The owner's risk view and the PDF are rendered from it, so it carries what they
  * need without the readings: populations with the engine's full results and chart data, the
  * methods and parameters chosen, the asset and survey identity, the meter verification and the
  * engine version. It is never altered after approval (service.ts, Assessment model hook and the

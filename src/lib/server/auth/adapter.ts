@@ -1,5 +1,4 @@
 import { Op } from 'sequelize';
-import type { Adapter, DatabaseSession, DatabaseUser } from 'lucia';
 import { Session, User } from '../db/models';
 import { hashSecret } from './secrets';
 
@@ -11,12 +10,27 @@ export function storedSessionId(sessionId: string): string {
 	return hashSecret(sessionId);
 }
 
+/** A stored session in the shape the session layer (session.ts) reads. */
+export interface DatabaseSession {
+	id: string;
+	userId: number;
+	expiresAt: Date;
+	attributes: { userAgent: string | null; ipAddress: string | null };
+}
+
+/** A session's user in the shape the session layer reads. */
+export interface DatabaseUser {
+	id: number;
+	attributes: { email: string; displayName: string };
+}
+
 /**
- * Lucia's storage over our own Sequelize models (lucia v3 leaves storage to the app).
- * Sessions live in MariaDB, so several app processes can share them (issue 9). Lucia hands us
- * the cookie's value; we hash it on the way in and never store it.
+ * Session storage over our own Sequelize models, for the session layer in session.ts (which
+ * hands it to lucia; the types here are our own, so replacing lucia leaves this file as it is).
+ * Sessions live in MariaDB, so several app processes can share them. The session layer hands
+ * us the cookie's value; we hash it on the way in and never store it.
  */
-export class SequelizeSessionAdapter implements Adapter {
+export class SequelizeSessionAdapter {
 	async getSessionAndUser(
 		sessionId: string
 	): Promise<[session: DatabaseSession | null, user: DatabaseUser | null]> {
@@ -28,11 +42,11 @@ export class SequelizeSessionAdapter implements Adapter {
 		});
 		if (!row) return [null, null];
 		const user = (row as Session & { User?: User }).User ?? null;
-		// Lucia compares and refreshes by the id it was given, so hand back the cookie's value.
+		// The session layer compares and refreshes by the id it was given, so hand back the cookie's value.
 		return [{ ...toDatabaseSession(row), id: sessionId }, user ? toDatabaseUser(user) : null];
 	}
 
-	/** Ids here are the stored hashes: lucia only lists them, we never turn them into cookies. */
+	/** Ids here are the stored hashes: the session layer only lists them, we never turn them into cookies. */
 	async getUserSessions(userId: number): Promise<DatabaseSession[]> {
 		const rows = await Session.findAll({ where: { userId } });
 		return rows.map(toDatabaseSession);

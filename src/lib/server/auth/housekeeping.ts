@@ -2,8 +2,8 @@ import { building } from '$app/environment';
 import { Op, QueryTypes } from 'sequelize';
 import { db } from '../db';
 import { SignInThrottle } from '../db/models';
-import { lucia } from './lucia';
-import { FAILURE_WINDOW_SECONDS } from './throttle-rules';
+import { deleteExpiredSessions } from './session';
+import { FAILURE_WINDOW_SECONDS } from './throttleRules';
 
 const EVERY_MS = 60 * 60 * 1000;
 let timer: NodeJS.Timeout | null = null;
@@ -25,7 +25,7 @@ export function stopAuthHousekeeping(): void {
 
 async function sweep(): Promise<void> {
 	try {
-		await lucia().deleteExpiredSessions();
+		await deleteExpiredSessions();
 		const forgotten = new Date(Date.now() - FAILURE_WINDOW_SECONDS * 1000);
 		await SignInThrottle.destroy({
 			where: {

@@ -1,6 +1,6 @@
 import { z } from 'zod';
-import { ROLES } from '../db/migrations/001-accounts';
-import { newPasswordSchema } from './password-rules';
+import { ROLES } from '$lib/words';
+import { newPasswordSchema } from './passwordRules';
 
 export const emailSchema = z
 	.string()

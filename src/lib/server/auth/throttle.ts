@@ -2,7 +2,7 @@ import { createHash } from 'node:crypto';
 import { Op, QueryTypes, type Transaction } from 'sequelize';
 import { db } from '../db';
 import { SignInThrottle } from '../db/models';
-import { FAILURE_WINDOW_SECONDS, lockSeconds, type ThrottleScope } from './throttle-rules';
+import { FAILURE_WINDOW_SECONDS, lockSeconds, type ThrottleScope } from './throttleRules';
 
 export interface ThrottleKey {
 	scope: ThrottleScope;
@@ -15,7 +15,7 @@ function accountPart(email: string): string {
 }
 
 /**
- * The 'account' key is an account as tried from one address (throttle-rules.ts): failures from
+ * The 'account' key is an account as tried from one address (throttleRules.ts): failures from
  * a stranger's address lock that address out of the account, never its owner elsewhere.
  */
 export function accountKey(email: string, address: string): ThrottleKey {
@@ -30,7 +30,7 @@ export async function clearAccountFailures(email: string, transaction?: Transact
 	});
 }
 
-/** The latest lock in force for any of the keys, or null. Counters live in MariaDB (issue 9). */
+/** The latest lock in force for any of the keys, or null. Counters live in MariaDB, shared by every app process. */
 export async function lockedUntil(keys: ThrottleKey[]): Promise<Date | null> {
 	let latest: Date | null = null;
 	for (const key of keys) {

@@ -3,7 +3,7 @@ import {
 	type ExposureClass,
 	type StructuralClass
 } from '$lib/analysis/requirements/en1992';
-import { EXPOSURE_CLASSES_EN } from '$lib/intake/schemas';
+import { EXPOSURE_CLASSES_EN } from '$lib/words';
 
 const STRUCTURAL_CLASSES = ['S1', 'S2', 'S3', 'S4', 'S5', 'S6'];
 

@@ -1,4 +1,4 @@
-/** Populations: gathered with SQL, judged by the engine. The seam issues 7 and 9 call. */
+/** Populations: gathered with SQL, judged by the engine. The seam the risk view, reports and API call. */
 export * from './access';
 export * from './detail';
 export * from './mixture';

@@ -5,7 +5,7 @@
 import { apiError } from '$lib/server/web/http';
 import { z } from 'zod';
 import { RULE_SETS, type AssessOptions, type RuleSetName } from '$lib/analysis';
-import { MEMBER_FACES, MEMBER_TYPES } from '$lib/server/db/migrations/002-surveys';
+import { MEMBER_FACES, MEMBER_TYPES } from '$lib/words';
 
 /** Groups are member type × exposure class, optionally split further by one of these. */
 export const SPLITS = ['none', 'face', 'survey', 'member'] as const;

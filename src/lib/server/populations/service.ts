@@ -1,7 +1,7 @@
 /**
  * The one place that turns readings into judged populations: gather with SQL (groups.ts),
  * requirement from the members (requirement.ts), figures from the engine — never computed here.
- * Issue 7 (risk) and issue 9 (load) call these functions.
+ * The risk view, the reports and the API call these functions.
  */
 import { assessPopulation, ENGINE_VERSION, type PopulationAssessment } from '$lib/analysis';
 import { gatherGroups, keyId, type GatheredGroup, type PopulationKey } from './groups';

@@ -1,5 +1,5 @@
 import { z } from 'zod';
-import { DESIGN_CODES, MEMBER_FACES, MEMBER_TYPES } from '../db/migrations/002-surveys';
+import { DESIGN_CODES, MEMBER_FACES, MEMBER_TYPES } from '$lib/words';
 
 /**
  * The research selection: which opted-in readings a view, statistic or export covers. Every

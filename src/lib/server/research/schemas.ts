@@ -1,5 +1,5 @@
 import { z } from 'zod';
-import { DESIGN_CODES, MEMBER_FACES, MEMBER_TYPES } from '../db/migrations/002-surveys';
+import { DESIGN_CODES, MEMBER_FACES, MEMBER_TYPES } from '$lib/words';
 
 /**
  * What a research reading is, field by field: the one definition behind the CSV and JSON Lines

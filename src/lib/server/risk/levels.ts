@@ -1,17 +1,10 @@
-/**
- * Risk levels in our own plain words, each with a one-sentence reason. The level is carried by
- * its words (and an order), never by colour alone; pages may add a colour beside the words.
- */
-export const RISK_LEVELS = ['act-now', 'plan-repairs', 'keep-watching', 'low-concern'] as const;
-export type RiskLevel = (typeof RISK_LEVELS)[number] | 'not-judged';
+import { RISK_WORDS, type RiskLevel } from '$lib/words';
 
-export const RISK_WORDS: Record<RiskLevel, string> = {
-	'act-now': 'Act now',
-	'plan-repairs': 'Plan repairs',
-	'keep-watching': 'Keep watching',
-	'low-concern': 'Low concern',
-	'not-judged': 'Not judged'
-};
+/**
+ * Risk levels (their words are in $lib/words), each with a one-sentence reason. The level is
+ * carried by its words (and an order), never by colour alone; pages may add a colour beside.
+ */
+export { RISK_WORDS, type RiskLevel };
 
 /** Higher is worse; used to rank. */
 export const RISK_SEVERITY: Record<RiskLevel, number> = {

@@ -1,8 +1,7 @@
 /**
  * What the risk view and the report need from an approved assessment, as a narrow interface of
- * our own. It mirrors the fields of issue 6's AssessmentSnapshot (src/lib/server/assessments,
- * branch `pages`) that we read; `fromSnapshot` is the one adapter, so when that type lands on
- * main only this file changes.
+ * our own over the fields of AssessmentSnapshot (src/lib/server/assessments) that we read;
+ * `fromSnapshot` is the one adapter, so a change to the snapshot's shape changes only this file.
  */
 import type { MeterVerification, PopulationAssessment } from '$lib/analysis';
 import type { LowAreaSummary } from '$lib/words';
@@ -35,7 +34,7 @@ export interface HoleLike {
 	method: string | null;
 }
 
-/** The subset of issue 6's AssessmentSnapshot read here. */
+/** The subset of AssessmentSnapshot read here. */
 export interface SnapshotLike {
 	engineVersion: string;
 	computedAt: string;
@@ -76,7 +75,7 @@ export interface ReportSource {
 	snapshot: SnapshotLike;
 }
 
-/** Parse the stored snapshot text into the fields we read (written by issue 6's builder). */
+/** Parse the stored snapshot text into the fields we read (written by the assessments' snapshot builder). */
 export function fromSnapshot(text: string): SnapshotLike {
 	const parsed = JSON.parse(text) as SnapshotLike;
 	if (!parsed || !Array.isArray(parsed.populations) || !parsed.asset) {

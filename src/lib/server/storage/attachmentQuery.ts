@@ -1,5 +1,5 @@
 import { z } from 'zod';
-import { ATTACHMENT_KINDS } from '../db/migrations/003-readings';
+import { ATTACHMENT_KINDS } from '$lib/words';
 
 /** An attachment upload's query: the file itself is the request body, so its details come here. */
 export const attachmentUploadQuerySchema = z.object({

@@ -1,8 +1,8 @@
 import type { RequestEvent } from '@sveltejs/kit';
-import type { Cookie } from 'lucia';
+import type { SessionCookie } from '../auth/session';
 
-/** Sets a cookie lucia made (name, value, attributes) through SvelteKit's cookie API. */
-export function setCookie(event: Pick<RequestEvent, 'cookies'>, cookie: Cookie): void {
+/** Sets a cookie the session layer made (name, value, attributes) through SvelteKit's cookie API. */
+export function setCookie(event: Pick<RequestEvent, 'cookies'>, cookie: SessionCookie): void {
 	event.cookies.set(cookie.name, cookie.value, { path: '/', ...cookie.attributes });
 }
 

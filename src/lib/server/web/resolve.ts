@@ -1,8 +1,13 @@
 import type { RequestEvent } from '@sveltejs/kit';
 import { User } from '../db/models';
-import { lucia } from '../auth/lucia';
+import {
+	blankSessionCookie,
+	SESSION_COOKIE,
+	sessionCookie,
+	validateSession
+} from '../auth/session';
 import { activeMembership, membershipIn } from '../auth/membership';
-import { verifyApiToken } from '../auth/api-tokens';
+import { verifyApiToken } from '../auth/apiTokens';
 import { lockedUntil, recordFailure } from '../auth/throttle';
 import { clientAddress, setCookie } from './request';
 
@@ -53,16 +58,16 @@ async function resolveToken(event: RequestEvent, secret: string): Promise<Date |
 }
 
 async function resolveSession(event: RequestEvent): Promise<void> {
-	const auth = lucia();
-	const sessionId = event.cookies.get(auth.sessionCookieName);
+	const sessionId = event.cookies.get(SESSION_COOKIE);
 	if (!sessionId) return;
-	const { session, user } = await auth.validateSession(sessionId);
-	if (!session) {
-		setCookie(event, auth.createBlankSessionCookie());
+	const valid = await validateSession(sessionId);
+	if (!valid) {
+		setCookie(event, blankSessionCookie());
 		return;
 	}
-	// Sliding expiry: lucia moved the expiry on; send the cookie again with the new date.
-	if (session.fresh) setCookie(event, auth.createSessionCookie(session.id));
+	const { session, user } = valid;
+	// Sliding expiry: the session layer moved the expiry on; send the cookie again with the new date.
+	if (session.fresh) setCookie(event, sessionCookie(session.id));
 	const row = await User.findByPk(user.id, { attributes: ['activeOrganisationId'] });
 	event.locals.user = { id: user.id, email: user.email, displayName: user.displayName };
 	event.locals.session = { id: session.id, expiresAt: session.expiresAt, fresh: session.fresh };

@@ -4,7 +4,7 @@ import { pageActor } from '$lib/server/web/guard';
 import { authorize } from '$lib/server/web/actor';
 import { formMessage, parseForm } from '$lib/server/web/forms';
 import { changePasswordSchema } from '$lib/server/auth/schemas';
-import { changePassword } from '$lib/server/auth/password-change';
+import { changePassword } from '$lib/server/auth/passwordChange';
 
 export const load: PageServerLoad = async (event) => {
 	pageActor(event, 'account:manage');

@@ -3,7 +3,7 @@ import type { Actions, PageServerLoad } from './$types';
 import { formMessage, parseForm } from '$lib/server/web/forms';
 import { acceptInvitationSchema } from '$lib/server/auth/schemas';
 import { acceptInvitation, findOpenInvitation } from '$lib/server/auth/invitations';
-import { startSession } from '$lib/server/web/sign-in';
+import { startSession } from '$lib/server/web/signIn';
 import { requireActor } from '$lib/server/web/actor';
 
 const GONE = 'This invitation has expired, was withdrawn or was already used.';

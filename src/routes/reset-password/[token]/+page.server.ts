@@ -2,7 +2,7 @@ import { redirect } from '@sveltejs/kit';
 import type { Actions, PageServerLoad } from './$types';
 import { formMessage, parseForm } from '$lib/server/web/forms';
 import { resetPasswordSchema } from '$lib/server/auth/schemas';
-import { completePasswordReset, findUsableReset } from '$lib/server/auth/password-reset';
+import { completePasswordReset, findUsableReset } from '$lib/server/auth/passwordReset';
 
 export const load: PageServerLoad = async ({ params }) => ({
 	usable: (await findUsableReset(params.token)) !== null

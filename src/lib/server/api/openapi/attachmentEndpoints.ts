@@ -11,7 +11,7 @@ import { exampleMeterFile } from './intakeExamples';
 const MB = 1024 * 1024;
 const STORAGE_DOWN = 'Object storage cannot be reached; nothing was saved. Try again later.';
 
-/** Files kept with a survey as evidence (issue 5): stored in object storage, read through the API. */
+/** Files kept with a survey as evidence: stored in object storage, read through the API. */
 export const attachmentEndpoints: Endpoint[] = [
 	{
 		method: 'post',

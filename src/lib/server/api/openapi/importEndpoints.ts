@@ -19,7 +19,7 @@ const MB = 1024 * 1024;
 const batchParams = recordParams('batch', 'import');
 
 /**
- * Readings (issue 5): typed in, or imported from a meter's CSV or XLSX in two steps (upload →
+ * Readings: typed in, or imported from a meter's CSV or XLSX in two steps (upload →
  * preview, then start with the mapping), followed, their refused rows fetched, undone.
  */
 export const importEndpoints: Endpoint[] = [

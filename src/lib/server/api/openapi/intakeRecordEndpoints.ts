@@ -27,7 +27,7 @@ const MEMBER_400 =
 const HOLE_400 = 'Invalid input (`field` names it), or a hole label already on the member.';
 
 /**
- * Intake's record writes (issue 5): the bodies are the create/edit forms' own schemas
+ * Intake's record writes: the bodies are the create/edit forms' own schemas
  * (src/lib/intake/schemas.ts). An edit (PUT) takes the whole record, as the form does.
  * Each example follows from the one before (intakeExamples.ts): an asset, then its survey…
  */

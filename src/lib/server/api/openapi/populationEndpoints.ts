@@ -5,7 +5,7 @@ import { idParam } from '../schemas';
 import type { Endpoint } from './endpoint';
 
 /**
- * The population pages' endpoints (issue 6), documented here from their own query schemas.
+ * The population pages' endpoints, documented here from their own query schemas.
  * Their answers are the analysis engine's results, documented as objects rather than field by
  * field (docs/analysis.md describes them).
  */

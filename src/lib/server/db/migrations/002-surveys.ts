@@ -2,10 +2,11 @@ import { DataTypes } from 'sequelize';
 import { createdAt, idColumn, reference, tableOptions, timestamps } from './columns';
 import type { Migration } from './types';
 
-export const DESIGN_CODES = ['EN 1992-1-1', 'ACI 318', 'project'] as const;
-export const MEMBER_TYPES = ['slab', 'beam', 'column', 'wall', 'footing', 'deck', 'other'] as const;
-export const MEMBER_FACES = ['top', 'bottom', 'side'] as const;
-export const SURVEY_STATES = ['draft', 'submitted', 'approved', 'returned'] as const;
+// Copied literals, not imported: a migration must not change when the live word lists do.
+const DESIGN_CODES = ['EN 1992-1-1', 'ACI 318', 'project'] as const;
+const MEMBER_TYPES = ['slab', 'beam', 'column', 'wall', 'footing', 'deck', 'other'] as const;
+const MEMBER_FACES = ['top', 'bottom', 'side'] as const;
+const SURVEY_STATES = ['draft', 'submitted', 'approved', 'returned'] as const;
 
 const mm = (allowNull = true) => ({ type: DataTypes.DOUBLE, allowNull });
 

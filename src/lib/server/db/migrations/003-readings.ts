@@ -2,15 +2,9 @@ import { DataTypes } from 'sequelize';
 import { createdAt, idColumn, reference, tableOptions } from './columns';
 import type { Migration } from './types';
 
-export const IMPORT_STATES = [
-	'pending',
-	'running',
-	'completed',
-	'failed',
-	'cancelled',
-	'undone'
-] as const;
-export const ATTACHMENT_KINDS = ['photo', 'drawing', 'meter-file', 'other'] as const;
+// Copied literals, not imported: a migration must not change when the live word lists do.
+const IMPORT_STATES = ['pending', 'running', 'completed', 'failed', 'cancelled', 'undone'] as const;
+const ATTACHMENT_KINDS = ['photo', 'drawing', 'meter-file', 'other'] as const;
 
 /** Cover readings, the import batches that brought them, check holes, attachments, templates. */
 export const readings: Migration = {

@@ -2,7 +2,8 @@ import { DataTypes } from 'sequelize';
 import { createdAt, idColumn, reference, tableOptions } from './columns';
 import type { Migration } from './types';
 
-export const ASSESSMENT_STATES = ['draft', 'approved', 'superseded'] as const;
+// Copied literals, not imported: a migration must not change when the live word lists do.
+const ASSESSMENT_STATES = ['draft', 'approved', 'superseded'] as const;
 
 /** Signed-off assessments, shared report links, research exports and the audit trail. */
 export const assessments: Migration = {

@@ -3,9 +3,9 @@ import { createdAt, idColumn, reference, tableOptions } from './columns';
 import type { Migration } from './types';
 
 /**
- * The risk annex of an assessment (issue 7): the engineer's durability parameters and the
+ * The risk annex of an assessment: the engineer's durability parameters and the
  * figures computed from them with the population's readings, frozen with the assessment. The
- * snapshot of issue 6 carries no readings, so the projections (which need every cover) are
+ * assessment's snapshot carries no readings, so the projections (which need every cover) are
  * computed while the assessment is a draft and kept here; a trigger refuses to change or
  * delete the annex once its assessment has left the draft state.
  */

@@ -3,8 +3,8 @@ import { reference, tableOptions } from './columns';
 import type { Migration } from './types';
 
 /**
- * Readings become cheap to write and populations cheap to read (docs/performance.md, issues 5
- * and 6). Measured with LOAD DATA of a million readings on this layout's predecessor: each
+ * Readings become cheap to write and populations cheap to read (docs/performance.md, Import
+ * and Pages). Measured with LOAD DATA of a million readings on this layout's predecessor: each
  * secondary index on readings cost 2.5–4.5 s and the import batch's foreign key about 1 s, so:
  * - readings are stored clustered by member: primary key (member_id, id), and no secondary
  *   index at all (one B-tree to write per reading). The id is still unique and increasing, from

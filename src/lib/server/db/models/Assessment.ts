@@ -6,7 +6,7 @@ import {
 	type InferCreationAttributes,
 	type Sequelize
 } from 'sequelize';
-import { ASSESSMENT_STATES } from '../migrations/004-assessments';
+import { ASSESSMENT_STATES } from '../../../words';
 
 export type AssessmentState = (typeof ASSESSMENT_STATES)[number];
 

@@ -6,7 +6,7 @@ import {
 	type InferCreationAttributes,
 	type Sequelize
 } from 'sequelize';
-import { DESIGN_CODES } from '../migrations/002-surveys';
+import { DESIGN_CODES } from '../../../words';
 
 export type DesignCode = (typeof DESIGN_CODES)[number];
 export type UnitSystem = 'mm' | 'inch';

@@ -6,7 +6,7 @@ import {
 	type InferCreationAttributes,
 	type Sequelize
 } from 'sequelize';
-import { ATTACHMENT_KINDS } from '../migrations/003-readings';
+import { ATTACHMENT_KINDS } from '../../../words';
 
 export type AttachmentKind = (typeof ATTACHMENT_KINDS)[number];
 

@@ -7,9 +7,10 @@ import {
 	type NonAttribute,
 	type Sequelize
 } from 'sequelize';
+import { CHLORIDE_BASES } from '../../../words';
 import type { ChlorideIncrement } from './ChlorideIncrement';
 
-export type ChlorideBasis = 'binder' | 'concrete';
+export type ChlorideBasis = (typeof CHLORIDE_BASES)[number];
 
 /**
  * A chloride profile taken on a member (dust or slices at depth increments, analysed for
@@ -46,7 +47,7 @@ export class ChlorideProfile extends Model<
 				xMm: { type: DataTypes.DOUBLE, allowNull: true },
 				yMm: { type: DataTypes.DOUBLE, allowNull: true },
 				testedOn: { type: DataTypes.DATEONLY, allowNull: false },
-				basis: { type: DataTypes.ENUM('binder', 'concrete'), allowNull: false },
+				basis: { type: DataTypes.ENUM(...CHLORIDE_BASES), allowNull: false },
 				binderContentKgM3: { type: DataTypes.DOUBLE, allowNull: true },
 				concreteDensityKgM3: { type: DataTypes.DOUBLE, allowNull: true },
 				initialContentPercent: { type: DataTypes.DOUBLE, allowNull: true },

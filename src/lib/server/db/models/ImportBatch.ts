@@ -6,10 +6,8 @@ import {
 	type InferCreationAttributes,
 	type Sequelize
 } from 'sequelize';
-import { IMPORT_STATES } from '../migrations/003-readings';
+import { IMPORT_KINDS, IMPORT_STATES } from '../../../words';
 
-/** What an import's file holds (migration 016). */
-export const IMPORT_KINDS = ['readings', 'carbonation', 'chloride'] as const;
 export type ImportKind = (typeof IMPORT_KINDS)[number];
 
 export type ImportState = (typeof IMPORT_STATES)[number];

@@ -6,7 +6,7 @@ import {
 	type InferCreationAttributes,
 	type Sequelize
 } from 'sequelize';
-import { ROLES } from '../migrations/001-accounts';
+import { ROLES } from '../../../words';
 import type { Role } from './Membership';
 
 /** An invitation to join an organisation with a role; single use, the link's secret hashed. */

@@ -6,7 +6,7 @@ import {
 	type InferCreationAttributes,
 	type Sequelize
 } from 'sequelize';
-import { DESIGN_CODES, MEMBER_FACES, MEMBER_TYPES } from '../migrations/002-surveys';
+import { DESIGN_CODES, MEMBER_FACES, MEMBER_TYPES } from '../../../words';
 import type { DesignCode } from './Asset';
 
 export type MemberType = (typeof MEMBER_TYPES)[number];

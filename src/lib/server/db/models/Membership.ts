@@ -6,9 +6,9 @@ import {
 	type InferCreationAttributes,
 	type Sequelize
 } from 'sequelize';
-import { ROLES } from '../migrations/001-accounts';
+import { ROLES, type Role } from '../../../words';
 
-export type Role = (typeof ROLES)[number];
+export type { Role };
 
 /** A user's role in one organisation; a user may belong to several. */
 export class Membership extends Model<

@@ -6,7 +6,7 @@ import {
 	type InferCreationAttributes,
 	type Sequelize
 } from 'sequelize';
-import { SURVEY_STATES } from '../migrations/002-surveys';
+import { SURVEY_STATES } from '../../../words';
 
 export type SurveyState = (typeof SURVEY_STATES)[number];
 

@@ -6,8 +6,8 @@ import {
 	type InferCreationAttributes,
 	type Sequelize
 } from 'sequelize';
+import { SYNC_KINDS } from '../../../words';
 
-export const SYNC_KINDS = ['entries', 'photo'] as const;
 export type SyncKind = (typeof SYNC_KINDS)[number];
 
 /** A batch of site entries received from a device, under the id the device gave it. */

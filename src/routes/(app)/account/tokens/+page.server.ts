@@ -4,10 +4,10 @@ import type { Actions, PageServerLoad } from './$types';
 import { pageActor } from '$lib/server/web/guard';
 import { authorize } from '$lib/server/web/actor';
 import { fieldErrors, safeValues } from '$lib/server/web/forms';
-import { listApiTokens, TOKEN_MAX_DAYS } from '$lib/server/auth/api-tokens';
-import { createTokenSchema, idParamSchema } from '$lib/server/auth/token-schemas';
-import { createTokenFor, revokeTokenOf } from '$lib/server/auth/token-actions';
-import { clientAddress } from '$lib/server/web/sign-in';
+import { listApiTokens, TOKEN_MAX_DAYS } from '$lib/server/auth/apiTokens';
+import { createTokenSchema, idParamSchema } from '$lib/server/auth/tokenSchemas';
+import { createTokenFor, revokeTokenOf } from '$lib/server/auth/tokenActions';
+import { clientAddress } from '$lib/server/web/signIn';
 
 export const load: PageServerLoad = async (event) => {
 	const actor = pageActor(event, 'token:manage');

@@ -1,7 +1,7 @@
 import { error } from '@sveltejs/kit';
 import type { PageServerLoad } from './$types';
 import { pageActor } from '$lib/server/web/guard';
-import { devOutboxEnabled, devOutboxFor } from '$lib/server/mail/dev-outbox';
+import { devOutboxEnabled, devOutboxFor } from '$lib/server/mail/devOutbox';
 
 /** The signed-in user's own mail, as the local mail fake received it (development and demo only). */
 export const load: PageServerLoad = async (event) => {

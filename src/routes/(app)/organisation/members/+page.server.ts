@@ -5,7 +5,7 @@ import { pageActor } from '$lib/server/web/guard';
 import { authorize } from '$lib/server/web/actor';
 import { formMessage, parseForm } from '$lib/server/web/forms';
 import { inviteSchema, roleSchema } from '$lib/server/auth/schemas';
-import { idParamSchema } from '$lib/server/auth/token-schemas';
+import { idParamSchema } from '$lib/server/auth/tokenSchemas';
 import {
 	AlreadyMemberError,
 	inviteToOrganisation,

@@ -2,10 +2,10 @@ import { json } from '@sveltejs/kit';
 import type { RequestHandler } from './$types';
 import { authorize } from '$lib/server/web/actor';
 import { readJson } from '$lib/server/web/http';
-import { listApiTokens } from '$lib/server/auth/api-tokens';
-import { createTokenSchema } from '$lib/server/auth/token-schemas';
-import { createTokenFor } from '$lib/server/auth/token-actions';
-import { clientAddress } from '$lib/server/web/sign-in';
+import { listApiTokens } from '$lib/server/auth/apiTokens';
+import { createTokenSchema } from '$lib/server/auth/tokenSchemas';
+import { createTokenFor } from '$lib/server/auth/tokenActions';
+import { clientAddress } from '$lib/server/web/signIn';
 
 /** The caller's own tokens (never their secrets). */
 export const GET: RequestHandler = async ({ locals }) => {

@@ -2,7 +2,7 @@ import { error } from '@sveltejs/kit';
 import type { PageServerLoad } from './$types';
 import { pageActor } from '$lib/server/web/guard';
 import { AuditEvent } from '$lib/server/db';
-import { idParamSchema } from '$lib/server/auth/token-schemas';
+import { idParamSchema } from '$lib/server/auth/tokenSchemas';
 import { listMembers } from '$lib/server/organisation/members';
 
 /** One member of the active organisation and what they did in it lately. */

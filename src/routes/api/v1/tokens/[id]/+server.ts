@@ -2,9 +2,9 @@ import { json } from '@sveltejs/kit';
 import type { RequestHandler } from './$types';
 import { authorize } from '$lib/server/web/actor';
 import { apiError } from '$lib/server/web/http';
-import { idParamSchema } from '$lib/server/auth/token-schemas';
-import { revokeTokenOf } from '$lib/server/auth/token-actions';
-import { clientAddress } from '$lib/server/web/sign-in';
+import { idParamSchema } from '$lib/server/auth/tokenSchemas';
+import { revokeTokenOf } from '$lib/server/auth/tokenActions';
+import { clientAddress } from '$lib/server/web/signIn';
 
 /** Revokes one of the caller's tokens; anyone else's is "not found", never "forbidden". */
 export const DELETE: RequestHandler = async (event) => {

@@ -5,7 +5,7 @@ import { authorize } from '$lib/server/web/actor';
 import type { Actor } from '$lib/server/policy';
 import { apiError, readJson } from '$lib/server/web/http';
 import { roleSchema } from '$lib/server/auth/schemas';
-import { idParamSchema } from '$lib/server/auth/token-schemas';
+import { idParamSchema } from '$lib/server/auth/tokenSchemas';
 import { changeRole, LastAdminError, removeMember } from '$lib/server/organisation/members';
 
 const patchSchema = z.object({ role: roleSchema });

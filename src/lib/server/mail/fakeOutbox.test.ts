@@ -2,7 +2,7 @@ import { describe, expect, it } from 'vitest';
 import { mkdtemp, rm, writeFile } from 'node:fs/promises';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
-import { addressesIn, parseMail, readFakeOutbox } from './fake-outbox';
+import { addressesIn, parseMail, readFakeOutbox } from './fakeOutbox';
 
 describe('parseMail', () => {
 	it('reads headers and decodes a quoted-printable body', () => {

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { newPasswordSchema } from './password-rules';
+import { newPasswordSchema } from './passwordRules';
 
 const message = (password: string) =>
 	newPasswordSchema.safeParse(password).error?.issues[0]?.message ?? null;

@@ -1,6 +1,6 @@
 import { env } from '$env/dynamic/private';
 import { User } from '../db/models';
-import { readFakeOutbox, type FakeMail } from './fake-outbox';
+import { readFakeOutbox, type FakeMail } from './fakeOutbox';
 
 /**
  * The development outbox shows what the local SMTP fake received. It exists only where the

@@ -4,7 +4,7 @@ import { Op } from 'sequelize';
 import { recordAudit } from '../audit';
 import { hashPassword, verifyPassword } from './password';
 import { storedSessionId } from './adapter';
-import { revokeAllApiTokens } from './api-tokens';
+import { revokeAllApiTokens } from './apiTokens';
 
 /**
  * Changes a password after checking the current one, signs out every other device and revokes

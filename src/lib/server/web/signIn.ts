@@ -2,7 +2,12 @@ import type { RequestEvent } from '@sveltejs/kit';
 import { User } from '../db/models';
 import { recordAudit } from '../audit';
 import { hashPassword, verifyPassword } from '../auth/password';
-import { lucia } from '../auth/lucia';
+import {
+	blankSessionCookie,
+	createSession,
+	invalidateSession,
+	invalidateUserSessions
+} from '../auth/session';
 import { clientAddress, setCookie } from './request';
 import {
 	accountKey,
@@ -11,7 +16,7 @@ import {
 	recordFailure,
 	type ThrottleKey
 } from '../auth/throttle';
-import { lockedMessage, retryAfterSeconds } from '../auth/throttle-rules';
+import { lockedMessage, retryAfterSeconds } from '../auth/throttleRules';
 
 export { clientAddress };
 
@@ -68,18 +73,16 @@ export async function attemptSignIn(
 
 /** Starts a session for the user on this device and sets its cookie. */
 export async function startSession(event: RequestEvent, userId: number): Promise<void> {
-	const auth = lucia();
-	const session = await auth.createSession(userId, {
+	const cookie = await createSession(userId, {
 		userAgent: (event.request.headers.get('user-agent') ?? '').slice(0, 255) || null,
 		ipAddress: clientAddress(event)
 	});
-	setCookie(event, auth.createSessionCookie(session.id));
+	setCookie(event, cookie);
 }
 
 /** Ends this device's session (or all of the user's) and clears the cookie. */
 export async function endSessions(event: RequestEvent, everywhere: boolean): Promise<void> {
-	const auth = lucia();
-	if (everywhere && event.locals.user) await auth.invalidateUserSessions(event.locals.user.id);
-	else if (event.locals.session) await auth.invalidateSession(event.locals.session.id);
-	setCookie(event, auth.createBlankSessionCookie());
+	if (everywhere && event.locals.user) await invalidateUserSessions(event.locals.user.id);
+	else if (event.locals.session) await invalidateSession(event.locals.session.id);
+	setCookie(event, blankSessionCookie());
 }

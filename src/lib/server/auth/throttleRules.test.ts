@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { lockedMessage, lockSeconds, MAX_DELAY_SECONDS } from './throttle-rules';
+import { lockedMessage, lockSeconds, MAX_DELAY_SECONDS } from './throttleRules';
 
 describe('lockSeconds', () => {
 	it('lets the first 5 account failures pass, then doubles from 30 s up to 15 minutes', () => {

@@ -6,7 +6,7 @@ import { queueMail } from '../mail';
 import { passwordResetMail } from '../mail/templates';
 import { hashPassword } from './password';
 import { hashSecret, newSecret } from './secrets';
-import { revokeAllApiTokens } from './api-tokens';
+import { revokeAllApiTokens } from './apiTokens';
 import { clearAccountFailures } from './throttle';
 
 export const RESET_LIFETIME_MS = 60 * 60 * 1000;

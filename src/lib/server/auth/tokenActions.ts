@@ -1,7 +1,7 @@
 import { db } from '../db';
 import { recordAudit } from '../audit';
 import type { Actor } from '../policy';
-import { createApiToken, revokeApiToken } from './api-tokens';
+import { createApiToken, revokeApiToken } from './apiTokens';
 
 /** Token creation and revocation with their audit events, each in one transaction. */
 export function createTokenFor(

@@ -1,5 +1,5 @@
 import { z } from 'zod';
-import { TOKEN_MAX_DAYS } from './api-tokens';
+import { TOKEN_MAX_DAYS } from './apiTokens';
 
 export const createTokenSchema = z.object({
 	name: z.string().trim().min(1, 'Give the token a name.').max(80, 'Use at most 80 characters.'),
