@@ -242,8 +242,12 @@ async function* selectionCountRows(
 	const where = selectionWhere(filter);
 	let after = 0;
 	for (;;) {
+		// STRAIGHT_JOIN: walk members by primary key from `after` and stop at the page's end.
+		// Left to itself the optimiser starts from surveys' status index and sorts every
+		// selected member, counts included, into a temporary table for each page (measured: 33 s
+		// for 30 pages of 1,000 members, against 2–8 s in key order).
 		const rows = await sequelize.query<CountRow>(
-			`SELECT ${COUNT_COLUMNS} FROM members m ${SELECTION_JOINS}
+			`SELECT STRAIGHT_JOIN ${COUNT_COLUMNS} FROM members m ${SELECTION_JOINS}
 			   LEFT JOIN member_cover_sets c ON c.member_id = m.id
 			  WHERE ${where.sql} AND m.id > :after ORDER BY m.id LIMIT ${MEMBERS_PER_PAGE}`,
 			{ type: QueryTypes.SELECT, replacements: { ...where.replacements, after } }
