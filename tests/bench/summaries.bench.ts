@@ -8,7 +8,9 @@
  * process's peak RSS. Prints generation time and the tables' size on disk. Runs against the
  * test database named in .env.test (FRACTILE_ENV_FILE); drop it after (bash scripts/db.sh recreate test).
  */
-import { statfsSync } from 'node:fs';
+import { execFileSync } from 'node:child_process';
+import { statfsSync, writeFileSync } from 'node:fs';
+import { join } from 'node:path';
 import { QueryTypes, type Transaction } from 'sequelize';
 import { createSequelize, readDatabaseSettings } from '../../src/lib/server/db/connection';
 import { Asset, initModels, Member, Organisation, Survey } from '../../src/lib/server/db/models';
@@ -237,5 +239,93 @@ console.log(
 	`research statistics over ${readingCount} readings, ${memberIds.length} members, 20 groups: ` +
 		`median ${times[RUNS >> 1].toFixed(0)} ms (min ${times[0].toFixed(0)}, max ${times[RUNS - 1].toFixed(0)}); ` +
 		`RSS before ${mb(rssBefore)} MB, peak ${mb(process.resourceUsage().maxRSS * 1024)} MB`
+);
+
+// The parts and a peer. (1) Reading the count rows alone: the same paged query the service runs,
+// nothing done with the bytes. (2) numpy from the same counts, written once to a file: per
+// group n, mean, SD and type 7 P5/P50/P95 of the covers (tests/bench/summaries_peer.py), its
+// figures compared with ours.
+const GROUP_OF = (type: string, exposure: string) => `${type}|${exposure}`;
+const groupNames: string[] = [];
+const file = join(process.cwd(), '.local', 'bench-counts.bin');
+const readTimes: number[] = [];
+for (let run = 0; run < 3; run++) {
+	const parts: Buffer[] = [];
+	const t0 = performance.now();
+	let after = 0;
+	for (;;) {
+		const rows = await sequelize.query<{
+			id: number;
+			memberType: string;
+			exposureClass: string;
+			counts: Buffer | null;
+			den: number | null;
+			factor: number | null;
+		}>(
+			`SELECT STRAIGHT_JOIN m.id, m.member_type AS memberType, m.exposure_class AS exposureClass,
+			        c.cover_counts AS counts, c.grid_den AS den, c.grid_factor AS factor
+			   FROM members m JOIN surveys s ON s.id = m.survey_id JOIN assets a ON a.id = m.asset_id
+			   LEFT JOIN member_cover_sets c ON c.member_id = m.id
+			  WHERE a.research_opt_in = 1 AND s.status IN ('submitted', 'approved') AND m.id > :after
+			  ORDER BY m.id LIMIT 1000`,
+			{ type: QueryTypes.SELECT, replacements: { after } }
+		);
+		if (rows.length === 0) break;
+		after = rows[rows.length - 1].id;
+		if (run > 0) continue;
+		for (const r of rows) {
+			if (!r.counts || r.counts.length === 0) continue;
+			// The peer reads whole 0.1 mm steps, the grid the generated stock is logged on.
+			if (Number(r.den) !== 10 || Number(r.factor) !== 1)
+				throw new Error(
+					`member ${r.id} is not on the 0.1 mm grid: run the peer on a generated stock only`
+				);
+			const name = GROUP_OF(r.memberType, r.exposureClass);
+			let g = groupNames.indexOf(name);
+			if (g < 0) g = groupNames.push(name) - 1;
+			const head = Buffer.alloc(8);
+			head.writeInt32LE(g, 0);
+			head.writeInt32LE(r.counts.length / 8, 4);
+			parts.push(head, r.counts);
+		}
+	}
+	readTimes.push(performance.now() - t0);
+	if (run === 0) writeFileSync(file, Buffer.concat(parts));
+}
+readTimes.sort((a, b) => a - b);
+console.log(
+	`reading the count rows alone (3 runs; the first also keeps them for the peer): median ${readTimes[1].toFixed(0)} ms, min ${readTimes[0].toFixed(0)} ms`
+);
+const peer = JSON.parse(
+	execFileSync('python3', [join(import.meta.dirname, 'summaries_peer.py'), file, String(RUNS)], {
+		encoding: 'utf8'
+	})
+) as {
+	medianMs: number;
+	minMs: number;
+	groups: { g: number; n: number; mean: number; sd: number; p5: number }[];
+};
+const ours = await researchStatistics(sequelize, filter, {
+	groupBy: ['memberType', 'exposureClass']
+});
+let worst = 0;
+for (const p of peer.groups) {
+	const [memberType, exposureClass] = groupNames[p.g].split('|');
+	const g = ours.groups.find(
+		(x) => x.key.memberType === memberType && x.key.exposureClass === exposureClass
+	)!;
+	if (g.readingCount !== p.n)
+		throw new Error(`group ${groupNames[p.g]}: n ${g.readingCount} against numpy's ${p.n}`);
+	const d = g.cover!.description;
+	for (const [a, b] of [
+		[d.meanMm, p.mean],
+		[d.sdMm, p.sd],
+		[g.cover!.percentiles[0].valueMm, p.p5]
+	])
+		worst = Math.max(worst, Math.abs(a - b) / Math.abs(b));
+}
+console.log(
+	`numpy peer on the same counts from a file (figures only, no database): median ${peer.medianMs.toFixed(0)} ms, ` +
+		`min ${peer.minMs.toFixed(0)} ms; ${peer.groups.length} groups, largest relative difference from ours ${worst.toExponential(1)}`
 );
 await sequelize.close();
