@@ -8,10 +8,12 @@
  * process's peak RSS. Prints generation time and the tables' size on disk. Runs against the
  * test database named in .env.test (FRACTILE_ENV_FILE); drop it after (bash scripts/db.sh recreate test).
  */
-import { QueryTypes } from 'sequelize';
+import { execFileSync } from 'node:child_process';
+import { statfsSync, writeFileSync } from 'node:fs';
+import { join } from 'node:path';
+import { QueryTypes, type Transaction } from 'sequelize';
 import { createSequelize, readDatabaseSettings } from '../../src/lib/server/db/connection';
 import { Asset, initModels, Member, Organisation, Survey } from '../../src/lib/server/db/models';
-import { rebuildCoverSets } from '../../src/lib/server/readings/coverSets';
 import { researchFilterSchema } from '../../src/lib/server/research/filter';
 import { researchStatistics } from '../../src/lib/server/research/statistics';
 import { loadProjectEnv } from '../../scripts/env';
@@ -20,9 +22,11 @@ loadProjectEnv();
 const args = process.argv.slice(2).filter((a) => !a.startsWith('--'));
 /** --reuse: time the statistics on the stock a previous run generated (no generation). */
 const REUSE = process.argv.includes('--reuse');
+/** --resume: generate the rest of a stock whose generation stopped part-way. */
+const RESUME = process.argv.includes('--resume');
 const READINGS = Number(args[0] ?? 10_000_000);
 const STRUCTURES = Number(args[1] ?? 1_000);
-const MEMBERS_PER_STRUCTURE = 10;
+const MEMBERS_PER_STRUCTURE = Number(args[2] ?? 100);
 const RUNS = 5;
 
 const sequelize = createSequelize({
@@ -34,7 +38,8 @@ initModels(sequelize);
 const seconds = (since: number) => ((performance.now() - since) / 1000).toFixed(1);
 const mb = (bytes: number) => (bytes / 2 ** 20).toFixed(0);
 
-async function generate(): Promise<number[]> {
+/** Structures, surveys and members, 100 members a structure by default; returns member ids. */
+async function createMembers(): Promise<number[]> {
 	const owner = await Organisation.create({ name: 'Stock owner', slug: `stock-${Date.now()}` });
 	const memberIds: number[] = [];
 	for (let s = 0; s < STRUCTURES; s++) {
@@ -64,7 +69,7 @@ async function generate(): Promise<number[]> {
 				assetId: asset.id,
 				label: `M${i}`,
 				memberType: (['slab', 'beam', 'column', 'wall', 'deck'] as const)[i % 5],
-				face: 'bottom' as const,
+				face: (['bottom', 'top', 'side'] as const)[Math.floor(i / 5) % 3],
 				exposureClass: ['XC1', 'XC3', 'XC4', 'XD1'][(s + i) % 4],
 				requirementSource: 'EN 1992-1-1' as const,
 				structuralClass: 'S4',
@@ -83,25 +88,96 @@ async function generate(): Promise<number[]> {
 		memberIds.push(...members.map((m) => m.id));
 	}
 	memberIds.sort((a, b) => a - b);
-	// Member ids are consecutive per run (one bulk insert a structure, nothing else writing).
+	return memberIds;
+}
+
+/**
+ * The readings straight from the sequence engine with explicit ids, in primary-key order
+ * (member, id) so every batch appends to the clustered index, and each batch's summaries built
+ * at once by GROUP BY while its rows are still in the buffer pool — the same bytes an import
+ * writes (checked by `npm run db:check-summaries` on a small run). Covers are whole steps k of
+ * 0.1 mm: 20 mm, a member's own shift of 0–9.9 mm and three hashed parts of 0–13.3 mm (a bell of
+ * about 500 values, some 350 distinct in a member of 1,000 readings).
+ */
+async function generateReadings(memberIds: number[]) {
 	const first = memberIds[0];
 	if (memberIds[memberIds.length - 1] - first !== memberIds.length - 1)
 		throw new Error('the benchmark needs consecutive member ids (run it on an idle database)');
-	// A bell of covers on a 0.1 mm grid: 20 mm plus three hashed 0–19.9 mm parts (about 600
-	// distinct values, several hundred in each member).
-	const CHUNK = 5_000_000;
-	for (let start = 0; start < READINGS; start += CHUNK) {
-		const size = Math.min(CHUNK, READINGS - start);
-		await sequelize.query(
-			`INSERT INTO readings (member_id, x_mm, y_mm, cover_mm, bar_diameter_mm, flags)
-			 SELECT :first + (s.seq % :members), (s.seq % 97) * 50, (FLOOR(s.seq / 97) % 100) * 50,
-			        20 + (CRC32(s.seq) % 200 + CRC32(s.seq * 7 + 1) % 200 + CRC32(s.seq * 13 + 5) % 200) / 10,
-			        12, 0
-			   FROM (SELECT seq + :start AS seq FROM seq_1_to_${size}) s`,
-			{ type: QueryTypes.INSERT, replacements: { first, members: memberIds.length, start } }
+	const perMember = Math.floor(READINGS / memberIds.length);
+	if (perMember * memberIds.length !== READINGS)
+		throw new Error(`${READINGS} readings do not split evenly over ${memberIds.length} members`);
+	// --resume: carry on after the last member whose batch committed (a batch is one transaction).
+	const [{ maxId, lastMember }] = await sequelize.query<{
+		maxId: number | null;
+		lastMember: number | null;
+	}>(
+		'SELECT (SELECT MAX(id) FROM readings) AS maxId, (SELECT MAX(member_id) FROM member_cover_sets) AS lastMember',
+		{ type: QueryTypes.SELECT }
+	);
+	const done = RESUME && lastMember !== null ? Number(lastMember) - first + 1 : 0;
+	const idBase = Number(maxId ?? 0) - done * perMember;
+	const raw = (sql: string, replacements?: Record<string, number>, transaction?: Transaction) =>
+		sequelize.query(sql, { type: QueryTypes.RAW, transaction, replacements });
+	// Each grid step's stored double (8 bytes, little-endian), as encodeCovers writes it.
+	await raw('DROP TABLE IF EXISTS bench_step_bytes');
+	await raw('CREATE TABLE bench_step_bytes (k INT PRIMARY KEY, le8 BINARY(8) NOT NULL)');
+	const steps = Array.from({ length: 1000 }, (_, k) => {
+		const b = Buffer.alloc(8);
+		b.writeDoubleLE(k / 10);
+		return `(${k}, x'${b.toString('hex')}')`;
+	});
+	await raw(`INSERT INTO bench_step_bytes VALUES ${steps.join(',')}`);
+	const membersPerBatch = Math.max(1, Math.floor(2_000_000 / perMember));
+	let rowsMs = 0;
+	let summariesMs = 0;
+	for (let m = done; m < memberIds.length; m += membersPerBatch) {
+		const members = Math.min(membersPerBatch, memberIds.length - m);
+		const size = members * perMember;
+		const start = m * perMember;
+		// A batch's readings and their summaries in one transaction, as an import writes them;
+		// the session settings of a bulk load (no per-row unique or foreign-key checks).
+		await sequelize.transaction(async (t) => {
+			await raw(
+				'SET SESSION unique_checks = 0, foreign_key_checks = 0, group_concat_max_len = 1073741824',
+				undefined,
+				t
+			);
+			const t0 = performance.now();
+			await raw(
+				`INSERT INTO readings (id, member_id, x_mm, y_mm, cover_mm, bar_diameter_mm, flags)
+				 SELECT :idBase + seq, member, ((seq - 1) % 97) * 50, (FLOOR((seq - 1) / 97) % 100) * 50, k / 10, 12, 0
+				   FROM (SELECT seq, member,
+				                200 + CRC32(member) % 100 + CRC32(seq) % 134 + CRC32(seq * 7 + 1) % 134 + CRC32(seq * 13 + 5) % 134 AS k
+				           FROM (SELECT seq + :start AS seq, :first + (seq + :start - 1) DIV :perMember AS member
+				                   FROM seq_1_to_${size}) s) r`,
+				{ idBase, start, first, perMember },
+				t
+			);
+			const t1 = performance.now();
+			await raw(
+				`INSERT INTO member_cover_sets (member_id, reading_count, covers_mm, grid_den, grid_factor, distinct_covers, cover_counts)
+				 SELECT c.member_id, SUM(c.n), GROUP_CONCAT(REPEAT(b.le8, c.n) ORDER BY c.k SEPARATOR ''), 10, 1, COUNT(*),
+				        GROUP_CONCAT(REVERSE(UNHEX(LPAD(HEX(c.k), 8, '0'))), REVERSE(UNHEX(LPAD(HEX(c.n), 8, '0'))) ORDER BY c.k SEPARATOR '')
+				   FROM (SELECT member_id, CAST(ROUND(cover_mm * 10) AS SIGNED) AS k, COUNT(*) AS n FROM readings
+				          WHERE member_id BETWEEN :lo AND :hi GROUP BY member_id, k) c
+				   JOIN bench_step_bytes b ON b.k = c.k
+				  GROUP BY c.member_id`,
+				{ lo: memberIds[m], hi: memberIds[m + members - 1] },
+				t
+			);
+			rowsMs += t1 - t0;
+			summariesMs += performance.now() - t1;
+		});
+		console.log(
+			`  ${m + members} of ${memberIds.length} members: rows ${(rowsMs / 1000).toFixed(0)} s, summaries ${(summariesMs / 1000).toFixed(0)} s`
 		);
 	}
-	return memberIds;
+	await raw('DROP TABLE bench_step_bytes');
+	// Later app writes take ids after the generated ones.
+	await raw(`SELECT SETVAL(reading_ids, ${idBase + READINGS})`);
+	console.log(
+		`rows ${(rowsMs / 1000).toFixed(1)} s, summaries ${(summariesMs / 1000).toFixed(1)} s`
+	);
 }
 
 let memberIds: number[];
@@ -110,14 +186,22 @@ if (REUSE) {
 		type: QueryTypes.SELECT
 	});
 	memberIds = rows.map((r) => r.id);
+} else if (RESUME) {
+	const rows = await sequelize.query<{ id: number }>('SELECT id FROM members ORDER BY id', {
+		type: QueryTypes.SELECT
+	});
+	memberIds = rows.map((r) => r.id);
+	const resumed = performance.now();
+	await generateReadings(memberIds);
+	console.log(`resumed generation: ${seconds(resumed)} s`);
 } else {
+	const disk = () => statfsSync(process.cwd()).bavail * statfsSync(process.cwd()).bsize;
+	const freeBefore = disk();
 	const generationStart = performance.now();
-	memberIds = await generate();
+	memberIds = await createMembers();
+	const membersMade = seconds(generationStart);
+	await generateReadings(memberIds);
 	const generated = seconds(generationStart);
-	const summariesStart = performance.now();
-	for (let i = 0; i < memberIds.length; i += 100)
-		await sequelize.transaction((t) => rebuildCoverSets(t, memberIds.slice(i, i + 100)));
-	const summarised = seconds(summariesStart);
 	const [size] = await sequelize.query<{
 		readings: number;
 		summaries: number;
@@ -131,8 +215,9 @@ if (REUSE) {
 	);
 	console.log(
 		`generated ${READINGS} readings in ${STRUCTURES} structures (${memberIds.length} members): ` +
-			`rows ${generated} s, summaries ${summarised} s; on disk readings ${mb(size.readings)} MB, ` +
-			`summary rows ${mb(size.summaries)} MB (counts alone ${mb(Number(size.countsBytes))} MB, ` +
+			`${generated} s in all (members ${membersMade} s); disk used ${mb(freeBefore - disk())} MB (df); ` +
+			`on disk readings ${mb(size.readings)} MB, summary rows ${mb(size.summaries)} MB ` +
+			`(counts alone ${mb(Number(size.countsBytes))} MB, ` +
 			`${(Number(size.countsBytes) / memberIds.length).toFixed(0)} bytes a member)`
 	);
 }
@@ -143,7 +228,7 @@ const times: number[] = [];
 let readingCount = 0;
 for (let run = 0; run < RUNS; run++) {
 	const t0 = performance.now();
-	const stats = await researchStatistics(sequelize, 'bench-secret', filter, {
+	const stats = await researchStatistics(sequelize, filter, {
 		groupBy: ['memberType', 'exposureClass']
 	});
 	times.push(performance.now() - t0);
@@ -154,5 +239,93 @@ console.log(
 	`research statistics over ${readingCount} readings, ${memberIds.length} members, 20 groups: ` +
 		`median ${times[RUNS >> 1].toFixed(0)} ms (min ${times[0].toFixed(0)}, max ${times[RUNS - 1].toFixed(0)}); ` +
 		`RSS before ${mb(rssBefore)} MB, peak ${mb(process.resourceUsage().maxRSS * 1024)} MB`
+);
+
+// The parts and a peer. (1) Reading the count rows alone: the same paged query the service runs,
+// nothing done with the bytes. (2) numpy from the same counts, written once to a file: per
+// group n, mean, SD and type 7 P5/P50/P95 of the covers (tests/bench/summaries_peer.py), its
+// figures compared with ours.
+const GROUP_OF = (type: string, exposure: string) => `${type}|${exposure}`;
+const groupNames: string[] = [];
+const file = join(process.cwd(), '.local', 'bench-counts.bin');
+const readTimes: number[] = [];
+for (let run = 0; run < 3; run++) {
+	const parts: Buffer[] = [];
+	const t0 = performance.now();
+	let after = 0;
+	for (;;) {
+		const rows = await sequelize.query<{
+			id: number;
+			memberType: string;
+			exposureClass: string;
+			counts: Buffer | null;
+			den: number | null;
+			factor: number | null;
+		}>(
+			`SELECT STRAIGHT_JOIN m.id, m.member_type AS memberType, m.exposure_class AS exposureClass,
+			        c.cover_counts AS counts, c.grid_den AS den, c.grid_factor AS factor
+			   FROM members m JOIN surveys s ON s.id = m.survey_id JOIN assets a ON a.id = m.asset_id
+			   LEFT JOIN member_cover_sets c ON c.member_id = m.id
+			  WHERE a.research_opt_in = 1 AND s.status IN ('submitted', 'approved') AND m.id > :after
+			  ORDER BY m.id LIMIT 1000`,
+			{ type: QueryTypes.SELECT, replacements: { after } }
+		);
+		if (rows.length === 0) break;
+		after = rows[rows.length - 1].id;
+		if (run > 0) continue;
+		for (const r of rows) {
+			if (!r.counts || r.counts.length === 0) continue;
+			// The peer reads whole 0.1 mm steps, the grid the generated stock is logged on.
+			if (Number(r.den) !== 10 || Number(r.factor) !== 1)
+				throw new Error(
+					`member ${r.id} is not on the 0.1 mm grid: run the peer on a generated stock only`
+				);
+			const name = GROUP_OF(r.memberType, r.exposureClass);
+			let g = groupNames.indexOf(name);
+			if (g < 0) g = groupNames.push(name) - 1;
+			const head = Buffer.alloc(8);
+			head.writeInt32LE(g, 0);
+			head.writeInt32LE(r.counts.length / 8, 4);
+			parts.push(head, r.counts);
+		}
+	}
+	readTimes.push(performance.now() - t0);
+	if (run === 0) writeFileSync(file, Buffer.concat(parts));
+}
+readTimes.sort((a, b) => a - b);
+console.log(
+	`reading the count rows alone (3 runs; the first also keeps them for the peer): median ${readTimes[1].toFixed(0)} ms, min ${readTimes[0].toFixed(0)} ms`
+);
+const peer = JSON.parse(
+	execFileSync('python3', [join(import.meta.dirname, 'summaries_peer.py'), file, String(RUNS)], {
+		encoding: 'utf8'
+	})
+) as {
+	medianMs: number;
+	minMs: number;
+	groups: { g: number; n: number; mean: number; sd: number; p5: number }[];
+};
+const ours = await researchStatistics(sequelize, filter, {
+	groupBy: ['memberType', 'exposureClass']
+});
+let worst = 0;
+for (const p of peer.groups) {
+	const [memberType, exposureClass] = groupNames[p.g].split('|');
+	const g = ours.groups.find(
+		(x) => x.key.memberType === memberType && x.key.exposureClass === exposureClass
+	)!;
+	if (g.readingCount !== p.n)
+		throw new Error(`group ${groupNames[p.g]}: n ${g.readingCount} against numpy's ${p.n}`);
+	const d = g.cover!.description;
+	for (const [a, b] of [
+		[d.meanMm, p.mean],
+		[d.sdMm, p.sd],
+		[g.cover!.percentiles[0].valueMm, p.p5]
+	])
+		worst = Math.max(worst, Math.abs(a - b) / Math.abs(b));
+}
+console.log(
+	`numpy peer on the same counts from a file (figures only, no database): median ${peer.medianMs.toFixed(0)} ms, ` +
+		`min ${peer.minMs.toFixed(0)} ms; ${peer.groups.length} groups, largest relative difference from ours ${worst.toExponential(1)}`
 );
 await sequelize.close();

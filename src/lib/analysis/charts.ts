@@ -15,7 +15,7 @@ export interface ChartData {
 }
 
 /** Indices 0…n−1 thinned to at most maxPoints, always keeping the first and last. */
-function thinnedIndices(n: number, maxPoints: number): number[] {
+export function thinnedIndices(n: number, maxPoints: number): number[] {
 	if (n <= maxPoints) return Array.from({ length: n }, (_, i) => i);
 	const step = (n - 1) / (maxPoints - 1);
 	return Array.from({ length: maxPoints }, (_, j) => Math.round(j * step));
@@ -54,6 +54,12 @@ export function modelCurves(
 	return out;
 }
 
+/** The normal score of the (i+1)-th of n ordered values, by ppoints' positions (below). */
+export function plottingScore(i: number, n: number): number {
+	const a = n <= 10 ? 3 / 8 : 1 / 2;
+	return normalQuantile((i + 1 - a) / (n + 1 - 2 * a));
+}
+
 /**
  * Normal probability plot points (normal score, x(i)) with R's ppoints plotting positions
  * (i − a)/(n + 1 − 2a), a = 3/8 for n ≤ 10, else 1/2 (R ?ppoints; Blom 1958). Thinned.
@@ -65,9 +71,8 @@ export function normalProbabilityPlot(
 ): ChartData['probabilityPlot'] {
 	const n = sorted.length;
 	requireReadings('normalProbabilityPlot', n, 1);
-	const a = n <= 10 ? 3 / 8 : 1 / 2;
 	return thinnedIndices(n, maxPoints).map((i) => ({
-		normalScore: normalQuantile((i + 1 - a) / (n + 1 - 2 * a)),
+		normalScore: plottingScore(i, n),
 		coverMm: sorted[i]
 	}));
 }

@@ -66,6 +66,7 @@ export {
 	normalProbabilityPlot,
 	type ChartData
 } from './charts';
+export { ecdfPointsCounted, histogramCounted, normalProbabilityPlotCounted } from './countedCharts';
 export {
 	type CoverRequirement,
 	type CodeSystem,

@@ -39,9 +39,9 @@ export async function groupsExportResponse(
 	filter: ResearchFilter,
 	groupBy: GroupKey[]
 ): Promise<Response> {
-	const { sequelize, idSecret } = researchContext();
+	const { sequelize } = researchContext();
 	const record = await openExportRecord(actor, { ...filter, groupBy }, 'groups-csv');
-	const stats = await researchStatistics(sequelize, idSecret, filter, { groupBy });
+	const stats = await researchStatistics(sequelize, filter, { groupBy });
 	const csv = groupStatisticsCsv(stats);
 	await closeExportRecord(record, 1 + stats.groups.length);
 	return new Response(csv, { headers: headers('groups-csv', record.id) });

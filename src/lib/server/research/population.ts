@@ -4,7 +4,9 @@ import {
 	compareModels,
 	compareModelsCounted,
 	describeCounted,
-	expandCounted,
+	ecdfPointsCounted,
+	histogramCounted,
+	normalProbabilityPlotCounted,
 	fractionBelowCounted,
 	percentileCounted,
 	type CountedSample,
@@ -70,26 +72,36 @@ export function populationFigures(
 	});
 }
 
+/** The fitted curves over the data's own range, lowest to highest value. */
+function researchCurves(minMm: number, maxMm: number, models: ModelComparison) {
+	const padMm = 0.1 * (maxMm - minMm || 1);
+	const fromMm = minMm - padMm;
+	const fits = models.lognormal ? [models.normal, models.lognormal] : [models.normal];
+	return fits.flatMap((fit) =>
+		modelCurves(fit, fit.model === 'lognormal' ? Math.max(fromMm, 0.1) : fromMm, maxMm + padMm)
+	);
+}
+
 /**
  * The engine's chart pieces, over the data's own range: the engine's `chartData` starts curves
  * at 0 mm, which would cut off the negative half of a deviation population.
  */
 function researchCharts(sorted: Float64Array, models: ModelComparison): ChartData {
-	const n = sorted.length;
-	const padMm = 0.1 * (sorted[n - 1] - sorted[0] || 1);
-	const fromMm = sorted[0] - padMm;
-	const fits = models.lognormal ? [models.normal, models.lognormal] : [models.normal];
 	return {
 		histogram: histogramSorted(sorted),
 		ecdf: ecdfPoints(sorted),
-		curves: fits.flatMap((fit) =>
-			modelCurves(
-				fit,
-				fit.model === 'lognormal' ? Math.max(fromMm, 0.1) : fromMm,
-				sorted[n - 1] + padMm
-			)
-		),
+		curves: researchCurves(sorted[0], sorted[sorted.length - 1], models),
 		probabilityPlot: normalProbabilityPlot(sorted)
+	};
+}
+
+/** researchCharts from counts: the same pieces, without expanding the readings. */
+function researchChartsCounted(sample: CountedSample, models: ModelComparison): ChartData {
+	return {
+		histogram: histogramCounted(sample),
+		ecdf: ecdfPointsCounted(sample),
+		curves: researchCurves(sample.values[0], sample.values[sample.values.length - 1], models),
+		probabilityPlot: normalProbabilityPlotCounted(sample)
 	};
 }
 
@@ -106,9 +118,8 @@ export function shareBelow(
 }
 
 /**
- * populationFigures of a population held as counts: the same figures, in time and memory of
- * the distinct values. Charts, asked for the whole selection only, still draw from the
- * readings expanded (O(n) memory while they are built).
+ * populationFigures of a population held as counts: the same figures, charts included, in time
+ * and memory of the distinct values.
  */
 export function populationFiguresCounted(
 	sample: CountedSample,
@@ -128,7 +139,7 @@ export function populationFiguresCounted(
 		percentiles: RESEARCH_PERCENTILES.map((p) => ({ p, valueMm: percentileCounted(sample, p) })),
 		models,
 		characteristic,
-		charts: options.charts ? researchCharts(expandCounted(sample), models) : null
+		charts: options.charts ? researchChartsCounted(sample, models) : null
 	});
 }
 

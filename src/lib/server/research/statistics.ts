@@ -2,9 +2,7 @@ import type { Sequelize } from 'sequelize';
 import { ENGINE_VERSION, type FractionBelow } from '$lib/analysis';
 import type { GroupKey, ResearchFilter } from './filter';
 import { gatherGroups, type GroupValues } from './groups';
-import { selectedMembers } from './members';
 import { populationFiguresCounted, shareBelowCounted, type PopulationFigures } from './population';
-import { pseudonymMaker } from './pseudonym';
 
 /** Statistics of one population of the selection: cover, deviation from nominal, below c_min. */
 export interface GroupStatistics {
@@ -39,23 +37,25 @@ function groupStatistics(group: GroupValues, options: StatisticsOptions, charts:
 	return {
 		key: group.key,
 		readingCount: group.readingCount,
-		memberCount: group.memberRefs.size,
-		assetCount: group.assetRefs.size,
+		memberCount: group.memberIds.size,
+		assetCount: group.assetIds.size,
 		cover: populationFiguresCounted(group.coversMm.toCounted(), figureOptions),
 		deviationFromNominal: populationFiguresCounted(group.deviationsMm.toCounted(), figureOptions),
 		belowCMin: shareBelowCounted(group.marginsMm.toCounted(), 0, options.confidence)
 	};
 }
 
-/** The engine's statistics for the research selection and for each group within it. */
+/**
+ * The engine's statistics for the research selection and for each group within it, from the
+ * members' stored counts (no reading is read). Statistics name no member or asset, so nothing
+ * is pseudonymised: members and assets are only counted.
+ */
 export async function researchStatistics(
 	sequelize: Sequelize,
-	idSecret: string,
 	filter: ResearchFilter,
 	options: StatisticsOptions
 ): Promise<ResearchStatistics> {
-	const members = await selectedMembers(sequelize, filter, pseudonymMaker(idSecret));
-	const { all, groups } = await gatherGroups(members, options.groupBy);
+	const { all, groups } = await gatherGroups(sequelize, filter, options.groupBy);
 	return {
 		engineVersion: ENGINE_VERSION,
 		filter,

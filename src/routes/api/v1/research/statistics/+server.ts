@@ -8,6 +8,6 @@ import { researchStatistics } from '$lib/server/research/statistics';
 export const GET: RequestHandler = async ({ locals, url }) => {
 	authorize(locals, 'research:read');
 	const { groupBy, charts, ...filter } = statisticsQueryOf(url);
-	const { sequelize, idSecret } = researchContext();
-	return json(await researchStatistics(sequelize, idSecret, filter, { groupBy, charts }));
+	const { sequelize } = researchContext();
+	return json(await researchStatistics(sequelize, filter, { groupBy, charts }));
 };
