@@ -181,3 +181,15 @@ export function assessCalibrated(
 		predictiveShareBelowCMin: predictiveShareBelow(sample, calibration, requirement.cMinMm)
 	};
 }
+
+/** The method of assessCalibrated for people (pages, API, report). */
+export const CALIBRATION_METHOD_WORDS =
+	'Each reading r is replaced by the cover the check holes predict, a + b·r, fitted by least ' +
+	'squares (with fewer than 5 holes only the offset a is fitted and b = 1). The prediction of one ' +
+	'cover is uncertain: a Student t with the calibration’s degrees of freedom and standard error ' +
+	's·√(1 + 1/n + (r − r̄)²/Sxx), the textbook prediction interval. Its variance is added to the ' +
+	'spread of the calibrated covers, so the population judged has the mean of the calibrated covers ' +
+	'and the standard deviation √(s_c² + V̄), V̄ the mean prediction variance; the chosen rule set, ' +
+	'method and model then judge it as any population. The normal-model figures are exact for that ' +
+	'mean and spread; the empirical figures keep the shape of the readings. Beside it, the predicted ' +
+	'share below c_min is the mean over the readings of the chance that each one’s cover is below.';

@@ -117,6 +117,7 @@ export {
 export {
 	applySpread,
 	assessCalibrated,
+	CALIBRATION_METHOD_WORDS,
 	calibratedSpread,
 	predictiveShareBelow,
 	type CalibratedAssessment,
