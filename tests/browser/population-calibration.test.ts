@@ -44,6 +44,7 @@ describe('the engineer applies the check-hole calibration on a population', () =
 		);
 		await panel.scrollIntoViewIfNeeded();
 		await screenshot(page, 'population-calibration-applied');
+		await panel.screenshot({ path: `${SCREENSHOT_DIR}/population-calibration-panel.png` });
 		// A reload keeps the choice: it lives in the URL.
 		await page.reload();
 		await page.getByTestId('calibration-sentence').waitFor();
