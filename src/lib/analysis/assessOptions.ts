@@ -35,9 +35,15 @@ export interface AssessOptions {
 	charts?: boolean;
 	/** Fixed histogram bin width (mm) instead of Freedman–Diaconis. */
 	binWidthMm?: number | null;
+	/**
+	 * The grid step of readings that lie on a meter's grid not anchored at 0 mm (readings through
+	 * a calibration line: the meter's step times the slope), for the grouped goodness-of-fit test;
+	 * absent, the step is detected. Not carried into the resolved options.
+	 */
+	gridStepMm?: number | null;
 }
 
-export type ResolvedOptions = Required<Omit<AssessOptions, 'binWidthMm'>> & {
+export type ResolvedOptions = Required<Omit<AssessOptions, 'binWidthMm' | 'gridStepMm'>> & {
 	binWidthMm: number | null;
 	percentiles: number[];
 };

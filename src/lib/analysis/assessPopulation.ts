@@ -73,7 +73,7 @@ export function assessPopulation(
 	const fullRequirement = { ...requirement, allowedFractionBelow: allowedFractionOf(requirement) };
 	const sorted = toSortedCovers(coversMm);
 	const description = describeSorted(sorted, resolved.percentileType);
-	const models = compareModels(sorted);
+	const models = compareModels(sorted, options.gridStepMm ?? null);
 	const chosenModel = chooseModel(resolved, models);
 	const { fractileP: p, confidence, percentileType: type } = resolved;
 	const characteristic = characteristicCovers(

@@ -191,9 +191,13 @@ function betterOf(normal: ModelFit, lognormal: ModelFit | null): ModelName {
 	return !roughlyEqual(an, al) && al < an ? 'lognormal' : 'normal';
 }
 
-/** The meter's step when the readings sit on its grid with ties; null for continuous readings. */
-function groupedResolution(sorted: Float64Array): number | null {
-	const step = detectResolutionMm(sorted);
+/**
+ * The meter's step when the readings sit on its grid with ties; null for continuous readings.
+ * A known step (readings through a calibration line sit on the meter's grid stretched by the
+ * slope, which does not start at 0 mm) is taken as given.
+ */
+function groupedResolution(sorted: Float64Array, knownStepMm: number | null = null): number | null {
+	const step = knownStepMm ?? detectResolutionMm(sorted);
 	if (step === null) return null;
 	for (let i = 1; i < sorted.length; i++) if (sorted[i] === sorted[i - 1]) return step;
 	return null;
@@ -207,8 +211,11 @@ function groupedResolution(sorted: Float64Array): number | null {
  * reading a model. Needs 2 readings; the tests need 8.
  * @example compareModels(sorted).better // 'normal'
  */
-export function compareModels(sorted: Float64Array): ModelComparison {
-	const resolutionMm = groupedResolution(sorted);
+export function compareModels(
+	sorted: Float64Array,
+	knownStepMm: number | null = null
+): ModelComparison {
+	const resolutionMm = groupedResolution(sorted, knownStepMm);
 	const normal = testModel(sorted, fitNormal(sorted), resolutionMm);
 	const lognormal = sorted[0] > 0 ? testModel(sorted, fitLognormal(sorted), resolutionMm) : null;
 	return {

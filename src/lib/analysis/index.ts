@@ -106,6 +106,26 @@ export {
 	type MeterVerification
 } from './meterVerification';
 export {
+	calibrateReading,
+	CalibrationRefused,
+	fitCalibration,
+	MIN_SLOPE_HOLES,
+	predictionSeMm,
+	type CalibratedReading,
+	type CalibrationModel,
+	type MeterCalibration
+} from './meterCalibration';
+export {
+	applySpread,
+	assessCalibrated,
+	CALIBRATION_METHOD_WORDS,
+	calibratedSpread,
+	predictiveShareBelow,
+	type CalibratedAssessment,
+	type CalibratedSpread,
+	type CoverSampleInput
+} from './calibratedPopulation';
+export {
 	barPositionFromScan,
 	nearestStandardBarMm,
 	shareMatchingDiameter,

@@ -11,3 +11,4 @@ export * from './member';
 export * from './selection';
 export * from './lowAreas';
 export * from './custom';
+export * from './calibration';

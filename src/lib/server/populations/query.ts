@@ -75,7 +75,16 @@ export const customSchema = z.object({
 	part: z.enum(['chosen', 'rest'], 'The part is chosen or rest.').default('chosen')
 });
 
+/**
+ * Whether the meter's check-hole calibration is applied to the population's readings (detail
+ * only): none, as the meter logged them (the default), or apply.
+ */
+export const calibrationSchema = z.object({
+	calibration: z.enum(['none', 'apply'], 'The calibration is none or apply.').default('none')
+});
+
 export type MethodChoice = z.infer<typeof methodSchema>;
+export type CalibrationChoice = z.infer<typeof calibrationSchema>['calibration'];
 export type PopulationScope = z.infer<typeof scopeSchema>;
 export type GroupSelector = z.infer<typeof groupSchema>;
 

@@ -1,5 +1,5 @@
 import { z } from 'zod';
-import { groupSchema, methodSchema, scopeSchema } from '../../populations/query';
+import { calibrationSchema, groupSchema, methodSchema, scopeSchema } from '../../populations/query';
 import { customPopulationSchema } from '../../populations/custom';
 import { idParam } from '../schemas';
 import type { Endpoint } from './endpoint';
@@ -37,14 +37,20 @@ export const populationEndpoints: Endpoint[] = [
 		summary: 'One population with chart data, per-member boxes and the meter check',
 		action: 'population:read',
 		params: assetParams,
-		query: scopeSchema.extend(groupSchema.shape).extend(methodSchema.shape),
+		query: scopeSchema
+			.extend(groupSchema.shape)
+			.extend(methodSchema.shape)
+			.extend(calibrationSchema.shape),
 		exampleQuery: 'type=deck&exposure=XD3',
 		response: {
 			mediaType: 'application/json',
 			schema: z.object({
 				population: engineResult('The engine assessment with charts.'),
 				boxes: z.array(z.unknown()).describe('Box-plot figures per member.'),
-				meter: engineResult('Meter verification from the check holes.').nullable()
+				meter: engineResult('Meter verification from the check holes.').nullable(),
+				calibration: engineResult(
+					'With calibration=apply: the verdict as read and through the check-hole calibration, its uncertainty included, the method in words and whether the outcome changes.'
+				).nullable()
 			}),
 			description: 'Population detail.'
 		}

@@ -4,6 +4,8 @@ import { toPlainJson } from '$lib/analysis';
 import { authorize } from '$lib/server/web/actor';
 import { api } from '$lib/server/web/respond';
 import {
+	calibrationOutcome,
+	calibrationSchema,
 	customPopulationsOf,
 	customSchema,
 	groupSchema,
@@ -23,13 +25,17 @@ import {
 } from '$lib/server/populations';
 import { pathId } from '$lib/server/web/params';
 
-/** One population with chart data, per-member box figures and comparison, and the meter's verification. */
+/**
+ * One population with chart data, per-member box figures and comparison, and the meter's
+ * verification; with ?calibration=apply also the verdict through the check-hole calibration.
+ */
 export const GET: RequestHandler = async ({ locals, params, url }) => {
 	const actor = authorize(locals, 'population:read');
 	const assetId = pathId(params.assetId);
 	const query = paramsOf(url);
 	const scope = parseParams(scopeSchema, query);
 	const choice = parseParams(methodSchema, query);
+	const { calibration } = parseParams(calibrationSchema, query);
 	await visibleAsset(actor, assetId);
 	const selection = await surveySelection(assetId, requestedSurveyIds(scope));
 	const input = { assetId, surveyIds: selection.surveyIds, choice };
@@ -44,12 +50,17 @@ export const GET: RequestHandler = async ({ locals, params, url }) => {
 	}
 	if (!detail) error(404, 'No members of this asset match that population.');
 	const type = choice.percentile === '6' ? 6 : 7;
+	const meter = await meterCheck(detail.group.members.map((m) => m.id));
 	return json({
 		population: detail.result,
 		selection,
 		boxes: memberBoxes(detail.group, type),
 		members: toPlainJson(memberComparison(detail.group)),
 		mixture: toPlainJson(populationMixture(detail.group, detail.result.assessment)),
-		meter: await meterCheck(detail.group.members.map((m) => m.id))
+		meter,
+		calibration:
+			calibration === 'apply'
+				? toPlainJson(calibrationOutcome(detail.result, detail.group, meter, choice))
+				: null
 	});
 };
