@@ -1,7 +1,7 @@
 /**
- * A test fixture standing in for issue 6's save and approve until that lands on main: build a
- * snapshot of one survey's populations with the engine on the seeded demo readings, shaped like
- * issue 6's AssessmentSnapshot, and insert it as an Assessment row.
+ * A test fixture in place of the assessments' save and approve: build a snapshot of one
+ * survey's populations with the engine on the seeded demo readings, shaped like
+ * AssessmentSnapshot (src/lib/server/assessments/snapshot.ts), and insert it as an Assessment row.
  */
 import { createHash } from 'node:crypto';
 import type { Sequelize } from 'sequelize';
@@ -109,7 +109,7 @@ async function meter(memberIds: number[]) {
 	return { holes: rows, verification, note: verification ? null : 'Too few holes.' };
 }
 
-/** A snapshot of one survey of an asset, as issue 6's buildSnapshot would store it. */
+/** A snapshot of one survey of an asset, as the assessments' buildSnapshot would store it. */
 export async function buildTestSnapshot(assetName: string, surveyTitle: string) {
 	const asset = (await Asset.findOne({ where: { name: assetName } }))!;
 	const survey = (await Survey.findOne({ where: { assetId: asset.id, title: surveyTitle } }))!;
@@ -178,7 +178,7 @@ export async function insertDraft(
 	});
 }
 
-/** Approve as the demo engineer (stands in for issue 6's approve service). */
+/** Approve as the demo engineer, in place of the assessments' approve service. */
 export async function approveDirectly(assessment: Assessment): Promise<void> {
 	const engineer = await User.findOne({ where: { email: 'engineer@kestrel-lane.example' } });
 	await assessment.update({
