@@ -66,8 +66,28 @@ const countWords = (n: number, one: string, many: string) =>
 export interface LowAreaSummary {
 	memberLabel: string;
 	populationLabel: string;
+	/** Areas listed one by one (groupLowAreas in populations/lowCoverAreas.ts) and their m². */
 	areaCount: number;
 	areaM2: number;
+	/** Areas too small to list (single cells, or under the minimum), counted together; absent in older snapshots. */
+	spotCount?: number;
+	spotM2?: number;
+}
+
+const squareMetres = (m2: number) => `${m2 >= 10 ? m2.toFixed(0) : m2.toFixed(1)} m²`;
+
+/** "17 small spots, 4.3 m² in all", or '' when there are none. */
+export function smallSpotWords(count: number | undefined, m2: number | undefined): string {
+	if (!count) return '';
+	return `${counted(count, 'small spot')}, ${squareMetres(m2 ?? 0)} in all`;
+}
+
+/** One member's low areas in a line: "one area, 7.8 m²; 17 small spots, 4.3 m² in all". */
+export function memberLowAreaWords(m: LowAreaSummary): string {
+	const spots = smallSpotWords(m.spotCount, m.spotM2);
+	const areas =
+		m.areaCount > 0 ? `${countWords(m.areaCount, 'area', 'areas')}, ${squareMetres(m.areaM2)}` : '';
+	return [areas, spots].filter(Boolean).join('; ') || 'no area';
 }
 
 /**
@@ -76,14 +96,26 @@ export interface LowAreaSummary {
  */
 export function treatFirstWords(members: readonly LowAreaSummary[]): string | null {
 	const first = [...members].sort((a, b) => b.areaM2 - a.areaM2)[0];
-	if (!first || first.areaCount === 0) return null;
-	const m2 = first.areaM2 >= 10 ? first.areaM2.toFixed(0) : first.areaM2.toFixed(1);
+	if (!first) return null;
+	if (first.areaCount === 0) {
+		const spotted = members.filter((m) => m.spotCount);
+		if (spotted.length === 0) return null;
+		const m2 = spotted.reduce((s, m) => s + (m.spotM2 ?? 0), 0);
+		const count = spotted.reduce((s, m) => s + (m.spotCount ?? 0), 0);
+		return (
+			`No area large enough to treat first; ${countWords(spotted.length, 'member has', 'members have')} ` +
+			`${smallSpotWords(count, m2)} below c_min.`
+		);
+	}
+	const m2 = squareMetres(first.areaM2);
+	const spots = smallSpotWords(first.spotCount, first.spotM2);
 	const others = members.filter((m) => m !== first && m.areaCount > 0).length;
 	const rest =
 		others > 0 ? `; ${countWords(others, 'other member has', 'other members have')} low areas` : '';
 	return (
 		`Treat first: member ${first.memberLabel} (${first.populationLabel}), ` +
-		`${countWords(first.areaCount, 'area', 'areas')} below c_min, ${m2} m²${rest}.`
+		`${countWords(first.areaCount, 'area', 'areas')} below c_min, ${m2}` +
+		`${spots ? ` (and ${spots})` : ''}${rest}.`
 	);
 }
 
@@ -164,3 +196,45 @@ export const RISK_WORDS: Record<RiskLevel, string> = {
 	'low-concern': 'Low concern',
 	'not-judged': 'Not judged'
 };
+/** A custom population as an assessment's snapshot carries it, the fields read for words. */
+export interface CarriedCustomLike {
+	custom: { name: string; splitFromLabel: string | null };
+	populations: {
+		key: { rest?: boolean };
+		members: { label: string }[];
+		assessment: { verdict: RuleOutcome } | null;
+	}[];
+}
+
+/** "L2-BAY-04", "L2-BAY-04 and L2-BAY-05", "A, B, C and 4 more". */
+function memberList(labels: readonly string[]): string {
+	if (labels.length <= 1) return labels[0] ?? 'no member';
+	const shown = labels.length > 4 ? labels.slice(0, 3) : labels.slice(0, -1);
+	const last = labels.length > 4 ? `${labels.length - 3} more` : labels[labels.length - 1];
+	return `${shown.join(', ')} and ${last}`;
+}
+
+/**
+ * A population the engineer made, in one sentence for the owner: "The engineer judged bay
+ * L2-BAY-04 apart from the rest of deck · XD3 (“Low bay”): does not comply; the rest of deck ·
+ * XD3 without it: complies."
+ */
+export function customPopulationWords(c: CarriedCustomLike): string {
+	const chosen = c.populations.find((p) => !p.key.rest);
+	const rest = c.populations.find((p) => p.key.rest);
+	const labels = chosen?.members.map((m) => m.label) ?? [];
+	const who = `${labels.length === 1 ? 'member' : 'members'} ${memberList(labels)}`;
+	const verdict = (p: typeof chosen) => verdictWords(p?.assessment?.verdict).toLowerCase();
+	if (c.custom.splitFromLabel) {
+		const source = c.custom.splitFromLabel;
+		const restWords = rest
+			? `; the rest of ${source} without ${labels.length === 1 ? 'it' : 'them'}: ${verdict(rest)}`
+			: '';
+		return `The engineer judged ${who} apart from the rest of ${source} (“${c.custom.name}”): ${verdict(chosen)}${restWords}.`;
+	}
+	return `The engineer judged ${who} together as “${c.custom.name}”: ${verdict(chosen)}.`;
+}
+
+/** Why the custom populations stand apart from the groups (the owner's page and the report). */
+export const CUSTOM_APART_WORDS =
+	'Judged by the same engine in addition to the assessment’s populations; each member is counted once, in its own population, in the risk figures.';

@@ -53,6 +53,25 @@ describe('the engineer finds the low-cover areas of a member on its map', () => 
 		await expect(list.locator('tbody tr').count()).resolves.toBeGreaterThanOrEqual(1);
 		await expect(list.locator('h2').textContent()).resolves.toMatch(/m² in all/);
 		await screenshot(page, 'member-low-cover-areas');
+		// Single cells and areas under the smallest area listed are counted as small spots, not
+		// outlined; 0 lists and outlines every area.
+		const listed = await list.locator('tbody tr').count();
+		const outlined = await map.locator('[data-low-area]').count();
+		expect(outlined).toBe(listed);
+		await list.getByTestId('min-area').fill('0');
+		await expect
+			.poll(() => list.locator('tbody tr').count(), { timeout: 5000 })
+			.toBeGreaterThan(listed);
+		await expect(map.locator('[data-low-area]').count()).resolves.toBe(
+			await list.locator('tbody tr').count()
+		);
+		await list.getByTestId('min-area').fill('');
+		// A threshold typed in redraws the areas against it (the number input's value is a number).
+		await list.getByLabel('Threshold (mm)').fill('40');
+		await expect
+			.poll(() => list.locator('h2').textContent(), { timeout: 5000 })
+			.toMatch(/below 40 mm/);
+		await list.getByLabel('Threshold (mm)').fill('');
 	});
 
 	it('splits the low bay out of the deck and shows two verdicts, then the bay’s outlined map', async () => {

@@ -24,6 +24,8 @@ export interface OrganisationIds {
 	exportId: number;
 	batchId: number;
 	attachmentId: number;
+	/** A population the organisation's engineers made of its asset's member. */
+	customPopulationId: number;
 	/** A word that appears in the organisation's own asset name and nowhere else. */
 	marker: string;
 }
@@ -147,6 +149,17 @@ export async function draftAndToken(client: HttpClient, assetId: number) {
 	return { assessmentId, tokenId };
 }
 
+/** A custom population of one member of `assetId`, made over HTTP by `client`. */
+export async function customPopulationOf(client: HttpClient, assetId: number, memberId: number) {
+	const made = await client.postJson(`/api/v1/assets/${assetId}/populations/custom`, {
+		name: `Hostile fixture ${randomBytes(4).toString('hex')}`,
+		members: [memberId]
+	});
+	if (made.status !== 201)
+		throw new Error(`population failed: ${made.status} ${await made.text()}`);
+	return ((await made.json()) as { population: { id: number } }).population.id;
+}
+
 /** A research export of the client's organisation (recorded when its CSV is downloaded). */
 export async function researchExportOf(client: HttpClient): Promise<number> {
 	const csv = await client.get('/api/v1/research/exports/groups.csv');
@@ -171,9 +184,18 @@ export async function createOtherOrganisation(sequelize: Sequelize): Promise<Oth
 	const made = await draftAndToken(client, records.assetId);
 	const exportId = await researchExportOf(client);
 	const uploads = await uploadsTo(client, records.surveyId, marker);
+	const customPopulationId = await customPopulationOf(client, records.assetId, records.memberId);
 	return {
 		admin: client,
-		ids: { ...records, ...made, ...uploads, exportId, membershipId: membership.id, marker }
+		ids: {
+			...records,
+			...made,
+			...uploads,
+			exportId,
+			customPopulationId,
+			membershipId: membership.id,
+			marker
+		}
 	};
 }
 

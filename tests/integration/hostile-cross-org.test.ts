@@ -11,6 +11,7 @@ import { signInAs, type HttpClient } from '../helpers/session';
 import { routeIdsWithParams } from '../helpers/routes';
 import {
 	createOtherOrganisation,
+	customPopulationOf,
 	draftAndToken,
 	insertMeasurements,
 	researchExportOf,
@@ -161,6 +162,27 @@ const ORG_ROUTES: Record<string, (v: OrganisationIds, own: OrganisationIds) => P
 			method: 'POST',
 			path: `/api/v1/assets/${v.assetId}/populations/custom`,
 			body: { name: 'Stolen', members: [v.memberId] }
+		}
+	],
+	'/api/v1/assets/[assetId]/populations/custom/[customId]': (v, own) => [
+		{
+			method: 'PATCH',
+			path: `/api/v1/assets/${v.assetId}/populations/custom/${v.customPopulationId}`,
+			body: { name: 'Stolen' }
+		},
+		{
+			method: 'DELETE',
+			path: `/api/v1/assets/${v.assetId}/populations/custom/${v.customPopulationId}`
+		},
+		// The attacker's own asset with the victim's population: still none of theirs.
+		{
+			method: 'PATCH',
+			path: `/api/v1/assets/${own.assetId}/populations/custom/${v.customPopulationId}`,
+			body: { name: 'Stolen' }
+		},
+		{
+			method: 'DELETE',
+			path: `/api/v1/assets/${own.assetId}/populations/custom/${v.customPopulationId}`
 		}
 	],
 	'/api/v1/assets/[assetId]/populations/detail': (v) => [
@@ -444,6 +466,7 @@ const GHOST: OrganisationIds = {
 	exportId: NOWHERE,
 	batchId: NOWHERE,
 	attachmentId: NOWHERE,
+	customPopulationId: NOWHERE,
 	marker: 'nowhere'
 };
 
@@ -485,6 +508,7 @@ beforeAll(async () => {
 		membershipId: membership!.id,
 		...made,
 		exportId,
+		customPopulationId: await customPopulationOf(engineer, 1, 1),
 		marker: 'Brackenfield'
 	};
 });
@@ -506,6 +530,9 @@ afterAll(async () => {
 	});
 	await sequelize.query('DELETE FROM research_exports WHERE id = ?', {
 		replacements: [demo.exportId]
+	});
+	await sequelize.query('DELETE FROM custom_populations WHERE id = ?', {
+		replacements: [demo.customPopulationId]
 	});
 	await sequelize.close();
 });
@@ -620,6 +647,18 @@ describe('after the attacks', () => {
 			type: QueryTypes.SELECT
 		});
 		expect(holes).toHaveLength(2);
+	});
+
+	it("the victims' custom populations are still there under their own names", async () => {
+		const rows = await sequelize.query<{ name: string }>(
+			'SELECT name FROM custom_populations WHERE id IN (?, ?)',
+			{
+				replacements: [demo.customPopulationId, other.ids.customPopulationId],
+				type: QueryTypes.SELECT
+			}
+		);
+		expect(rows).toHaveLength(2);
+		expect(rows.map((r) => r.name)).not.toContain('Stolen');
 	});
 
 	it("the victims' research consent is as it was", async () => {

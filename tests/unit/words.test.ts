@@ -1,5 +1,12 @@
 import { describe, expect, it } from 'vitest';
-import { counted, formatDate, formatDateTime } from '../../src/lib/words';
+import {
+	counted,
+	formatDate,
+	formatDateTime,
+	customPopulationWords,
+	memberLowAreaWords,
+	treatFirstWords
+} from '../../src/lib/words';
 
 describe('counted: one plural rule for every page', () => {
 	it('says "1 member" and "2 members", never "1 members" or "2 row(s)"', () => {
@@ -35,5 +42,61 @@ describe('rule set words', () => {
 			expect(ruleSetWords(name)).not.toBe(name);
 			expect(ruleSetWords(name)).not.toMatch(/^[a-z]+-[a-z]+$/);
 		}
+	});
+});
+
+describe('low areas in words, small spots kept apart', () => {
+	const bay = {
+		memberLabel: 'L2-BAY-04',
+		populationLabel: 'deck · XD3',
+		areaCount: 1,
+		areaM2: 7.84,
+		spotCount: 17,
+		spotM2: 4.25
+	};
+	it('names the member to treat first and counts its small spots apart', () => {
+		expect(treatFirstWords([bay])).toBe(
+			'Treat first: member L2-BAY-04 (deck · XD3), one area below c_min, 7.8 m² (and 17 small spots, 4.3 m² in all).'
+		);
+		expect(memberLowAreaWords(bay)).toBe('one area, 7.8 m²; 17 small spots, 4.3 m² in all');
+		expect(memberLowAreaWords({ ...bay, spotCount: 1, spotM2: 0.25 })).toBe(
+			'one area, 7.8 m²; 1 small spot, 0.3 m² in all'
+		);
+	});
+	it('says when only small spots are found, and reads a summary without spots as before', () => {
+		const spotsOnly = { ...bay, areaCount: 0, areaM2: 0, spotCount: 2, spotM2: 0.5 };
+		expect(treatFirstWords([spotsOnly])).toBe(
+			'No area large enough to treat first; one member has 2 small spots, 0.5 m² in all below c_min.'
+		);
+		const older = { memberLabel: 'W-01', populationLabel: 'wall · XC3', areaCount: 2, areaM2: 14 };
+		expect(treatFirstWords([older])).toBe(
+			'Treat first: member W-01 (wall · XC3), two areas below c_min, 14 m².'
+		);
+	});
+});
+
+describe('a custom population in the owner’s words', () => {
+	const judged = (verdict: 'pass' | 'fail', labels: string[], rest = false) => ({
+		key: rest ? { rest: true } : {},
+		members: labels.map((label) => ({ label })),
+		assessment: { verdict }
+	});
+	it('says which member was judged apart from which group, and both verdicts', () => {
+		const words = customPopulationWords({
+			custom: { name: 'Low bay', splitFromLabel: 'deck · XD3' },
+			populations: [judged('fail', ['L2-BAY-04']), judged('pass', ['L2-BAY-01', 'L2-BAY-02'], true)]
+		});
+		expect(words).toBe(
+			'The engineer judged member L2-BAY-04 apart from the rest of deck · XD3 (“Low bay”): does not comply; the rest of deck · XD3 without it: complies.'
+		);
+	});
+	it('names a hand-picked set together, shortening a long list', () => {
+		const words = customPopulationWords({
+			custom: { name: 'North edge', splitFromLabel: null },
+			populations: [judged('pass', ['A', 'B', 'C', 'D', 'E', 'F'])]
+		});
+		expect(words).toBe(
+			'The engineer judged members A, B, C and 3 more together as “North edge”: complies.'
+		);
 	});
 });

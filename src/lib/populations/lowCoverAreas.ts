@@ -116,3 +116,45 @@ function describeArea(
 		outline
 	};
 }
+
+/**
+ * The smallest area listed on its own, m² (the engineer may change it beside the threshold).
+ * Common practice, not a code value: a patch repair is planned over about half a metre square
+ * at least, and a single map cell is one reading's neighbourhood, more likely scatter of the
+ * meter or a bar lap than a region to treat.
+ */
+export const SMALL_AREA_M2 = 0.25;
+
+/** Low areas too small to list one by one, counted together. */
+export interface SmallSpots {
+	count: number;
+	areaM2: number;
+	/** Share of the member's area (0–1). */
+	share: number;
+	/** The least cover among them (mm); null when there are none. */
+	leastMm: number | null;
+}
+
+/**
+ * The one rule for which low areas are listed (the map's outlines and list, the owner's page,
+ * the report): an area of at least `minM2` and more than one cell; the rest are "small spots",
+ * counted and summed. `minM2` = 0 lists every area, single cells too.
+ */
+export function groupLowAreas(
+	areas: readonly LowCoverArea[],
+	minM2: number = SMALL_AREA_M2
+): { listed: LowCoverArea[]; spots: SmallSpots } {
+	if (!(minM2 >= 0)) throw new Error('groupLowAreas needs a minimum area of 0 m² or more');
+	const small = (a: LowCoverArea) => minM2 > 0 && (a.cells.length < 2 || a.areaM2 < minM2);
+	const listed = areas.filter((a) => !small(a));
+	const rest = areas.filter(small);
+	return {
+		listed,
+		spots: {
+			count: rest.length,
+			areaM2: rest.reduce((s, a) => s + a.areaM2, 0),
+			share: rest.reduce((s, a) => s + a.share, 0),
+			leastMm: rest.length > 0 ? Math.min(...rest.map((a) => a.leastMm)) : null
+		}
+	};
+}

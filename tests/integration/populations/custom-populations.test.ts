@@ -347,5 +347,202 @@ describe('custom populations over HTTP', () => {
 		expect(refused.status).toBe(403);
 		expect((await refused.json()).error.code).toBe('read_only');
 		expect(await populationsNamed(name)).toBe(0);
+		// Nor rename or delete one: the share is for reading.
+		const renamed = await reader.client.patchJson(`${customUrl()}/${population.id}`, {
+			name: uniqueName('Reader renamed')
+		});
+		expect(renamed.status).toBe(403);
+		expect((await renamed.json()).error.code).toBe('read_only');
+		const deleted = await reader.client.delete(`${customUrl()}/${population.id}`);
+		expect(deleted.status).toBe(403);
+		expect((await deleted.json()).error.code).toBe('read_only');
+		expect(await populationsNamed(population.name)).toBe(1);
 	});
+
+	const made = async (label: string) => {
+		const response = await engineer.postJson(customUrl(), {
+			name: uniqueName(label),
+			members: split().chosen
+		});
+		expect(response.status).toBe(201);
+		return (await response.json()).population as { id: number; name: string };
+	};
+	const parsed = (detail: unknown) =>
+		typeof detail === 'string' ? JSON.parse(detail) : (detail as Record<string, unknown>);
+	const auditOf = (action: string, id: number) =>
+		sequelize.query<{ detail: unknown }>(
+			`SELECT detail FROM audit_events WHERE action = ? AND subject_type = 'custom_population'
+			   AND subject_id = ? ORDER BY id`,
+			{ replacements: [action, String(id)], type: QueryTypes.SELECT }
+		);
+
+	it('renames a population as the engineer: 200, the row, one audit row with both names', async () => {
+		const population = await made('To rename');
+		const name = uniqueName('Renamed');
+		const response = await engineer.patchJson(`${customUrl()}/${population.id}`, { name });
+		expect(response.status).toBe(200);
+		expect((await response.json()).population).toMatchObject({ id: population.id, name });
+		expect(await populationsNamed(name)).toBe(1);
+		expect(await populationsNamed(population.name)).toBe(0);
+		const audits = await auditOf('population.custom.rename', population.id);
+		expect(audits).toHaveLength(1);
+		const detail = parsed(audits[0].detail);
+		expect(detail).toMatchObject({ from: population.name, to: name });
+	});
+
+	it('refuses a rename to a name the asset already has, naming the field, changing nothing', async () => {
+		const [first, second] = [await made('Kept name'), await made('Other name')];
+		const response = await engineer.patchJson(`${customUrl()}/${second.id}`, {
+			name: first.name
+		});
+		expect(response.status).toBe(400);
+		const body = await response.json();
+		expect(body.error.field).toBe('name');
+		expect(body.error.message).toContain(first.name);
+		expect(await populationsNamed(second.name)).toBe(1);
+		expect(await auditOf('population.custom.rename', second.id)).toHaveLength(0);
+		const empty = await engineer.patchJson(`${customUrl()}/${second.id}`, { name: '  ' });
+		expect(empty.status).toBe(400);
+		expect((await empty.json()).error.field).toBe('name');
+	});
+
+	it('lets only one of two simultaneous renames to the same name win', async () => {
+		const [a, b] = [await made('Race A'), await made('Race B')];
+		const name = uniqueName('Raced');
+		const answers = await Promise.all(
+			[a, b].map((p) => engineer.patchJson(`${customUrl()}/${p.id}`, { name }))
+		);
+		expect(answers.map((r) => r.status).sort()).toEqual([200, 400]);
+		const loser = await answers.find((r) => r.status === 400)!.json();
+		expect(loser.error.field).toBe('name');
+		expect(await populationsNamed(name)).toBe(1);
+	});
+
+	it('deletes a population that an assessment carries; the assessment keeps its own copy', async () => {
+		const population = await made('To delete');
+		const saved = await engineer.postJson(`/api/v1/assets/${carParkId}/assessments`, {
+			title: uniqueName('Carries a custom population'),
+			custom: [population.id]
+		});
+		expect(saved.status).toBe(201);
+		const assessmentId = (await saved.json()).assessment.id as number;
+		const read = async () =>
+			(await (await engineer.get(`/api/v1/assessments/${assessmentId}`, JSON_ACCEPT)).json())
+				.assessment;
+		const before = await read();
+		const carried = before.snapshot.custom.find(
+			(c: { custom: { id: number } }) => c.custom.id === population.id
+		);
+		expect(carried.custom.name).toBe(population.name);
+
+		const response = await engineer.delete(`${customUrl()}/${population.id}`);
+		expect(response.status).toBe(204);
+		expect(await populationsNamed(population.name)).toBe(0);
+		const audits = await auditOf('population.custom.delete', population.id);
+		expect(audits).toHaveLength(1);
+		expect(parsed(audits[0].detail)).toMatchObject({
+			name: population.name,
+			memberIds: [...split().chosen].sort((x, y) => x - y)
+		});
+		// The snapshot is self-contained: the same text (its sha256) and the same copy.
+		const after = await read();
+		expect(after.snapshotSha256).toBe(before.snapshotSha256);
+		expect(after.snapshot.custom).toEqual(before.snapshot.custom);
+		// The population is gone from the list and its detail, and a second delete finds nothing.
+		const listed = await (await engineer.get(customUrl(), JSON_ACCEPT)).json();
+		expect(listed.populations.map((p: { id: number }) => p.id)).not.toContain(population.id);
+		const detail = await engineer.get(
+			`/api/v1/assets/${carParkId}/populations/detail?custom=${population.id}`,
+			JSON_ACCEPT
+		);
+		expect(detail.status).toBe(404);
+		expect((await engineer.delete(`${customUrl()}/${population.id}`)).status).toBe(404);
+		await sequelize.query('DELETE FROM assessment_risks WHERE assessment_id = ?', {
+			replacements: [assessmentId]
+		});
+		await sequelize.query('DELETE FROM assessments WHERE id = ?', { replacements: [assessmentId] });
+	});
+
+	it('saves an assessment carrying only the custom populations chosen: some, none, or by default all', async () => {
+		const [a, b] = [await made('Carried'), await made('Left out')];
+		const every = (
+			(await (await engineer.get(customUrl(), JSON_ACCEPT)).json()).populations as {
+				id: number;
+			}[]
+		).map((p) => p.id);
+		const saved: number[] = [];
+		const carried = async (custom: number[] | undefined) => {
+			const response = await engineer.postJson(`/api/v1/assets/${carParkId}/assessments`, {
+				title: uniqueName('Chosen populations'),
+				...(custom === undefined ? {} : { custom })
+			});
+			expect(response.status).toBe(201);
+			const id = (await response.json()).assessment.id as number;
+			saved.push(id);
+			const body = await (await engineer.get(`/api/v1/assessments/${id}`, JSON_ACCEPT)).json();
+			return (body.assessment.snapshot.custom as { custom: { id: number } }[]).map(
+				(c) => c.custom.id
+			);
+		};
+		try {
+			expect(await carried([a.id])).toEqual([a.id]);
+			expect(await carried([])).toEqual([]);
+			const all = await carried(undefined);
+			expect(all).toEqual(expect.arrayContaining([a.id, b.id, ...every]));
+			expect(all).toHaveLength(every.length);
+			// One that is not this asset's: 400 naming the field, nothing saved.
+			const before = await count('SELECT COUNT(*) AS n FROM assessments WHERE asset_id = ?', [
+				carParkId
+			]);
+			const refused = await engineer.postJson(`/api/v1/assets/${carParkId}/assessments`, {
+				title: uniqueName('Unknown population'),
+				custom: [a.id, 4_000_000_000]
+			});
+			expect(refused.status).toBe(400);
+			const error = (await refused.json()).error;
+			expect(error.field).toBe('custom');
+			expect(error.message).toContain('4000000000');
+			expect(
+				await count('SELECT COUNT(*) AS n FROM assessments WHERE asset_id = ?', [carParkId])
+			).toBe(before);
+		} finally {
+			for (const id of saved) {
+				await sequelize.query('DELETE FROM assessment_risks WHERE assessment_id = ?', {
+					replacements: [id]
+				});
+				await sequelize.query('DELETE FROM assessments WHERE id = ?', { replacements: [id] });
+			}
+		}
+	});
+
+	it('answers a population of another asset, or none, with 404 on rename and delete', async () => {
+		const population = await made('Not elsewhere');
+		const otherAsset = await sequelize.query<{ id: number }>(
+			`SELECT a.id FROM assets a JOIN assets c ON c.organisation_id = a.organisation_id
+			  WHERE c.id = ? AND a.id <> c.id ORDER BY a.id LIMIT 1`,
+			{ replacements: [carParkId], type: QueryTypes.SELECT, plain: true }
+		);
+		const elsewhere = `/api/v1/assets/${otherAsset!.id}/populations/custom/${population.id}`;
+		expect((await engineer.patchJson(elsewhere, { name: uniqueName('Moved') })).status).toBe(404);
+		expect((await engineer.delete(elsewhere)).status).toBe(404);
+		const none = `${customUrl()}/4000000000`;
+		expect((await engineer.patchJson(none, { name: uniqueName('Ghost') })).status).toBe(404);
+		expect((await engineer.delete(none)).status).toBe(404);
+		expect(await populationsNamed(population.name)).toBe(1);
+	});
+
+	it.each(['owner', 'surveyor', 'researcher'] as const)(
+		'refuses the %s a rename or a delete: 403, nothing changed',
+		async (role) => {
+			const population = await made(`Kept from ${role}`);
+			const client = await signInAs(role);
+			const url = `${customUrl()}/${population.id}`;
+			const renamed = await client.patchJson(url, { name: uniqueName(`By ${role}`) });
+			expect(renamed.status).toBe(403);
+			expect((await renamed.json()).error.code).toBe('forbidden');
+			const deleted = await client.delete(url);
+			expect(deleted.status).toBe(403);
+			expect(await populationsNamed(population.name)).toBe(1);
+		}
+	);
 });

@@ -61,6 +61,7 @@ async function call(
 	if (endpoint.method === 'get') return client.get(path, { accept: endpoint.response.mediaType! });
 	if (endpoint.method === 'delete') return client.delete(path);
 	if (endpoint.method === 'put') return client.putJson(path, body);
+	if (endpoint.method === 'patch') return client.patchJson(path, body);
 	if (file) return client.postBody(path, file.example.text, file.example.contentType);
 	return endpoint.body ? client.postJson(path, body) : client.postBody(path);
 }
@@ -88,6 +89,18 @@ const BEFORE: Record<string, () => Promise<void>> = {
 	// Only a pending or running import can be cancelled: the file uploaded again is one.
 	cancelImport: async () => {
 		intakeIds.batchId = (await (await call(byId('uploadImport'))).json()).batchId;
+	},
+	// A population of the car park's own to rename (to the example's name) and then delete.
+	renameCustomPopulation: async () => {
+		const name = (byId('renameCustomPopulation').exampleBody as { name: string }).name;
+		await sequelize.query('DELETE FROM custom_populations WHERE asset_id = ? AND name = ?', {
+			replacements: [demoIds.assetId, name]
+		});
+		const made = await admin.postJson(`/api/v1/assets/${demoIds.assetId}/populations/custom`, {
+			name: `Example ${Date.now()}`,
+			members: [demoIds.memberId]
+		});
+		demoIds.customId = ((await made.json()) as { population: { id: number } }).population.id;
 	}
 };
 

@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import type { CoverMapGrid } from '$lib/populations/coverMap';
-import { lowCoverAreas } from '$lib/populations/lowCoverAreas';
+import { groupLowAreas, lowCoverAreas, SMALL_AREA_M2 } from '$lib/populations/lowCoverAreas';
 
 /**
  * A grid drawn by hand: each character is one cell of 500 mm × 250 mm (a 3 m × 1.5 m member
@@ -116,5 +116,57 @@ describe('low-cover areas: connected cells below the threshold (hand-drawn grid)
 		const areas = lowCoverAreas(profile, 30);
 		expect(areas.map((a) => a.lengthM)).toEqual([2, 2]);
 		expect(areas.map((a) => a.areaM2)).toEqual([2, 2]);
+	});
+});
+
+describe('small spots: single cells and areas under the minimum are counted, not listed', () => {
+	// Drawn by hand: 8 × 4 cells of 0.5 m × 0.5 m (0.25 m² each) on a 4 m × 2 m member; with the
+	// threshold 30 mm the 1s and 2s are low. Counted on the drawing: a 5-cell area top left
+	// (1.25 m²), a 2-cell area (4,2)–(5,2) (0.5 m²), and three single cells (6,0), (0,3), (7,3).
+	const SPOTTY = [
+		'11155515', // row 0
+		'11555555',
+		'55552255',
+		'25555552'
+	];
+	const grid = gridOf(SPOTTY, 4000, 2000);
+	const areas = lowCoverAreas(grid, 30);
+
+	it('finds five areas in all', () => {
+		expect(areas.map((a) => a.cells.length)).toEqual([5, 2, 1, 1, 1]);
+	});
+
+	it('by default (0.25 m²) lists the two areas of more than one cell and counts three spots', () => {
+		expect(SMALL_AREA_M2).toBe(0.25);
+		const { listed, spots } = groupLowAreas(areas);
+		expect(listed.map((a) => a.areaM2)).toEqual([1.25, 0.5]);
+		expect(spots.count).toBe(3);
+		expect(spots.areaM2).toBeCloseTo(0.75, 12);
+		expect(spots.share).toBeCloseTo(3 / 32, 12);
+		// (6,0) reads 10 mm, (0,3) and (7,3) 20 mm.
+		expect(spots.leastMm).toBe(10);
+	});
+
+	it('with 1 m² lists only the large area; with 0 lists every area, single cells too', () => {
+		const large = groupLowAreas(areas, 1);
+		expect(large.listed.map((a) => a.cells.length)).toEqual([5]);
+		expect(large.spots.count).toBe(4);
+		expect(large.spots.areaM2).toBeCloseTo(1.25, 12);
+		const every = groupLowAreas(areas, 0);
+		expect(every.listed).toHaveLength(5);
+		expect(every.spots).toEqual({ count: 0, areaM2: 0, share: 0, leastMm: null });
+	});
+
+	it('counts an area of several cells under the minimum as a spot (cells of 0.25 m × 0.25 m)', () => {
+		// The same drawing on a 2 m × 1 m member: cells of 0.0625 m², the 5-cell area 0.3125 m²,
+		// the 2-cell area 0.125 m² (under 0.25 m²).
+		const small = groupLowAreas(lowCoverAreas(gridOf(SPOTTY, 2000, 1000), 30));
+		expect(small.listed.map((a) => a.areaM2)).toEqual([0.3125]);
+		expect(small.spots.count).toBe(4);
+		expect(small.spots.areaM2).toBeCloseTo(0.125 + 3 * 0.0625, 12);
+	});
+
+	it('refuses a negative minimum', () => {
+		expect(() => groupLowAreas(areas, -1)).toThrow(/minimum area/);
 	});
 });

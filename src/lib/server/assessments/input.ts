@@ -18,6 +18,15 @@ export const saveSchema = z.object({
 		.nullable()
 		.default(null),
 	split: z.enum(SPLITS).default('none'),
+	/**
+	 * The custom populations the assessment carries, by id; absent or null, every one the asset
+	 * has (what an engineer who made them to judge them expects); [] for none.
+	 */
+	custom: z
+		.array(z.number().int().positive(), 'Choose the custom populations by id.')
+		.max(500, 'At most 500 custom populations.')
+		.nullable()
+		.default(null),
 	methods: methodSchema.default(methodSchema.parse({})),
 	recommendations: z
 		.string()

@@ -10,7 +10,14 @@ import { db, Assessment, Asset, Organisation } from '$lib/server/db';
 import { recordAudit } from '$lib/server/audit';
 import { apiError } from '$lib/server/web/http';
 import { can, type Actor } from '$lib/server/policy';
-import { ownAsset, surveySelection, visibleAsset, visibleSurvey } from '$lib/server/populations';
+import { InputError } from '$lib/server/domainErrors';
+import {
+	customPopulationsOf,
+	ownAsset,
+	surveySelection,
+	visibleAsset,
+	visibleSurvey
+} from '$lib/server/populations';
 import type { MethodChoice, Split } from '$lib/server/populations';
 import { buildSnapshot, serialiseSnapshot, sha256Hex } from './snapshot';
 
@@ -21,6 +28,8 @@ export interface SaveInput {
 	/** The surveys to include; null, the default selection (approved surveys, selection.ts). */
 	surveyIds?: number[] | null;
 	split: Split;
+	/** The custom populations to carry, by id; null or absent, every one of the asset. */
+	customIds?: number[] | null;
 	methods: MethodChoice;
 	recommendations: string | null;
 	/** An approved assessment this one is to replace, with the reason. */
@@ -35,6 +44,22 @@ async function checkSupersedable(assetId: number, id: number) {
 	}
 }
 
+/**
+ * The custom populations an assessment carries: every one of the asset when none are named,
+ * else the named ones, each of which must be the asset's (400 naming `custom`, nothing saved).
+ */
+async function chosenCustom(assetId: number, ids: number[] | null): Promise<number[]> {
+	const all = (await customPopulationsOf(assetId)).map((c) => c.id);
+	if (ids === null) return all;
+	const known = new Set(all);
+	const unknown = ids.find((id) => !known.has(id));
+	if (unknown !== undefined) {
+		const message = `Custom population ${unknown} is not one of this asset's.`;
+		throw new InputError(message, { custom: [message] });
+	}
+	return [...new Set(ids)].sort((a, b) => a - b);
+}
+
 /** Compute the populations now and keep them as a draft assessment. */
 export async function saveDraft(actor: Actor, input: SaveInput): Promise<Assessment> {
 	const asset = await ownAsset(actor, input.assetId);
@@ -45,11 +70,13 @@ export async function saveDraft(actor: Actor, input: SaveInput): Promise<Assessm
 	if (selection.surveyIds.length === 0) {
 		apiError(400, 'invalid_input', selection.words, 'surveys');
 	}
+	const customIds = await chosenCustom(asset.id, input.customIds ?? null);
 	const snapshot = await buildSnapshot(
 		asset,
 		{ surveyId: input.surveyId, split: input.split },
 		input.methods,
-		selection
+		selection,
+		customIds
 	);
 	const { text, sha256 } = serialiseSnapshot(snapshot);
 	// Durability projections with the stated defaults, kept with the draft (risk/store.ts).

@@ -72,7 +72,8 @@ export interface AssessmentSnapshot {
 	/**
 	 * The populations the engineers made (members split out of a group, or chosen by hand), each
 	 * with its member ids and judged over the same surveys and methods; kept apart from
-	 * `populations` so no member counts twice in the risk annex. Absent in older snapshots.
+	 * `populations` so no member counts twice in the risk annex. Only those the engineer chose to
+	 * carry (all of the asset's when the save named none). Absent in older snapshots.
 	 */
 	custom?: JudgedCustomPopulation[];
 }
@@ -94,7 +95,9 @@ export async function buildSnapshot(
 	asset: Asset,
 	scope: { surveyId: number | null; split: Split },
 	methods: MethodChoice,
-	selection?: SurveySelection
+	selection?: SurveySelection,
+	/** The custom populations to carry; absent, every one of the asset. */
+	customIds?: readonly number[]
 ): Promise<AssessmentSnapshot> {
 	const overview = await populationOverview({
 		assetId: asset.id,
@@ -139,6 +142,7 @@ export async function buildSnapshot(
 			assetId: asset.id,
 			surveyIds: selection?.surveyIds ?? (scope.surveyId ? [scope.surveyId] : undefined),
 			choice: methods,
+			ids: customIds,
 			charts: true
 		})
 	};

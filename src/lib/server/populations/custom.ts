@@ -57,16 +57,27 @@ const info = (c: CustomPopulation): CustomPopulationInfo => ({
 	createdAt: new Date(c.createdAt).toISOString()
 });
 
+/** The asset, when the actor's organisation owns it: a read-only share may look, not change. */
+async function ownedAsset(actor: Actor, assetId: number) {
+	const asset = await scopedAsset(actor, assetId, 'read');
+	if (asset.organisationId !== actor.organisationId) {
+		throw new ReadOnlyError('This asset is shared with you to read; its owner makes populations.');
+	}
+	return asset;
+}
+
+const duplicateName = (name: string) => {
+	const message = `This asset already has a population named “${name}”.`;
+	return new InputError(message, { name: [message] });
+};
+
 /** Save a custom population of an asset the actor's organisation owns; audited. */
 export async function createCustomPopulation(
 	actor: Actor,
 	assetId: number,
 	input: CustomPopulationInput
 ): Promise<CustomPopulationInfo> {
-	const asset = await scopedAsset(actor, assetId, 'read');
-	if (asset.organisationId !== actor.organisationId) {
-		throw new ReadOnlyError('This asset is shared with you to read; its owner makes populations.');
-	}
+	await ownedAsset(actor, assetId);
 	const memberIds = [...new Set(input.members)].sort((a, b) => a - b);
 	const members = await Member.findAll({
 		attributes: ['id', 'memberType', 'exposureClass'],
@@ -126,12 +137,91 @@ export async function createCustomPopulation(
 			return info(created);
 		});
 	} catch (err) {
-		if (err instanceof UniqueConstraintError) {
-			const message = `This asset already has a population named “${input.name}”.`;
-			throw new InputError(message, { name: [message] });
-		}
+		if (err instanceof UniqueConstraintError) throw duplicateName(input.name);
 		throw err;
 	}
+}
+
+export const renameSchema = z.object({ name: customPopulationSchema.shape.name });
+export type RenameInput = z.infer<typeof renameSchema>;
+
+/**
+ * Rename a custom population of an asset the actor's organisation owns; audited with the old
+ * and new names. Two renames to one name race on the unique index, as two saves do: one wins.
+ */
+export async function renameCustomPopulation(
+	actor: Actor,
+	assetId: number,
+	customId: number,
+	input: RenameInput
+): Promise<CustomPopulationInfo> {
+	await ownedAsset(actor, assetId);
+	try {
+		return await db().transaction(async (transaction) => {
+			const row = await CustomPopulation.findOne({
+				where: { id: customId, assetId },
+				transaction,
+				lock: transaction.LOCK.UPDATE
+			});
+			if (!row) throw new NotFoundError('The population');
+			const before = row.name;
+			row.name = input.name;
+			await row.save({ transaction });
+			await recordAudit(
+				{
+					action: 'population.custom.rename',
+					organisationId: actor.organisationId,
+					userId: actor.userId,
+					subjectType: 'custom_population',
+					subjectId: row.id,
+					detail: { assetId, from: before, to: input.name }
+				},
+				transaction
+			);
+			return info(row);
+		});
+	} catch (err) {
+		if (err instanceof UniqueConstraintError) throw duplicateName(input.name);
+		throw err;
+	}
+}
+
+/**
+ * Delete a custom population of an asset the actor's organisation owns; audited with what it
+ * held. Allowed even when an assessment carries it: a snapshot keeps its own copy of the
+ * population (name, member ids and judged figures), so it reads the same after the delete.
+ */
+export async function deleteCustomPopulation(
+	actor: Actor,
+	assetId: number,
+	customId: number
+): Promise<void> {
+	await ownedAsset(actor, assetId);
+	await db().transaction(async (transaction) => {
+		const row = await CustomPopulation.findOne({
+			where: { id: customId, assetId },
+			transaction,
+			lock: transaction.LOCK.UPDATE
+		});
+		if (!row) throw new NotFoundError('The population');
+		await row.destroy({ transaction });
+		await recordAudit(
+			{
+				action: 'population.custom.delete',
+				organisationId: actor.organisationId,
+				userId: actor.userId,
+				subjectType: 'custom_population',
+				subjectId: row.id,
+				detail: {
+					assetId,
+					name: row.name,
+					memberIds: row.memberIds,
+					splitFrom: row.splitFrom
+				}
+			},
+			transaction
+		);
+	});
 }
 
 /** The custom populations of an asset (visibility is the caller's check), oldest first. */
@@ -139,6 +229,7 @@ export async function customPopulationsOf(
 	assetId: number,
 	ids?: readonly number[]
 ): Promise<CustomPopulationInfo[]> {
+	if (ids && ids.length === 0) return [];
 	const where = ids ? { assetId, id: [...ids] } : { assetId };
 	const rows = await CustomPopulation.findAll({ where, order: [['id', 'ASC']] });
 	if (ids && rows.length !== new Set(ids).size) throw new NotFoundError('The population');

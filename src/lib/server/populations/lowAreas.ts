@@ -4,16 +4,18 @@
  * map is binned in SQL (coverMapGrid.ts), so this reads no readings into Node.
  */
 import { Member } from '$lib/server/db';
-import { lowCoverAreas } from '$lib/populations/lowCoverAreas';
+import { groupLowAreas, lowCoverAreas } from '$lib/populations/lowCoverAreas';
 import type { LowAreaSummary } from '$lib/words';
 import { coverMapGrid } from './coverMapGrid';
 
 export interface MemberLowAreas extends LowAreaSummary {
 	memberId: number;
 	cMinMm: number;
-	/** The member's share below c_min (0–1) and each area's m², largest first. */
+	/** The member's share below c_min (0–1), small spots included, and each listed area's m², largest first. */
 	share: number;
 	areasM2: number[];
+	spotCount: number;
+	spotM2: number;
 }
 
 export interface PopulationLowAreas {
@@ -36,16 +38,28 @@ export async function populationLowAreas(
 		where: { id: ids },
 		raw: true
 	});
-	const byId = new Map<number, { label: string; cMinMm: number; share: number; areas: number[] }>();
+	const byId = new Map<
+		number,
+		{
+			label: string;
+			cMinMm: number;
+			share: number;
+			areas: number[];
+			spots: { count: number; areaM2: number };
+		}
+	>();
 	for (let k = 0; k < members.length; k += CONCURRENCY) {
 		await Promise.all(
 			members.slice(k, k + CONCURRENCY).map(async (m) => {
 				const areas = lowCoverAreas(await coverMapGrid(m), m.cMinMm);
+				// The map's default rule: single cells and areas under SMALL_AREA_M2 are spots.
+				const { listed, spots } = groupLowAreas(areas);
 				byId.set(m.id, {
 					label: m.label,
 					cMinMm: m.cMinMm,
 					share: areas.reduce((s, a) => s + a.share, 0),
-					areas: areas.map((a) => a.areaM2)
+					areas: listed.map((a) => a.areaM2),
+					spots
 				});
 			})
 		);
@@ -56,7 +70,7 @@ export async function populationLowAreas(
 		members: p.members
 			.flatMap((pm) => {
 				const m = byId.get(pm.id);
-				if (!m || m.areas.length === 0) return [];
+				if (!m || m.areas.length + m.spots.count === 0) return [];
 				return [
 					{
 						memberId: pm.id,
@@ -66,7 +80,9 @@ export async function populationLowAreas(
 						areaCount: m.areas.length,
 						areaM2: m.areas.reduce((s, a) => s + a, 0),
 						share: m.share,
-						areasM2: m.areas
+						areasM2: m.areas,
+						spotCount: m.spots.count,
+						spotM2: m.spots.areaM2
 					}
 				];
 			})

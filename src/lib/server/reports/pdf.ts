@@ -11,6 +11,7 @@ import { MARGIN, ReportWriter } from './layout';
 import { appendices } from './sections/appendices';
 import { coverPage, ownerSummary } from './sections/front';
 import { lowAreaSection } from './sections/lowAreas';
+import { customSection } from './sections/custom';
 import { methodStatement } from './sections/method';
 import { populationSections } from './sections/populations';
 import { riskSection } from './sections/risk';
@@ -79,6 +80,7 @@ export function buildReportPdf(
 	coverPage(w, source, generatedAt);
 	ownerSummary(w, source);
 	lowAreaSection(w, source);
+	customSection(w, source);
 	methodStatement(w, source);
 	populationSections(w, source);
 	riskSection(w, source);

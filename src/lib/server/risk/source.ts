@@ -4,7 +4,7 @@
  * `fromSnapshot` is the one adapter, so a change to the snapshot's shape changes only this file.
  */
 import type { MeterVerification, PopulationAssessment } from '$lib/analysis';
-import type { LowAreaSummary } from '$lib/words';
+import type { CarriedCustomLike, LowAreaSummary } from '$lib/words';
 
 export interface SnapshotPopulationLike {
 	id: string;
@@ -53,6 +53,8 @@ export interface SnapshotLike {
 	readingCount: number;
 	/** Low-cover areas per population (populations/lowAreas.ts); absent in older snapshots. */
 	lowAreas?: { members: (LowAreaSummary & { share: number })[] }[];
+	/** The custom populations the assessment carries, apart from `populations`; absent in older snapshots. */
+	custom?: CarriedCustomLike[];
 }
 
 /** The assessment row's own fields that the report shows beside its snapshot. */

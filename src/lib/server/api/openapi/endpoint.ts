@@ -27,7 +27,7 @@ export interface FileBody {
 }
 
 export interface Endpoint {
-	method: 'get' | 'put' | 'post' | 'delete';
+	method: 'get' | 'put' | 'patch' | 'post' | 'delete';
 	/** OpenAPI path, with {param} placeholders. */
 	path: string;
 	operationId: string;

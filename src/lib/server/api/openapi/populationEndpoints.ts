@@ -1,6 +1,7 @@
 import { z } from 'zod';
 import { calibrationSchema, groupSchema, methodSchema, scopeSchema } from '../../populations/query';
-import { customPopulationSchema } from '../../populations/custom';
+import { customPopulationSchema, renameSchema } from '../../populations/custom';
+import { READ_ONLY } from './errors';
 import { idParam } from '../schemas';
 import type { Endpoint } from './endpoint';
 
@@ -11,6 +12,7 @@ import type { Endpoint } from './endpoint';
  */
 const engineResult = (what: string) => z.record(z.string(), z.unknown()).describe(what);
 const assetParams = z.object({ assetId: idParam('asset') });
+const customParams = assetParams.extend({ customId: idParam('custom population') });
 
 export const populationEndpoints: Endpoint[] = [
 	{
@@ -87,6 +89,38 @@ export const populationEndpoints: Endpoint[] = [
 			schema: z.object({ population: engineResult('The saved population.') }),
 			description: 'Saved.'
 		}
+	},
+	{
+		method: 'patch',
+		path: '/api/v1/assets/{assetId}/populations/custom/{customId}',
+		operationId: 'renameCustomPopulation',
+		tag: 'Populations',
+		summary: 'Rename a population the engineers made; audited with the old and new name',
+		description:
+			'Owning organisation only. The name stays unique on the asset: of two renames to one name, one wins and the other answers 400 naming the field.',
+		action: 'assessment:write',
+		params: customParams,
+		body: renameSchema,
+		exampleBody: { name: 'Bay 4, low patch' },
+		response: {
+			mediaType: 'application/json',
+			schema: z.object({ population: engineResult('The renamed population.') }),
+			description: 'Renamed.'
+		},
+		errors: { '403': READ_ONLY }
+	},
+	{
+		method: 'delete',
+		path: '/api/v1/assets/{assetId}/populations/custom/{customId}',
+		operationId: 'deleteCustomPopulation',
+		tag: 'Populations',
+		summary: 'Delete a population the engineers made; audited with what it held',
+		description:
+			'Owning organisation only. Assessments that carry it keep their own copy in their snapshot and read the same afterwards.',
+		action: 'assessment:write',
+		params: customParams,
+		response: { status: 204, description: 'Deleted.' },
+		errors: { '403': READ_ONLY }
 	},
 	{
 		method: 'get',

@@ -1,7 +1,8 @@
 /** Where to treat first: the low-cover areas kept in the snapshot (populations/lowAreas.ts). */
 import type { AssessedSource } from '$lib/server/risk';
-import { treatFirstWords } from '$lib/words';
+import { memberLowAreaWords, treatFirstWords } from '$lib/words';
 import type { ReportWriter } from '../layout';
+import { SMALL_AREA_M2 } from '$lib/populations/lowCoverAreas';
 
 export function lowAreaSection(w: ReportWriter, source: AssessedSource): void {
 	const populations = source.snapshot.lowAreas;
@@ -12,7 +13,8 @@ export function lowAreaSection(w: ReportWriter, source: AssessedSource): void {
 	if (members.length === 0) return;
 	w.paragraph(
 		'An area is a set of cover-map cells whose least reading is below the member’s c_min, joined ' +
-			'through shared edges; its size is the cells’ area.',
+			'through shared edges; its size is the cells’ area. Areas of a single cell or under ' +
+			`${SMALL_AREA_M2} m² are counted together as small spots, as on the member’s map.`,
 		{ size: 8 }
 	);
 	w.keyValues(
@@ -21,7 +23,7 @@ export function lowAreaSection(w: ReportWriter, source: AssessedSource): void {
 			.slice(0, 8)
 			.map((m): [string, string] => [
 				`${m.memberLabel} (${m.populationLabel})`,
-				`${m.areaCount} area${m.areaCount === 1 ? '' : 's'}, ${m.areaM2.toFixed(1)} m² (${(m.share * 100).toFixed(1)} % of the member)`
+				`${memberLowAreaWords(m)} (${(m.share * 100).toFixed(1)} % of the member below c_min)`
 			])
 	);
 }

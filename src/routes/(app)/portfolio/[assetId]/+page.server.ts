@@ -7,6 +7,7 @@ import { authorize } from '$lib/server/web/actor';
 import { can } from '$lib/server/policy';
 import { linksOf, revokeLink, shareReport, shareSchema } from '$lib/server/reports';
 import { assetView, toRiskView } from '$lib/server/risk';
+import { customPopulationWords } from '$lib/words';
 
 const idSchema = z.coerce.number().int().positive().max(4_294_967_295);
 
@@ -26,6 +27,8 @@ export const load: PageServerLoad = async (event) => {
 		asset,
 		view: latest ? toRiskView(latest) : null,
 		lowAreas: latest?.snapshot.lowAreas?.flatMap((p) => p.members) ?? null,
+		/** The populations the engineer made and the assessment carries, one sentence each. */
+		custom: (latest?.snapshot.custom ?? []).map(customPopulationWords),
 		mayShare,
 		links: links.map((l) => ({
 			id: l.id,

@@ -5,6 +5,7 @@ import { pageActor } from '$lib/server/web/guard';
 import { authorize } from '$lib/server/web/actor';
 import { can } from '$lib/server/policy';
 import {
+	customPopulationsOf,
 	methodSchema,
 	readingCountOf,
 	requestedSurveyIds,
@@ -14,6 +15,7 @@ import {
 } from '$lib/server/populations';
 import { pathId } from '$lib/server/web/params';
 import { history, saveDraft, saveSchema, summarise } from '$lib/server/assessments';
+import { InputError } from '$lib/server/domainErrors';
 
 export const load: PageServerLoad = async (event) => {
 	const actor = pageActor(event, 'assessment:read');
@@ -41,6 +43,13 @@ export const load: PageServerLoad = async (event) => {
 					? methods.error.issues[0].message
 					: null
 		},
+		/** The asset's custom populations, to choose which the assessment carries. */
+		custom: (await customPopulationsOf(asset.id)).map((c) => ({
+			id: c.id,
+			name: c.name,
+			memberCount: c.memberIds.length,
+			splitFromLabel: c.splitFromLabel
+		})),
 		assessments: await summarise(rows),
 		canSave: own && can(actor.role, 'assessment:write'),
 		canApprove: own && can(actor.role, 'assessment:approve')
@@ -52,10 +61,11 @@ const formSchema = z.object({
 	recommendations: z.string().trim().max(20_000).optional(),
 	supersedesId: z.coerce.number().int().positive().optional(),
 	reason: z.string().trim().optional(),
-	query: z.string().max(2000).default('')
+	query: z.string().max(2000).default(''),
+	custom: z.array(z.coerce.number().int().positive()).max(500).default([])
 });
 
-type FormErrors = Partial<Record<'title' | 'reason', string>>;
+type FormErrors = Partial<Record<'title' | 'reason' | 'custom', string>>;
 const refuse = (
 	values: { title: string; reason: string },
 	errors: FormErrors
@@ -66,13 +76,19 @@ export const actions = {
 	/** Save the populations as they are now (with the methods in the page URL) as a draft. */
 	save: async ({ locals, params, request }) => {
 		const actor = authorize(locals, 'assessment:write');
-		const fields = Object.fromEntries(await request.formData()) as Record<string, string>;
+		const form = await request.formData();
+		const fields = Object.fromEntries(form) as Record<string, string>;
 		const values = { title: fields.title ?? '', reason: fields.reason ?? '' };
-		const parsed = formSchema.safeParse(fields);
+		// The ticked custom populations: none ticked is a choice of none.
+		const parsed = formSchema.safeParse({ ...fields, custom: form.getAll('custom') });
 		if (!parsed.success) {
 			const issue = parsed.error.issues[0];
 			const errors: FormErrors =
-				issue.path[0] === 'reason' ? { reason: issue.message } : { title: issue.message };
+				issue.path[0] === 'reason'
+					? { reason: issue.message }
+					: issue.path[0] === 'custom'
+						? { custom: issue.message }
+						: { title: issue.message };
 			return refuse(values, errors);
 		}
 		const query = Object.fromEntries(new URLSearchParams(parsed.data.query));
@@ -94,16 +110,24 @@ export const actions = {
 				title: 'No survey is included: go back and tick at least one survey.'
 			});
 		}
-		const saved = await saveDraft(actor, {
-			assetId: pathId(params.assetId),
-			title: parsed.data.title,
-			surveyId: null,
-			surveyIds: requestedSurveyIds(scope.data),
-			split: scope.data.split,
-			methods: methods.data,
-			recommendations: parsed.data.recommendations || null,
-			supersedes: supersedes?.data ?? null
-		});
+		let saved;
+		try {
+			saved = await saveDraft(actor, {
+				assetId: pathId(params.assetId),
+				title: parsed.data.title,
+				surveyId: null,
+				surveyIds: requestedSurveyIds(scope.data),
+				split: scope.data.split,
+				customIds: parsed.data.custom,
+				methods: methods.data,
+				recommendations: parsed.data.recommendations || null,
+				supersedes: supersedes?.data ?? null
+			});
+		} catch (err) {
+			// A population deleted since the page was drawn: say so beside the choice.
+			if (err instanceof InputError) return refuse(values, { custom: err.message });
+			throw err;
+		}
 		redirect(303, `/assessments/${saved.id}`);
 	}
 } satisfies Actions;
