@@ -17,7 +17,7 @@ it('measures the population pages', { timeout: 600_000 }, async () => {
 	// and asset removed at the end.
 	const { populationOverview, populationDetail, memberComparison, methodSchema } =
 		await import('../../src/lib/server/populations');
-	const { fitNormalMixture } = await import('../../src/lib/analysis');
+	const { fitNormalMixtureCounted } = await import('../../src/lib/analysis');
 	const { db, closeDb } = await import('../../src/lib/server/db');
 	const sequelize = db();
 	const q = (sql: string, replacements: unknown[] = []) =>
@@ -130,7 +130,7 @@ it('measures the population pages', { timeout: 600_000 }, async () => {
 	console.log(
 		`  + members compared (${one.group.members.length} members): median ${median(members).toFixed(0)} ms`
 	);
-	const mixture = await time(async () => fitNormalMixture(one.group.coversMm, { seed: 1 }));
+	const mixture = await time(async () => fitNormalMixtureCounted(one.group.sample, { seed: 1 }));
 	console.log(`  + two-component mixture by EM: median ${median(mixture).toFixed(0)} ms`);
 	await conn.query('DELETE FROM readings WHERE member_id IN (?)', [memberIds]);
 	await conn.query('DELETE FROM members WHERE asset_id = ?', [assetId]);

@@ -1,6 +1,7 @@
 /**
  * Histogram bins for charts.
  */
+import { type CountedSample, percentileCounted } from './countedSample';
 import { percentileSorted } from './percentile';
 import { requireReadings } from './readings';
 
@@ -18,14 +19,49 @@ export interface HistogramBin {
  * the IQR by type 7 percentiles; the bin count is held between 5 and 100 (our limits, so a chart
  * stays readable), and Sturges' ⌈log2 n⌉ + 1 bins are used when the IQR is 0.
  */
-function freedmanDiaconisBins(sorted: Float64Array): number {
-	const n = sorted.length;
-	const range = sorted[n - 1] - sorted[0];
-	const iqr = percentileSorted(sorted, 0.75) - percentileSorted(sorted, 0.25);
+function freedmanDiaconisBins(n: number, range: number, iqr: number): number {
 	const bins =
 		iqr > 0 ? Math.ceil(range / (2 * iqr * Math.cbrt(1 / n))) : Math.ceil(Math.log2(n)) + 1;
 	return Math.min(MAX_BINS, Math.max(MIN_BINS, bins));
 }
+
+interface BinLayout {
+	startMm: number;
+	widthMm: number;
+	bins: HistogramBin[];
+}
+
+/** The empty bins for readings from minMm to maxMm (the IQR asked for only when needed). */
+function layout(
+	n: number,
+	minMm: number,
+	maxMm: number,
+	iqr: () => number,
+	binWidthMm?: number
+): BinLayout {
+	let startMm: number;
+	let widthMm: number;
+	let count: number;
+	if (binWidthMm !== undefined) {
+		if (!(binWidthMm > 0)) throw new Error('histogram needs a bin width above 0 mm');
+		startMm = Math.floor(minMm / binWidthMm) * binWidthMm;
+		widthMm = binWidthMm;
+		count = Math.max(1, Math.ceil((maxMm - startMm) / widthMm) + (maxMm === startMm ? 1 : 0));
+		if (count > 1000) throw new Error('histogram bin width gives more than 1000 bins');
+	} else {
+		count = maxMm > minMm ? freedmanDiaconisBins(n, maxMm - minMm, iqr()) : 1;
+		startMm = minMm;
+		widthMm = maxMm > minMm ? (maxMm - minMm) / count : 1;
+	}
+	const bins: HistogramBin[] = [];
+	for (let b = 0; b < count; b++) {
+		bins.push({ fromMm: startMm + b * widthMm, toMm: startMm + (b + 1) * widthMm, count: 0 });
+	}
+	return { startMm, widthMm, bins };
+}
+
+const binOf = (l: BinLayout, x: number) =>
+	Math.min(l.bins.length - 1, Math.floor((x - l.startMm) / l.widthMm));
 
 /**
  * Histogram of sorted readings. Bins are [from, to), the last one closed.
@@ -37,29 +73,31 @@ function freedmanDiaconisBins(sorted: Float64Array): number {
 export function histogramSorted(sorted: Float64Array, binWidthMm?: number): HistogramBin[] {
 	const n = sorted.length;
 	requireReadings('histogram', n, 1);
-	const minMm = sorted[0];
-	const maxMm = sorted[n - 1];
-	let startMm: number;
-	let widthMm: number;
-	let bins: number;
-	if (binWidthMm !== undefined) {
-		if (!(binWidthMm > 0)) throw new Error('histogram needs a bin width above 0 mm');
-		startMm = Math.floor(minMm / binWidthMm) * binWidthMm;
-		widthMm = binWidthMm;
-		bins = Math.max(1, Math.ceil((maxMm - startMm) / widthMm) + (maxMm === startMm ? 1 : 0));
-		if (bins > 1000) throw new Error('histogram bin width gives more than 1000 bins');
-	} else {
-		bins = maxMm > minMm ? freedmanDiaconisBins(sorted) : 1;
-		startMm = minMm;
-		widthMm = maxMm > minMm ? (maxMm - minMm) / bins : 1;
-	}
-	const out: HistogramBin[] = [];
-	for (let b = 0; b < bins; b++) {
-		out.push({ fromMm: startMm + b * widthMm, toMm: startMm + (b + 1) * widthMm, count: 0 });
-	}
-	for (let i = 0; i < n; i++) {
-		const b = Math.min(bins - 1, Math.floor((sorted[i] - startMm) / widthMm));
-		out[b].count++;
-	}
-	return out;
+	const l = layout(
+		n,
+		sorted[0],
+		sorted[n - 1],
+		() => percentileSorted(sorted, 0.75) - percentileSorted(sorted, 0.25),
+		binWidthMm
+	);
+	for (let i = 0; i < n; i++) l.bins[binOf(l, sorted[i])].count++;
+	return l.bins;
+}
+
+/**
+ * histogramSorted of a population held as counts: the same bins, each distinct value's
+ * readings falling into the bin its value falls into. Cost O(D).
+ */
+export function histogramCounted(sample: CountedSample, binWidthMm?: number): HistogramBin[] {
+	const { n, values, counts } = sample;
+	requireReadings('histogram', n, 1);
+	const l = layout(
+		n,
+		values[0],
+		values[values.length - 1],
+		() => percentileCounted(sample, 0.75) - percentileCounted(sample, 0.25),
+		binWidthMm
+	);
+	for (let i = 0; i < values.length; i++) l.bins[binOf(l, values[i])].count += counts[i];
+	return l.bins;
 }
