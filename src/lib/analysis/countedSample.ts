@@ -16,7 +16,7 @@ import { andersonDarlingPValue } from './andersonDarling';
 import { fractionBelowFromCounts, type FractionBelow } from './fractionBelow';
 import type { FittedModel } from './fitModels';
 import { type KolmogorovSmirnovResult, lillieforsPValue } from './lilliefors';
-import { modelProbabilities } from './modelProbabilities';
+import { type ModelProbabilities, modelProbabilities } from './modelProbabilities';
 import type { PercentileType } from './percentile';
 import { requireReadings } from './readings';
 
@@ -419,11 +419,12 @@ export function describeCounted(sample: CountedSample, type: PercentileType = 7)
  */
 export function kolmogorovSmirnovCounted(
 	sample: CountedSample,
-	fit: FittedModel
+	fit: FittedModel,
+	probabilities: ModelProbabilities = modelProbabilities(sample.values, fit)
 ): KolmogorovSmirnovResult {
 	const { n, values, counts } = sample;
 	requireReadings('kolmogorovSmirnov', n, 5);
-	const { cdf } = modelProbabilities(values, fit);
+	const { cdf } = probabilities;
 	let d = 0;
 	let before = 0;
 	for (let j = 0; j < values.length; j++) {
@@ -442,11 +443,12 @@ export function kolmogorovSmirnovCounted(
  */
 export function andersonDarlingCounted(
 	sample: CountedSample,
-	fit: FittedModel
+	fit: FittedModel,
+	probabilities: ModelProbabilities = modelProbabilities(sample.values, fit)
 ): AndersonDarlingResult {
 	const { n, values, counts } = sample;
 	requireReadings('andersonDarling', n, 8);
-	const { logCdf, logSurvival } = modelProbabilities(values, fit);
+	const { logCdf, logSurvival } = probabilities;
 	let sum = 0;
 	let before = 0;
 	for (let j = 0; j < values.length; j++) {

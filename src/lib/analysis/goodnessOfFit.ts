@@ -236,10 +236,12 @@ export function compareModelsCounted(sample: CountedSample): ModelComparison {
 		const untested = untestedFit(fit);
 		if (n < 8 || fit.scale === 0) return untested;
 		const uppers = resolutionMm === null ? null : values.map((v) => v + resolutionMm / 2);
+		// One pass of the model's CDF over the distinct values serves both tests.
+		const probabilities = modelProbabilities(values, fit);
 		return decide(
 			untested,
-			andersonDarlingCounted(sample, fit),
-			kolmogorovSmirnovCounted(sample, fit),
+			andersonDarlingCounted(sample, fit, probabilities),
+			kolmogorovSmirnovCounted(sample, fit, probabilities),
 			uppers && resolutionMm !== null
 				? groupedChiSquareFromCounts(uppers, counts, n, fit, resolutionMm)
 				: null
