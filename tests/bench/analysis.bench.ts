@@ -13,8 +13,8 @@
  * characteristic, prediction and tolerance limit (scipy.stats.nct.ppf for all groups at once).
  * The engine computes more than the peer (both fits' Anderson–Darling and Kolmogorov–Smirnov,
  * the lognormal figures, variables-method bounds, rules): its time is for all of that.
- * Table 2, the plain per-group summary from raw arrays: a counting pass over the readings' grid
- * steps into the engine's counted sample, then its counted figures, against numpy with
+ * Table 2, the plain per-group summary from raw arrays: the engine's counting pass over the
+ * readings' grid steps (countedFromGridReadings), then its counted figures, against numpy with
  * np.partition. Both tables compare every group's figures and stop (exit code 1) past TOLERANCE.
  */
 import { execFileSync, spawnSync } from 'node:child_process';
@@ -25,12 +25,12 @@ import { fileURLToPath } from 'node:url';
 import {
 	assessPopulation,
 	countBelowCounted,
+	countedFromGridReadings,
 	momentsCounted,
 	mulberry32,
 	normalSampler,
 	percentileCounted,
 	projectRequirement,
-	type CountedSample,
 	type PopulationAssessment
 } from '../../src/lib/analysis/index';
 
@@ -61,6 +61,8 @@ const TOLERANCE = {
 type Kind = 'direct' | 'solved';
 /** The meter's step: 0.1 mm, so a reading is k/10 mm for a whole k. */
 const STEPS_PER_MM = 10;
+/** The readings' grid: 0.1 mm steps, as the import stores them (k / 10). */
+const GRID = { den: STEPS_PER_MM, factor: 1 };
 
 type Figures = Record<string, number[]>;
 interface RunSet {
@@ -127,48 +129,9 @@ function assessedFigures(a: PopulationAssessment): Record<string, number> {
 	};
 }
 
-/**
- * The counted sample of raw readings on the 0.1 mm grid by one counting pass, O(n + range):
- * each reading's step k = round(10x), checked to reproduce the reading (k/10 is the double the
- * import stores), counted in an array indexed by k. The engine builds counted samples from
- * stored counts, not raw arrays, so this pass lives here; the figures are the engine's.
- */
-function countedOfGridReadings(x: Float64Array): CountedSample {
-	let lo = Infinity;
-	let hi = -Infinity;
-	for (let i = 0; i < x.length; i++) {
-		if (x[i] < lo) lo = x[i];
-		if (x[i] > hi) hi = x[i];
-	}
-	const kLo = Math.round(lo * STEPS_PER_MM);
-	const tally = new Float64Array(Math.round(hi * STEPS_PER_MM) - kLo + 1);
-	for (let i = 0; i < x.length; i++) {
-		const k = Math.round(x[i] * STEPS_PER_MM);
-		if (k / STEPS_PER_MM !== x[i]) throw new Error(`reading ${x[i]} is not on the 0.1 mm grid`);
-		tally[k - kLo]++;
-	}
-	let distinct = 0;
-	for (let j = 0; j < tally.length; j++) if (tally[j] > 0) distinct++;
-	const values = new Float64Array(distinct);
-	const counts = new Float64Array(distinct);
-	const steps = new Float64Array(distinct);
-	for (let j = 0, d = 0; j < tally.length; j++) {
-		if (tally[j] === 0) continue;
-		steps[d] = kLo + j;
-		values[d] = (kLo + j) / STEPS_PER_MM;
-		counts[d++] = tally[j];
-	}
-	return {
-		values,
-		counts,
-		n: x.length,
-		lattice: { grid: { den: STEPS_PER_MM, factor: 1 }, steps, a: 0, b: 1 }
-	};
-}
-
 /** Table 2's figures of one group, from its counted sample. */
 function summaryFigures(x: Float64Array): Record<string, number> {
-	const sample = countedOfGridReadings(x);
+	const sample = countedFromGridReadings(x, GRID);
 	const { n, mean, sd } = momentsCounted(sample);
 	return {
 		n,

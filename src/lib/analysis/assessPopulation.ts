@@ -2,17 +2,20 @@
  * The one entry: assess a cover population against a requirement.
  */
 import { type ResolvedOptions, type AssessOptions, resolveOptions } from './assessOptions';
+import { judgedCharacteristic, type CharacteristicCovers } from './characteristicCover';
+import { chartDataCounted, type ChartData } from './charts';
 import {
-	characteristicCovers,
-	judgedCharacteristic,
-	type CharacteristicCovers
-} from './characteristicCover';
-import { chartData, type ChartData } from './charts';
-import { type CoverDescription, describeSorted } from './describe';
+	characteristicCoversCounted,
+	type CountedSample,
+	countedFromSorted,
+	describeCounted,
+	fractionBelowCounted,
+	percentileCounted
+} from './countedSample';
+import type { CoverDescription } from './describe';
 import type { ModelName } from './fitModels';
-import { fractionBelow, type FractionBelow } from './fractionBelow';
-import { compareModels, type ModelComparison } from './goodnessOfFit';
-import { percentileSorted } from './percentile';
+import type { FractionBelow } from './fractionBelow';
+import { compareModelsCounted, type ModelComparison } from './goodnessOfFit';
 import { requireReadings, toSortedCovers } from './readings';
 import { allowedFractionOf, type CoverRequirement } from './requirements/requirement';
 import { runRuleSet, type RuleSetResult } from './rules/ruleSets';
@@ -59,8 +62,9 @@ function sampleWarnings(n: number, options: ResolvedOptions, models: ModelCompar
  * Assess a population of cover readings (mm) against a requirement: describe, fit and test
  * both models, characteristic cover by every method, fraction below c_min with intervals, and
  * the chosen rule set. Returns plain JSON (no typed arrays, no NaN/Infinity) carrying the
- * options used and ENGINE_VERSION. Cost: one sort O(n log n), then O(n) (≈ 3 passes and one
- * erfc + two logarithms a reading a model). Needs 2 readings.
+ * options used and ENGINE_VERSION. The readings are sorted and counted (O(n log n), O(n) when
+ * already in order) and judged by assessPopulationCounted, so a raw array and its stored counts
+ * take one code path and give one answer. Needs 2 readings.
  * @example assessPopulation(readingsMm, enRequirement({ exposureClass: 'XC3', barDiameterMm: 12 })).verdict
  */
 export function assessPopulation(
@@ -69,30 +73,46 @@ export function assessPopulation(
 	options: AssessOptions = {}
 ): PopulationAssessment {
 	requireReadings('assessPopulation', coversMm.length, 2);
+	return assessPopulationCounted(countedFromSorted(toSortedCovers(coversMm)), requirement, options);
+}
+
+/**
+ * assessPopulation of a population held as counts (analysis/countedSample.ts): every figure
+ * from the distinct values and their counts — order statistics and counts to the bit, sums from
+ * whole numbers on the meter's grid, the tests summed a run of equal readings at a time
+ * (tests/unit/analysis/countedAssessment.test.ts checks each figure against the engine's
+ * functions on the readings expanded). Cost O(D) for D distinct values, ≈ one erfc and two
+ * logarithms a distinct value a model, whatever the number of readings. Needs 2 readings.
+ */
+export function assessPopulationCounted(
+	sample: CountedSample,
+	requirement: CoverRequirement,
+	options: AssessOptions = {}
+): PopulationAssessment {
+	requireReadings('assessPopulation', sample.n, 2);
 	const resolved = resolveOptions(requirement, options);
 	const fullRequirement = { ...requirement, allowedFractionBelow: allowedFractionOf(requirement) };
-	const sorted = toSortedCovers(coversMm);
-	const description = describeSorted(sorted, resolved.percentileType);
-	const models = compareModels(sorted, options.gridStepMm ?? null);
+	const description = describeCounted(sample, resolved.percentileType);
+	const models = compareModelsCounted(sample, options.gridStepMm ?? null);
 	const chosenModel = chooseModel(resolved, models);
 	const { fractileP: p, confidence, percentileType: type } = resolved;
-	const characteristic = characteristicCovers(
-		sorted,
+	const characteristic = characteristicCoversCounted(
+		sample,
 		models.normal,
 		models.lognormal,
 		p,
 		confidence,
 		type
 	);
-	const fractionBelowCMin = fractionBelow(
-		sorted,
+	const fractionBelowCMin = fractionBelowCounted(
+		sample,
 		requirement.cMinMm,
 		models.normal,
 		models.lognormal,
 		confidence
 	);
 	const ruleResult = runRuleSet(resolved.ruleSet, {
-		sorted,
+		sample,
 		description,
 		models,
 		characteristic,
@@ -122,7 +142,7 @@ export function assessPopulation(
 		description,
 		percentiles: resolved.percentiles.map((q) => ({
 			p: q,
-			valueMm: percentileSorted(sorted, q, type)
+			valueMm: percentileCounted(sample, q, type)
 		})),
 		models,
 		chosenModel,
@@ -130,6 +150,8 @@ export function assessPopulation(
 		fractionBelowCMin,
 		...ruleResult,
 		warnings: sampleWarnings(description.n, resolved, models),
-		charts: resolved.charts ? chartData(sorted, fits, resolved.binWidthMm ?? undefined) : null
+		charts: resolved.charts
+			? chartDataCounted(sample, fits, resolved.binWidthMm ?? undefined)
+			: null
 	});
 }

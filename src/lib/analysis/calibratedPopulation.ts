@@ -21,11 +21,11 @@
  */
 import jStat from 'jstat';
 import type { AssessOptions } from './assessOptions';
-import { assessPopulation, type PopulationAssessment } from './assessPopulation';
+import { assessPopulationCounted, type PopulationAssessment } from './assessPopulation';
 import { countedFromSorted, mapCounted, momentsCounted, type CountedSample } from './countedSample';
 import { CalibrationRefused, predictionSeMm, type MeterCalibration } from './meterCalibration';
 import { toSortedCovers } from './readings';
-import { detectResolutionMm } from './resolution';
+import { detectResolutionOfDistinctMm } from './resolution';
 import type { CoverRequirement } from './requirements/requirement';
 
 /** Readings as given, or held as counts of distinct values. */
@@ -155,26 +155,26 @@ export interface CalibratedAssessment {
 }
 
 /**
- * Assess a population (raw readings, mm) through the calibration with its uncertainty: the
- * readings mapped by calibratedSpread and judged by assessPopulation with the same options.
- * Cost: assessPopulation's plus O(N). Throws CalibrationRefused with a message for people.
+ * Assess a population (raw readings or counts, mm) through the calibration with its
+ * uncertainty: the readings mapped by calibratedSpread (on counts the grid is mapped, not
+ * expanded) and judged by the counted assessment with the same options. Cost: the counted
+ * assessment's plus O(D). Throws CalibrationRefused with a message for people.
  */
 export function assessCalibrated(
-	coversMm: readonly number[] | Float64Array,
+	input: CoverSampleInput,
 	calibration: MeterCalibration,
 	requirement: CoverRequirement,
 	options: AssessOptions = {}
 ): CalibratedAssessment {
-	const sorted = toSortedCovers(coversMm);
-	const sample = countedFromSorted(sorted);
+	const sample = asCounted(input);
 	const spread = calibratedSpread(sample, calibration);
 	// The meter's grid, stretched by the line, keeps the grouped fit test on the same classes.
-	const meterStepMm = detectResolutionMm(sorted);
+	const meterStepMm = detectResolutionOfDistinctMm(sample.values, sample.n);
 	const gridStepMm = meterStepMm === null ? null : meterStepMm * spread.slope;
 	return {
 		calibration,
 		spread,
-		assessment: assessPopulation(applySpread(sorted, spread), requirement, {
+		assessment: assessPopulationCounted(applySpread(sample, spread), requirement, {
 			...options,
 			gridStepMm
 		}),

@@ -3,7 +3,8 @@
  * Every point list is thinned to at most `maxPoints` so a million readings plot quickly.
  */
 import { type FittedModel, modelCdf, modelPdf } from './fitModels';
-import { histogramSorted, type HistogramBin } from './histogram';
+import { type CountedSample, orderStatisticsCounted } from './countedSample';
+import { histogramCounted, histogramSorted, type HistogramBin } from './histogram';
 import { normalQuantile } from './normalDistribution';
 import { requireReadings } from './readings';
 
@@ -27,8 +28,26 @@ export function thinnedIndices(n: number, maxPoints: number): number[] {
  */
 export function ecdfPoints(sorted: Float64Array, maxPoints = 500): ChartData['ecdf'] {
 	requireReadings('ecdfPoints', sorted.length, 1);
-	const n = sorted.length;
-	return thinnedIndices(n, maxPoints).map((i) => ({ coverMm: sorted[i], fraction: (i + 1) / n }));
+	return ecdfOf(sorted.length, (indices) => indices.map((i) => sorted[i]), maxPoints);
+}
+
+/** Order statistics at ascending 0-based indices, from sorted readings or from counts. */
+type OrderStatistics = (indices: number[]) => number[];
+
+function ecdfOf(n: number, at: OrderStatistics, maxPoints: number): ChartData['ecdf'] {
+	const indices = thinnedIndices(n, maxPoints);
+	const covers = at(indices);
+	return indices.map((i, j) => ({ coverMm: covers[j], fraction: (i + 1) / n }));
+}
+
+function probabilityPlotOf(
+	n: number,
+	at: OrderStatistics,
+	maxPoints: number
+): ChartData['probabilityPlot'] {
+	const indices = thinnedIndices(n, maxPoints);
+	const covers = at(indices);
+	return indices.map((i, j) => ({ normalScore: plottingScore(i, n), coverMm: covers[j] }));
 }
 
 /**
@@ -69,12 +88,8 @@ export function normalProbabilityPlot(
 	sorted: Float64Array,
 	maxPoints = 500
 ): ChartData['probabilityPlot'] {
-	const n = sorted.length;
-	requireReadings('normalProbabilityPlot', n, 1);
-	return thinnedIndices(n, maxPoints).map((i) => ({
-		normalScore: plottingScore(i, n),
-		coverMm: sorted[i]
-	}));
+	requireReadings('normalProbabilityPlot', sorted.length, 1);
+	return probabilityPlotOf(sorted.length, (indices) => indices.map((i) => sorted[i]), maxPoints);
 }
 
 /**
@@ -97,5 +112,49 @@ export function chartData(
 			modelCurves(m, Math.max(0, sorted[0] - padMm), sorted[n - 1] + padMm)
 		),
 		probabilityPlot: normalProbabilityPlot(sorted, maxPoints)
+	};
+}
+
+/** ecdfPoints of the readings behind the counts. Cost O(distinct values + maxPoints). */
+export function ecdfPointsCounted(sample: CountedSample, maxPoints = 500): ChartData['ecdf'] {
+	requireReadings('ecdfPoints', sample.n, 1);
+	return ecdfOf(sample.n, (indices) => orderStatisticsCounted(sample, indices), maxPoints);
+}
+
+/** normalProbabilityPlot of the readings behind the counts. Cost O(distinct values + maxPoints). */
+export function normalProbabilityPlotCounted(
+	sample: CountedSample,
+	maxPoints = 500
+): ChartData['probabilityPlot'] {
+	requireReadings('normalProbabilityPlot', sample.n, 1);
+	return probabilityPlotOf(
+		sample.n,
+		(indices) => orderStatisticsCounted(sample, indices),
+		maxPoints
+	);
+}
+
+/**
+ * chartData of a population held as counts: the same histogram, ECDF, curves and probability
+ * plot as from the readings expanded (the thinned points are order statistics, read from the
+ * cumulative counts). Cost O(D + points).
+ */
+export function chartDataCounted(
+	sample: CountedSample,
+	models: readonly FittedModel[],
+	binWidthMm?: number,
+	maxPoints = 500
+): ChartData {
+	const { n, values } = sample;
+	requireReadings('chartData', n, 1);
+	const lo = values[0];
+	const hi = values[values.length - 1];
+	const padMm = 0.1 * (hi - lo || 1);
+	const at: OrderStatistics = (indices) => orderStatisticsCounted(sample, indices);
+	return {
+		histogram: histogramCounted(sample, binWidthMm),
+		ecdf: ecdfOf(n, at, maxPoints),
+		curves: models.flatMap((m) => modelCurves(m, Math.max(0, lo - padMm), hi + padMm)),
+		probabilityPlot: probabilityPlotOf(n, at, maxPoints)
 	};
 }

@@ -231,22 +231,28 @@ export function compareModels(
 /**
  * compareModels of a population held as counts (analysis/countedSample.ts): the same fits,
  * tests, choice and warnings, each test summed a run of equal readings at a time. Cost O(D)
- * for D distinct values, whatever the number of readings.
+ * for D distinct values, whatever the number of readings. A known step is taken as given, as
+ * in compareModels.
  */
-export function compareModelsCounted(sample: CountedSample): ModelComparison {
+export function compareModelsCounted(
+	sample: CountedSample,
+	knownStepMm: number | null = null
+): ModelComparison {
 	const { values, counts, n } = sample;
 	let tied = false;
 	for (let i = 0; i < counts.length && !tied; i++) tied = counts[i] > 1;
-	const step = detectResolutionOfDistinctMm(values, n);
+	const step = knownStepMm ?? detectResolutionOfDistinctMm(values, n);
 	const resolutionMm = step !== null && tied ? step : null;
 	const test = (fit: FittedModel): ModelFit => {
 		const untested = untestedFit(fit);
 		if (n < 8 || fit.scale === 0) return untested;
 		const uppers = resolutionMm === null ? null : values.map((v) => v + resolutionMm / 2);
+		// One pass of the model's CDF over the distinct values serves both tests.
+		const probabilities = modelProbabilities(values, fit);
 		return decide(
 			untested,
-			andersonDarlingCounted(sample, fit),
-			kolmogorovSmirnovCounted(sample, fit),
+			andersonDarlingCounted(sample, fit, probabilities),
+			kolmogorovSmirnovCounted(sample, fit, probabilities),
 			uppers && resolutionMm !== null
 				? groupedChiSquareFromCounts(uppers, counts, n, fit, resolutionMm)
 				: null

@@ -1,6 +1,7 @@
 /**
  * Histogram bins for charts.
  */
+import { type CountedSample, percentileCounted } from './countedSample';
 import { percentileSorted } from './percentile';
 import { requireReadings } from './readings';
 
@@ -92,5 +93,24 @@ export function histogramSorted(sorted: Float64Array, binWidthMm?: number): Hist
 	);
 	const out = emptyBins(layout);
 	for (let i = 0; i < n; i++) out[binOf(sorted[i], layout)].count++;
+	return out;
+}
+
+/**
+ * histogramSorted of a population held as counts: the same bins, each distinct value's
+ * readings falling into the bin its value falls into. Cost O(D).
+ */
+export function histogramCounted(sample: CountedSample, binWidthMm?: number): HistogramBin[] {
+	const { n, values, counts } = sample;
+	requireReadings('histogram', n, 1);
+	const layout = histogramLayout(
+		n,
+		values[0],
+		values[values.length - 1],
+		() => percentileCounted(sample, 0.75) - percentileCounted(sample, 0.25),
+		binWidthMm
+	);
+	const out = emptyBins(layout);
+	for (let i = 0; i < values.length; i++) out[binOf(values[i], layout)].count += counts[i];
 	return out;
 }

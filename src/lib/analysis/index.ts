@@ -2,7 +2,11 @@
  * Fractile analysis engine: the public API. Pure TypeScript, no I/O; usable on server and browser.
  */
 export { ENGINE_VERSION } from './version';
-export { assessPopulation, type PopulationAssessment } from './assessPopulation';
+export {
+	assessPopulation,
+	assessPopulationCounted,
+	type PopulationAssessment
+} from './assessPopulation';
 export {
 	type AssessOptions,
 	type ModelChoice,
@@ -58,15 +62,18 @@ export {
 } from './characteristicCover';
 export { clopperPearsonInterval, clopperPearsonLower, clopperPearsonUpper } from './clopperPearson';
 export { fractionBelow, type FractionBelow } from './fractionBelow';
-export { histogramSorted, type HistogramBin } from './histogram';
+export { histogramCounted, histogramSorted, type HistogramBin } from './histogram';
 export {
 	chartData,
+	chartDataCounted,
 	ecdfPoints,
+	ecdfPointsCounted,
 	modelCurves,
 	normalProbabilityPlot,
+	normalProbabilityPlotCounted,
 	type ChartData
 } from './charts';
-export { ecdfPointsCounted, histogramCounted, normalProbabilityPlotCounted } from './countedCharts';
+
 export {
 	type CoverRequirement,
 	type CodeSystem,
@@ -212,14 +219,16 @@ export {
 	type LengthUnit
 } from './units';
 export { toPlainJson } from './plainJson';
-export { pooledRanks, poolSorted, type PooledRanks } from './midRanks';
+export { pooledRanks, pooledRanksCounted, poolSorted, type PooledRanks } from './midRanks';
 export { kruskalWallis, kruskalWallisFromRanks, type KruskalWallisResult } from './kruskalWallis';
-export { oneWayAnova, type OneWayAnovaResult } from './oneWayAnova';
+export { oneWayAnova, oneWayAnovaCounted, type OneWayAnovaResult } from './oneWayAnova';
 export { mannWhitney, mannWhitneyFromRanks, type MannWhitneyResult } from './mannWhitney';
 export { holmAdjust } from './holm';
 export {
 	fitNormalMixture,
+	fitNormalMixtureCounted,
 	lowComponentShare,
+	lowComponentShareCounted,
 	type MixtureComponent,
 	type MixtureOptions,
 	type NormalMixture
@@ -228,9 +237,11 @@ export { detectResolutionMm, METER_STEPS_MM } from './resolution';
 export { groupedChiSquare, type GroupedFitResult } from './groupedFit';
 export {
 	compareMembers,
+	compareMembersCounted,
 	MEMBER_SIGNIFICANCE,
 	type MemberComparison,
 	type MemberCovers,
+	type MemberCounts,
 	type MemberDifference
 } from './memberComparison';
 export * from './planning';
@@ -239,6 +250,7 @@ export {
 	characteristicCoversCounted,
 	countAtOrBelowCounted,
 	countBelowCounted,
+	countedFromGridReadings,
 	countedFromSorted,
 	countedFromTally,
 	describeCounted,
@@ -250,6 +262,7 @@ export {
 	mapCounted,
 	mergeCounted,
 	momentsCounted,
+	orderStatisticsCounted,
 	percentileCounted,
 	type CountedMoments,
 	type CountedSample

@@ -3,13 +3,12 @@
  * members differ from the rest? Kruskal–Wallis and one-way ANOVA across the members, then
  * each member against the others by Mann–Whitney with Holm's correction.
  */
+import { type CountedSample, countedFromSorted, percentileCounted } from './countedSample';
 import { holmAdjust } from './holm';
 import { kruskalWallisFromRanks, type KruskalWallisResult } from './kruskalWallis';
 import { mannWhitneyFromRanks } from './mannWhitney';
-import { pooledRanks } from './midRanks';
-import { oneWayAnova, type OneWayAnovaResult } from './oneWayAnova';
-import { percentileSorted } from './percentile';
-import { countAtOrBelowSorted } from './readings';
+import { pooledRanksCounted } from './midRanks';
+import { oneWayAnovaCounted, type OneWayAnovaResult } from './oneWayAnova';
 
 /** Family-wise significance of "stands apart" (common practice: 5 %). */
 export const MEMBER_SIGNIFICANCE = 0.05;
@@ -20,6 +19,12 @@ export interface MemberCovers {
 	label: string;
 	/** The member's own covers, ascending (mm). */
 	coversMm: Float64Array;
+}
+
+/** A member's readings held as counts (analysis/countedSample.ts). */
+export interface MemberCounts {
+	label: string;
+	sample: CountedSample;
 }
 
 export interface MemberDifference {
@@ -50,24 +55,34 @@ export interface MemberComparison {
 	sentences: string[];
 }
 
-/** The j-th (1-based) smallest of the pooled readings without the member's own (O(log² N)). */
-function restOrderStatistic(pooled: Float64Array, own: Float64Array, j: number): number {
-	let lo = 0;
-	let hi = pooled.length - 1;
-	while (lo < hi) {
-		const mid = (lo + hi) >>> 1;
-		const v = pooled[mid];
-		if (countAtOrBelowSorted(pooled, v) - countAtOrBelowSorted(own, v) >= j) hi = mid;
-		else lo = mid + 1;
+/**
+ * The rest's order statistics x(j) (1-based, ascending j) when a member's readings are taken
+ * out of the pool: a walk of the pooled counts less the member's own. Cost O(D_pooled).
+ */
+function restOrderStatistics(pooled: CountedSample, own: CountedSample, js: number[]): number[] {
+	const out: number[] = [];
+	let p = 0;
+	let through = 0;
+	let next = 0;
+	for (let i = 0; i < pooled.values.length && next < js.length; i++) {
+		const v = pooled.values[i];
+		let count = pooled.counts[i];
+		if (p < own.values.length && own.values[p] === v) count -= own.counts[p++];
+		through += count;
+		while (next < js.length && through >= js[next]) {
+			out.push(v);
+			next++;
+		}
 	}
-	return pooled[lo];
+	return out;
 }
 
 /** Median of the rest (type 7 at 0.5: the middle value, or the mean of the two middle ones). */
-function restMedian(pooled: Float64Array, own: Float64Array): number {
-	const m = pooled.length - own.length;
-	const a = restOrderStatistic(pooled, own, Math.floor((m + 1) / 2));
-	return m % 2 === 1 ? a : (a + restOrderStatistic(pooled, own, m / 2 + 1)) / 2;
+function restMedian(pooled: CountedSample, own: CountedSample): number {
+	const m = pooled.n - own.n;
+	if (m % 2 === 1) return restOrderStatistics(pooled, own, [(m + 1) / 2])[0];
+	const [a, b] = restOrderStatistics(pooled, own, [m / 2, m / 2 + 1]);
+	return (a + b) / 2;
 }
 
 const pText = (p: number) => (p < 0.001 ? 'p < 0.001' : `p = ${p.toFixed(3)}`);
@@ -109,8 +124,8 @@ function sentences(c: Omit<MemberComparison, 'sentences'>): string[] {
  * (between- and within-member SD) across members; each member against all the others by a
  * two-sided Mann–Whitney test from the same pooled ranks, Holm-adjusted over the members; a
  * member "stands apart" at Holm p < significance. `pooled` is every member's covers, sorted.
- * Cost O(N log N) for N readings (one binary search a distinct value a member), plus
- * O(k log² N) for the medians of the rest. Needs 2 members with readings; null otherwise.
+ * The members are counted and compared by compareMembersCounted (one code path). Cost O(N) to
+ * count, then that of the counted form. Needs 2 members with readings; null otherwise.
  * @example compareMembers(members, pooled)?.sentences[1] // "Member B-03 is lower than …"
  */
 export function compareMembers(
@@ -118,20 +133,39 @@ export function compareMembers(
 	pooled: Float64Array,
 	significance = MEMBER_SIGNIFICANCE
 ): MemberComparison | null {
-	const withReadings = members.filter((m) => m.coversMm.length > 0);
+	return compareMembersCounted(
+		members.map((m) => ({ label: m.label, sample: countedFromSorted(m.coversMm) })),
+		countedFromSorted(pooled),
+		significance
+	);
+}
+
+/**
+ * compareMembers of members held as counts, `pooled` their counts merged (mergeCounted). The
+ * ranks, Mann–Whitney and Kruskal–Wallis statistics, medians and Holm's adjustment are those of
+ * the readings expanded to the bit (whole-number counts, the same operations in the same order);
+ * the ANOVA comes from whole-number sums on the grid (oneWayAnovaCounted). Cost
+ * O(k·D) for k members over D pooled distinct values, whatever the number of readings.
+ */
+export function compareMembersCounted(
+	members: readonly MemberCounts[],
+	pooled: CountedSample,
+	significance = MEMBER_SIGNIFICANCE
+): MemberComparison | null {
+	const withReadings = members.filter((m) => m.sample.n > 0);
 	const k = withReadings.length;
-	if (k < 2 || pooled.length <= k) return null;
-	const groups = withReadings.map((m) => m.coversMm);
-	const sizes = groups.map((g) => g.length);
-	const ranks = pooledRanks(groups, pooled);
-	const n = pooled.length;
+	if (k < 2 || pooled.n <= k) return null;
+	const groups = withReadings.map((m) => m.sample);
+	const sizes = groups.map((g) => g.n);
+	const ranks = pooledRanksCounted(groups, pooled);
+	const n = pooled.n;
 	const tests = withReadings.map((m, i) =>
 		mannWhitneyFromRanks(ranks.rankSums[i], sizes[i], n - sizes[i], ranks.tieTerm)
 	);
 	const holm = holmAdjust(tests.map((t) => t.pValue));
 	const differences = withReadings.map((m, i): MemberDifference => {
-		const medianMm = percentileSorted(m.coversMm, 0.5, 7);
-		const rest = restMedian(pooled, m.coversMm);
+		const medianMm = percentileCounted(m.sample, 0.5, 7);
+		const rest = restMedian(pooled, m.sample);
 		return {
 			label: m.label,
 			n: sizes[i],
@@ -150,7 +184,7 @@ export function compareMembers(
 		n,
 		significance,
 		kruskalWallis: kruskalWallisFromRanks(ranks, sizes),
-		anova: oneWayAnova(groups),
+		anova: oneWayAnovaCounted(groups),
 		differences
 	};
 	return { ...result, sentences: sentences(result) };

@@ -2,6 +2,7 @@
  * Pooled mid-ranks of several groups, the common ground of Kruskal–Wallis and Mann–Whitney.
  * Our own: simple-statistics and jstat rank no groups.
  */
+import type { CountedSample } from './countedSample';
 import { countAtOrBelowSorted, countBelowSorted } from './readings';
 
 export interface PooledRanks {
@@ -43,6 +44,42 @@ export function pooledRanks(groups: readonly Float64Array[], pooled: Float64Arra
 		i = j;
 	}
 	return { n: pooled.length, rankSums, tieTerm };
+}
+
+/**
+ * pooledRanks of groups held as counts: the same mid-ranks a distinct value at a time (a run of
+ * equal readings in a group is one term, as in pooledRanks), from the pooled counts' running
+ * total — whole numbers throughout, so the rank sums and tie term are those of pooledRanks to
+ * the bit. Every group's values must be among the pooled values. Cost O(D_pooled + Σ D_group).
+ */
+export function pooledRanksCounted(
+	groups: readonly CountedSample[],
+	pooled: CountedSample
+): PooledRanks {
+	// Each pooled value's place, and the readings strictly below it.
+	const place = new Map<number, number>();
+	const before = new Float64Array(pooled.values.length);
+	let running = 0;
+	let tieTerm = 0;
+	for (let i = 0; i < pooled.values.length; i++) {
+		place.set(pooled.values[i], i);
+		before[i] = running;
+		const t = pooled.counts[i];
+		running += t;
+		tieTerm += t * t * t - t;
+	}
+	const rankSums = groups.map((group) => {
+		let sum = 0;
+		for (let i = 0; i < group.values.length; i++) {
+			const at = place.get(group.values[i]);
+			if (at === undefined) throw new Error(`pooled counts lack the value ${group.values[i]}`);
+			const below = before[at];
+			const atOrBelow = below + pooled.counts[at];
+			sum += group.counts[i] * ((below + atOrBelow + 1) / 2);
+		}
+		return sum;
+	});
+	return { n: pooled.n, rankSums, tieTerm };
 }
 
 /** All groups' values in one ascending array (a copy). Cost O(N log N). */

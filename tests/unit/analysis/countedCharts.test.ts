@@ -7,15 +7,15 @@
  */
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
-import { ecdfPoints, normalProbabilityPlot } from '../../../src/lib/analysis/charts';
 import {
+	ecdfPoints,
 	ecdfPointsCounted,
-	histogramCounted,
+	normalProbabilityPlot,
 	normalProbabilityPlotCounted
-} from '../../../src/lib/analysis/countedCharts';
+} from '../../../src/lib/analysis/charts';
 import { countedFromSorted } from '../../../src/lib/analysis/countedSample';
 import { gridValue } from '../../../src/lib/analysis/coverGrid';
-import { histogramSorted } from '../../../src/lib/analysis/histogram';
+import { histogramCounted, histogramSorted } from '../../../src/lib/analysis/histogram';
 
 /** Readings on a meter's grid (1, 0.5, 0.1 mm or 0.05 in), as the import stores them. */
 const GRIDS = [

@@ -34,7 +34,7 @@ export function ruleSetVerdict(
 		upperBound: clopperPearsonUpper(count, n, options.confidence)
 	} as FractionBelow;
 	return runRuleSet(options.ruleSet, {
-		sorted,
+		sample: countedFromSorted(sorted),
 		description: describeSorted(sorted, type),
 		models,
 		characteristic: characteristicCovers(
@@ -57,6 +57,7 @@ export function ruleSetVerdict(
 import { resolveOptions, type AssessOptions, type ResolvedOptions } from '../assessOptions';
 import { characteristicCovers } from '../characteristicCover';
 import { clopperPearsonUpper } from '../clopperPearson';
+import { countedFromSorted } from '../countedSample';
 import { describeSorted } from '../describe';
 import type { FractionBelow } from '../fractionBelow';
 import { compareModels } from '../goodnessOfFit';

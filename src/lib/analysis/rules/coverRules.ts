@@ -3,8 +3,7 @@
  */
 import { judgedCharacteristic } from '../characteristicCover';
 import { clopperPearsonUpper } from '../clopperPearson';
-import { percentileSorted } from '../percentile';
-import { countAtOrBelowSorted, countBelowSorted } from '../readings';
+import { countAtOrBelowCounted, countBelowCounted, percentileCounted } from '../countedSample';
 import { aciCoverToleranceMm } from '../requirements/aci';
 import { allowedFractionOf, roundMm } from '../requirements/requirement';
 import { formatCover } from '../units';
@@ -28,7 +27,7 @@ function tooFew(id: RuleId, title: string, ctx: RuleContext): RuleResult | null 
 /** Every reading ≥ c_min (deterministic; any number of readings). */
 export function everyReadingMin(ctx: RuleContext): RuleResult {
 	const { cMinMm } = ctx.requirement;
-	const below = countBelowSorted(ctx.sorted, cMinMm);
+	const below = countBelowCounted(ctx.sample, cMinMm);
 	const minMm = ctx.description.minMm;
 	const c = formatCover(cMinMm, ctx.unit);
 	return {
@@ -108,7 +107,7 @@ export function aciTolerance(ctx: RuleContext): RuleResult {
 	const { cNomMm, memberDepthMm, deltaCDevMm } = ctx.requirement;
 	const toleranceMm = memberDepthMm ? aciCoverToleranceMm(cNomMm, memberDepthMm) : deltaCDevMm;
 	const limitMm = roundMm(cNomMm - toleranceMm);
-	const below = countBelowSorted(ctx.sorted, limitMm);
+	const below = countBelowCounted(ctx.sample, limitMm);
 	const n = ctx.description.n;
 	return {
 		id: 'aci-tolerance',
@@ -132,8 +131,8 @@ export function excessCover(ctx: RuleContext): RuleResult {
 	if (early) return early;
 	const limitMm = roundMm(ctx.requirement.cNomMm + (ctx.requirement.deltaPlusMm ?? 0));
 	const p = ctx.characteristic.p;
-	const upperMm = percentileSorted(ctx.sorted, 1 - p, ctx.percentileType);
-	const above = ctx.sorted.length - countAtOrBelowSorted(ctx.sorted, limitMm);
+	const upperMm = percentileCounted(ctx.sample, 1 - p, ctx.percentileType);
+	const above = ctx.sample.n - countAtOrBelowCounted(ctx.sample, limitMm);
 	const pass = upperMm <= limitMm;
 	return {
 		id: 'excess-cover',
@@ -144,7 +143,7 @@ export function excessCover(ctx: RuleContext): RuleResult {
 			upperFractileMm: upperMm,
 			limitMm,
 			countAbove: above,
-			upperBoundAbove: clopperPearsonUpper(above, ctx.sorted.length, ctx.characteristic.confidence),
+			upperBoundAbove: clopperPearsonUpper(above, ctx.sample.n, ctx.characteristic.confidence),
 			percentileType: ctx.percentileType,
 			confidence: ctx.characteristic.confidence
 		}

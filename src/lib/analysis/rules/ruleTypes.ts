@@ -2,6 +2,7 @@
  * Shapes shared by the compliance rules.
  */
 import type { CharacteristicCovers, CharacteristicMethod } from '../characteristicCover';
+import type { CountedSample } from '../countedSample';
 import type { CoverDescription } from '../describe';
 import type { ModelName } from '../fitModels';
 import type { FractionBelow } from '../fractionBelow';
@@ -31,7 +32,8 @@ export interface RuleResult {
 
 /** Everything a rule may read; computed once per population. */
 export interface RuleContext {
-	sorted: Float64Array;
+	/** The readings as counts of distinct values (countedFromSorted for a raw array). */
+	sample: CountedSample;
 	description: CoverDescription;
 	models: ModelComparison;
 	characteristic: CharacteristicCovers;

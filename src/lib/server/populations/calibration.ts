@@ -59,7 +59,7 @@ export function calibrationOutcome(
 			meter.holes.map((h) => h.measuredCoverMm)
 		);
 		const calibrated = assessCalibrated(
-			group.coversMm,
+			group.sample,
 			calibration,
 			result.requirement.requirement,
 			toAssessOptions(choice, true)

@@ -3,11 +3,11 @@
  * from the check holes of the members — every figure by the engine.
  */
 import {
-	compareMembers,
-	describeSorted,
+	compareMembersCounted,
+	momentsCounted,
 	type MemberComparison,
 	MIN_VERIFICATION_HOLES,
-	percentileSorted,
+	percentileCounted,
 	verifyMeter,
 	type MeterVerification,
 	type PercentileType
@@ -28,41 +28,40 @@ export interface MemberBox {
 }
 
 /**
- * Box-plot figures per member, each from that member's own sorted covers (the group's merged
- * array is ordered by cover, not by member, so it cannot be sliced per member).
+ * Box-plot figures per member, each from that member's own counts (the group's merged counts
+ * no longer say which member a cover belongs to).
  */
 export function memberBoxes(group: GatheredGroup, type: PercentileType): MemberBox[] {
 	const boxes: MemberBox[] = [];
 	for (const member of group.members) {
-		const sorted = group.coversByMember.get(member.id);
-		const n = sorted?.length ?? 0;
-		if (!sorted || n === 0) continue;
+		const sample = group.samplesByMember.get(member.id);
+		if (!sample || sample.n === 0) continue;
 		boxes.push({
 			memberId: member.id,
 			label: member.label,
-			n,
-			minMm: sorted[0],
-			q1Mm: percentileSorted(sorted, 0.25, type),
-			medianMm: percentileSorted(sorted, 0.5, type),
-			q3Mm: percentileSorted(sorted, 0.75, type),
-			maxMm: sorted[n - 1],
-			meanMm: n >= 2 ? describeSorted(sorted, type).meanMm : sorted[0]
+			n: sample.n,
+			minMm: sample.values[0],
+			q1Mm: percentileCounted(sample, 0.25, type),
+			medianMm: percentileCounted(sample, 0.5, type),
+			q3Mm: percentileCounted(sample, 0.75, type),
+			maxMm: sample.values[sample.values.length - 1],
+			meanMm: momentsCounted(sample).mean
 		});
 	}
 	return boxes;
 }
 
 /**
- * Whether the members share one distribution and which stand apart (engine: compareMembers),
- * each member from its own covers. Detail only: O(N log N) for N readings, not paid by the
- * overview of every population. null with fewer than 2 members with readings.
+ * Whether the members share one distribution and which stand apart (engine:
+ * compareMembersCounted), each member from its own counts. O(members × distinct covers).
+ * null with fewer than 2 members with readings.
  */
 export function memberComparison(group: GatheredGroup): MemberComparison | null {
 	const members = group.members.flatMap((m) => {
-		const coversMm = group.coversByMember.get(m.id);
-		return coversMm ? [{ label: m.label, coversMm }] : [];
+		const sample = group.samplesByMember.get(m.id);
+		return sample ? [{ label: m.label, sample }] : [];
 	});
-	return compareMembers(members, group.coversMm);
+	return compareMembersCounted(members, group.sample);
 }
 
 export interface HoleRow {

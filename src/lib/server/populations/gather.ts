@@ -1,13 +1,14 @@
 /**
  * SQL that gathers a population's readings. Two queries: the members in scope (small), then
- * their cover sets (src/lib/server/readings/coverSets.ts), one row a member.
- * Covers come into Node and the engine computes there: per-group PERCENTILE_CONT in SQL was
- * 3–5× slower on a million readings, and reading a million covers row by row or as text
- * took most of the overview's second (docs/performance.md).
+ * their cover counts (src/lib/server/readings/coverSets.ts, readCoverCounts), one short row a
+ * member: each distinct cover on the meter's grid once with its number of readings. The engine
+ * computes from the counts in Node, so the cost is members × distinct covers, never readings
+ * (docs/performance.md, "Pages").
  */
 import type { WhereOptions } from 'sequelize';
 import { db, Member } from '$lib/server/db';
-import { readCoverSets } from '$lib/server/readings/coverSets';
+import type { CountedSample } from '$lib/analysis';
+import { readCoverCounts } from '$lib/server/readings/coverSets';
 
 export type MemberSpec = Pick<
 	Member,
@@ -80,11 +81,11 @@ export async function membersInScope(filter: MemberFilter): Promise<MemberSpec[]
 }
 
 /**
- * Every cover of the given members, sorted, by member id (members with no readings are
- * absent), from the members' cover sets: one row a member however many readings it has.
+ * Each member's covers as counts of distinct values, by member id (members with no readings
+ * are absent): one row a member however many readings it has.
  */
-export async function coversByMember(
+export async function countsOfMembers(
 	memberIds: readonly number[]
-): Promise<Map<number, Float64Array>> {
-	return readCoverSets(memberIds);
+): Promise<Map<number, CountedSample>> {
+	return readCoverCounts(memberIds);
 }

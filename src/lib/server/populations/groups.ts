@@ -1,10 +1,10 @@
 /**
- * Members grouped into populations, and each population's covers gathered into one
- * Float64Array, ascending.
+ * Members grouped into populations, and each population's cover counts merged from its
+ * members' (O(groups × distinct values), never a pass over the readings).
  */
-import { coversByMember, membersInScope, type MemberFilter, type MemberSpec } from './gather';
+import { type CountedSample, mergeCounted } from '$lib/analysis';
+import { countsOfMembers, membersInScope, type MemberFilter, type MemberSpec } from './gather';
 import type { Split } from './query';
-import { mergeSorted } from '$lib/server/readings/coverSetCodec';
 
 export interface PopulationKey {
 	memberType: string;
@@ -22,14 +22,14 @@ export interface GatheredGroup {
 	/** Stable text key, e.g. "deck|XD3" or "deck|XD3|member:12". */
 	id: string;
 	members: MemberSpec[];
-	/** Every cover of the group, merged into one ascending array (the engine's input). */
-	coversMm: Float64Array;
+	/** Every cover of the group as counts of distinct values, merged (the engine's input). */
+	sample: CountedSample;
 	/**
-	 * Each member's own covers, ascending, by member id (members with no readings are absent).
-	 * Per-member figures come from these, never from slices of the merged array, whose order
-	 * no longer says which member a cover belongs to.
+	 * Each member's own counts, by member id (members with no readings are absent). Per-member
+	 * figures come from these, never from the merged counts, which no longer say which member
+	 * a cover belongs to.
 	 */
-	coversByMember: Map<number, Float64Array>;
+	samplesByMember: Map<number, CountedSample>;
 	/** Readings per member id, in member order. */
 	countsByMember: Map<number, number>;
 }
@@ -65,24 +65,8 @@ function groupMembers(members: MemberSpec[], split: Split) {
 }
 
 /**
- * One ascending array of the members' covers (each member's cover set is stored sorted), merged
- * pairwise: O(n log k) for k members, and the engine then needs no sort of its own.
- */
-function joinCovers(parts: (Float64Array | undefined)[]): Float64Array {
-	let runs = parts.filter((p): p is Float64Array => p !== undefined);
-	if (runs.length === 0) return new Float64Array(0);
-	while (runs.length > 1) {
-		const merged: Float64Array[] = [];
-		for (let i = 0; i < runs.length; i += 2)
-			merged.push(i + 1 < runs.length ? mergeSorted(runs[i], runs[i + 1]) : runs[i]);
-		runs = merged;
-	}
-	return runs[0];
-}
-
-/**
- * Gather the populations of a scope: the members, then every cover in one query.
- * Cost: one index range scan of the readings in scope, O(n) parsing and copying.
+ * Gather the populations of a scope: the members, then every member's cover counts (one
+ * short row a member). Cost: O(members × distinct covers) to read and merge.
  */
 export async function gatherGroups(filter: MemberFilter, split: Split): Promise<GatheredGroup[]> {
 	const members = await membersInScope(filter);
@@ -108,19 +92,19 @@ async function gatherOf(
 	members: MemberSpec[],
 	grouped: [string, { key: PopulationKey; members: MemberSpec[] }][]
 ): Promise<GatheredGroup[]> {
-	const byMember = await coversByMember(members.map((m) => m.id));
-	const covers = grouped.map(([, g]) => joinCovers(g.members.map((m) => byMember.get(m.id))));
-	return grouped.map(([id, g], index) => ({
-		id,
-		key: g.key,
-		members: g.members,
-		coversMm: covers[index],
-		coversByMember: new Map(
-			g.members.flatMap((m) => {
-				const own = byMember.get(m.id);
-				return own ? [[m.id, own] as const] : [];
-			})
-		),
-		countsByMember: new Map(g.members.map((m) => [m.id, byMember.get(m.id)?.length ?? 0]))
-	}));
+	const byMember = await countsOfMembers(members.map((m) => m.id));
+	return grouped.map(([id, g]) => {
+		const own = g.members.flatMap((m) => {
+			const sample = byMember.get(m.id);
+			return sample ? [[m.id, sample] as const] : [];
+		});
+		return {
+			id,
+			key: g.key,
+			members: g.members,
+			sample: mergeCounted(own.map(([, sample]) => sample)),
+			samplesByMember: new Map(own),
+			countsByMember: new Map(g.members.map((m) => [m.id, byMember.get(m.id)?.n ?? 0]))
+		};
+	});
 }

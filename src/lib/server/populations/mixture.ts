@@ -1,11 +1,11 @@
 /**
  * "Two populations?" on a population detail: when neither single model fits, a two-component
- * normal mixture (engine: fitNormalMixture) and the members that carry its low component, each
- * from its own covers.
+ * normal mixture (engine: fitNormalMixtureCounted, EM weighted by counts) and the members that
+ * carry its low component, each from its own counts.
  */
 import {
-	fitNormalMixture,
-	lowComponentShare,
+	fitNormalMixtureCounted,
+	lowComponentShareCounted,
 	type NormalMixture,
 	type PopulationAssessment
 } from '$lib/analysis';
@@ -45,8 +45,8 @@ function mixtureSentence(m: Omit<NormalMixture, 'trace'>, carriers: { label: str
 
 /**
  * When neither model fits, a two-component normal mixture (engine: fitNormalMixture, seeded)
- * and the members that carry its low component (more than half their readings). Detail only:
- * EM on at most about 2000 classes. null when a model fits or the readings are too few.
+ * and the members that carry its low component (more than half their readings). EM over the
+ * distinct covers, weighted by their counts. null when a model fits or the readings are too few.
  */
 export function populationMixture(
 	group: GatheredGroup,
@@ -54,12 +54,14 @@ export function populationMixture(
 ): PopulationMixture | null {
 	const models = assessment?.models;
 	if (!models?.normal.rejected || models.lognormal?.rejected === false) return null;
-	if (group.coversMm.length < 10) return null;
+	if (group.sample.n < 10) return null;
 	// The trace of every iteration's lnL is for tests; the page needs the outcome.
-	const { trace: _trace, ...mixture } = fitNormalMixture(group.coversMm, { seed: MIXTURE_SEED });
+	const { trace: _trace, ...mixture } = fitNormalMixtureCounted(group.sample, {
+		seed: MIXTURE_SEED
+	});
 	const members = group.members.flatMap((m) => {
-		const own = group.coversByMember.get(m.id);
-		return own ? [{ label: m.label, lowShare: lowComponentShare(mixture, own) }] : [];
+		const own = group.samplesByMember.get(m.id);
+		return own ? [{ label: m.label, lowShare: lowComponentShareCounted(mixture, own) }] : [];
 	});
 	const carriers = members.filter((m) => m.lowShare > 0.5);
 	return { mixture, members, sentence: mixtureSentence(mixture, carriers) };

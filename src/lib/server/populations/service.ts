@@ -1,9 +1,10 @@
 /**
- * The one place that turns readings into judged populations: gather with SQL (groups.ts),
- * requirement from the members (requirement.ts), figures from the engine — never computed here.
+ * The one place that turns readings into judged populations: gather the members' cover counts
+ * (groups.ts), requirement from the members (requirement.ts), figures from the engine's counted
+ * assessment — never computed here, and never from the readings one by one.
  * The risk view, the reports and the API call these functions.
  */
-import { assessPopulation, ENGINE_VERSION, type PopulationAssessment } from '$lib/analysis';
+import { assessPopulationCounted, ENGINE_VERSION, type PopulationAssessment } from '$lib/analysis';
 import { gatherGroups, keyId, type GatheredGroup, type PopulationKey } from './groups';
 import { toAssessOptions, type GroupSelector, type MethodChoice, type Split } from './query';
 import { groupRequirement, type GroupRequirement } from './requirement';
@@ -55,7 +56,7 @@ export function judgeGroup(
 	charts: boolean
 ): PopulationResult {
 	const requirement = groupRequirement(group.members);
-	const n = group.coversMm.length;
+	const n = group.sample.n;
 	const enough = n >= 2;
 	return {
 		id: group.id,
@@ -70,7 +71,11 @@ export function judgeGroup(
 		})),
 		requirement,
 		assessment: enough
-			? assessPopulation(group.coversMm, requirement.requirement, toAssessOptions(choice, charts))
+			? assessPopulationCounted(
+					group.sample,
+					requirement.requirement,
+					toAssessOptions(choice, charts)
+				)
 			: null,
 		problem: enough ? null : `Only ${n} reading${n === 1 ? '' : 's'}: at least 2 are needed.`
 	};

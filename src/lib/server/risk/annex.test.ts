@@ -1,5 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { spacingSummary } from '$lib/analysis/barsAndSpacing';
+import { countedFromSorted } from '$lib/analysis/countedSample';
 import { buildAnnex } from './annex';
 import type { SnapshotLike } from './source';
 
@@ -37,7 +38,16 @@ const snapshot: SnapshotLike = {
 
 describe('a member with 200,000 readings', () => {
 	it('the risk annex summarises it (least and greatest cover) without overflowing the call stack', () => {
-		const data = new Map([[7, { coversMm: covers, gridWidthMm: 10_000, gridHeightMm: 2_000 }]]);
+		const data = new Map([
+			[
+				7,
+				{
+					sample: countedFromSorted(Float64Array.from(covers).sort()),
+					gridWidthMm: 10_000,
+					gridHeightMm: 2_000
+				}
+			]
+		]);
 		const annex = buildAnnex(snapshot, data, {} as never);
 		expect(annex.members).toHaveLength(1);
 		expect(annex.members[0]).toMatchObject({ n: COUNT, minMm: 20, maxMm: 60 });

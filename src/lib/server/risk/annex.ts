@@ -2,8 +2,15 @@
  * The risk annex: what the engine says about each population's future, computed once from the
  * readings while the assessment is a draft and then kept with it (the snapshot has no readings).
  */
-import { max, min } from 'simple-statistics';
-import { ENGINE_VERSION, toPlainJson, toSortedCovers } from '$lib/analysis';
+import {
+	countBelowCounted,
+	type CountedSample,
+	ENGINE_VERSION,
+	expandCounted,
+	mergeCounted,
+	momentsCounted,
+	toPlainJson
+} from '$lib/analysis';
 import { populationRisk, type PopulationRisk } from './compute';
 import type { MeasuredRiskInput, PopulationMeasurements } from './measured';
 import { modelKindFor } from './model';
@@ -46,7 +53,8 @@ export interface RiskAnnex {
 
 /** What the database gives for each member in the snapshot's populations. */
 export interface MemberData {
-	coversMm: number[];
+	/** The member's covers as counts of distinct values (its stored summary); null with none. */
+	sample: CountedSample | null;
 	gridWidthMm: number | null;
 	gridHeightMm: number | null;
 }
@@ -102,19 +110,18 @@ function summarise(
 	cMinMm: number | null,
 	data: MemberData
 ): MemberSummary {
-	const c = data.coversMm;
-	const n = c.length;
+	const c = data.sample;
+	const n = c?.n ?? 0;
 	return {
 		id,
 		label,
 		populationId,
 		face,
 		n,
-		meanMm: n ? c.reduce((s, x) => s + x, 0) / n : null,
-		// simple-statistics' loops: Math.min(...c) overflows the call stack near 120,000 covers.
-		minMm: n ? min(c) : null,
-		maxMm: n ? max(c) : null,
-		belowCMin: cMinMm === null ? 0 : c.filter((x) => x < cMinMm).length,
+		meanMm: c && n ? momentsCounted(c).mean : null,
+		minMm: c && n ? c.values[0] : null,
+		maxMm: c && n ? c.values[c.values.length - 1] : null,
+		belowCMin: c === null || cMinMm === null ? 0 : countBelowCounted(c, cMinMm),
 		gridWidthMm: data.gridWidthMm,
 		gridHeightMm: data.gridHeightMm
 	};
@@ -159,11 +166,15 @@ export function buildAnnex(
 				m.face,
 				p.id,
 				cMinMm,
-				data.get(m.id) ?? { coversMm: [], gridWidthMm: null, gridHeightMm: null }
+				data.get(m.id) ?? { sample: null, gridWidthMm: null, gridHeightMm: null }
 			)
 		);
 		for (const member of own) members.push(member);
-		const covers = toSortedCovers(p.members.flatMap((m) => data.get(m.id)?.coversMm ?? []));
+		// The durability engine takes sorted covers: expanded from the merged counts (the
+		// summaries are what is read; the array lives only while the annex is built).
+		const covers = expandCounted(
+			mergeCounted(p.members.flatMap((m) => data.get(m.id)?.sample ?? []))
+		);
 		const expected = p.assessment?.description.n ?? covers.length;
 		if (covers.length !== expected) {
 			throw new ReadingsChangedError(

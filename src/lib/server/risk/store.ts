@@ -20,7 +20,7 @@ import {
 	conversionNote,
 	percentOfBinder
 } from '$lib/intake/measurements';
-import { readCoverSets } from '$lib/server/readings/coverSets';
+import { readCoverCounts } from '$lib/server/readings/coverSets';
 import { recordAudit } from '$lib/server/audit';
 import type { Actor } from '$lib/server/policy';
 import { visibleAsset } from './access';
@@ -35,7 +35,7 @@ import type { PopulationMeasurements } from './measured';
 import type { DurabilityParameters } from './parameters';
 import { fromSnapshot, type SnapshotLike } from './source';
 
-/** Every member's covers (from the cover sets) and grid extent. */
+/** Every member's cover counts (its stored summary) and grid extent. */
 export async function memberData(memberIds: readonly number[]): Promise<Map<number, MemberData>> {
 	const ids = [...new Set(memberIds)];
 	const [members, covers] = await Promise.all([
@@ -44,13 +44,13 @@ export async function memberData(memberIds: readonly number[]): Promise<Map<numb
 			where: { id: ids },
 			raw: true
 		}),
-		readCoverSets(ids)
+		readCoverCounts(ids)
 	]);
 	return new Map<number, MemberData>(
 		members.map((m) => [
 			m.id,
 			{
-				coversMm: Array.from(covers.get(m.id) ?? []),
+				sample: covers.get(m.id) ?? null,
 				gridWidthMm: m.gridWidthMm,
 				gridHeightMm: m.gridHeightMm
 			}
@@ -127,7 +127,7 @@ export async function assetMeasurements(
 }
 
 /**
- * The annex of a snapshot: covers from the cover sets, and the asset's measurements as they
+ * The annex of a snapshot: covers from the members' cover counts, and the asset's measurements as they
  * are now — kept in the annex, so the approved assessment shows them as they were.
  */
 export async function annexFor(
