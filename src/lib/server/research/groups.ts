@@ -177,11 +177,18 @@ function addOnGrid(gathering: Gathering, row: CountRow, grid: CoverGrid, bytes: 
 		at.counts = grown;
 		at.offset = from;
 	}
+	// Whole-word views of the entries (little-endian, as every platform Node runs on): a
+	// per-entry Buffer read cost about half the gathering at 10^8 readings. A row's bytes may
+	// start off a 4-byte boundary, then they are copied once.
+	const aligned = bytes.byteOffset % 4 === 0 ? bytes : Buffer.from(bytes);
+	const steps = new Int32Array(aligned.buffer, aligned.byteOffset, entries * 2);
+	const counts = new Uint32Array(aligned.buffer, aligned.byteOffset, entries * 2);
+	const into = at.counts;
+	const offset = at.offset;
 	let n = 0;
-	for (let i = 0; i < entries; i++) {
-		const c = bytes.readUInt32LE(i * 8 + 4);
-		at.counts[bytes.readInt32LE(i * 8) - at.offset] += c;
-		n += c;
+	for (let i = 0; i < entries * 2; i += 2) {
+		into[steps[i] - offset] += counts[i + 1];
+		n += counts[i + 1];
 	}
 	return n;
 }
