@@ -1,5 +1,4 @@
 /** Populations: gathered with SQL, judged by the engine. The seam issues 7 and 9 call. */
-export * from './access';
 export * from './detail';
 export * from './mixture';
 export * from './groups';

@@ -12,7 +12,7 @@ import { readSample, removeStaged, stageUpload } from '../import/stage';
 import { sniffFormat } from '../import/sniff';
 import { assertSurveyEditable } from '../intake/frozen';
 import type { Actor } from '../policy';
-import { scopedSurvey } from '../scope';
+import { scopedSurvey } from '../access';
 import { deleteObject, putObject } from './s3';
 import { sanitiseFileName } from './names';
 

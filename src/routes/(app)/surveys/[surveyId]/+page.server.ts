@@ -13,7 +13,7 @@ import { listImports } from '$lib/server/import/batchActions';
 import { IMPORT_LIMITS } from '$lib/server/import/limits';
 import { actOr, loadOr404 } from '$lib/server/web/pages';
 import { pathId } from '$lib/server/web/params';
-import { scopedSurvey } from '$lib/server/scope';
+import { scopedSurvey } from '$lib/server/access';
 import { hasSurveyPlan } from '$lib/server/planning/service';
 import { EMPTY_SURVEY_WORDS } from '$lib/intake/frozen';
 import { counted } from '$lib/words';

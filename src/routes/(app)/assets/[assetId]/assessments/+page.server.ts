@@ -9,16 +9,19 @@ import {
 	readingCountOf,
 	requestedSurveyIds,
 	scopeSchema,
-	surveySelection,
-	visibleAsset
+	surveySelection
 } from '$lib/server/populations';
+import { visibleAsset } from '$lib/server/access';
+import { loadOr404 } from '$lib/server/web/pages';
 import { pathId } from '$lib/server/web/params';
 import { history, saveDraft, saveSchema, summarise } from '$lib/server/assessments';
 
 export const load: PageServerLoad = async (event) => {
 	const actor = pageActor(event, 'assessment:read');
-	const { asset, access } = await visibleAsset(actor, pathId(event.params.assetId));
-	const rows = await history(actor, asset.id);
+	const { asset, access } = await loadOr404(() =>
+		visibleAsset(actor, pathId(event.params.assetId))
+	);
+	const rows = await loadOr404(() => history(actor, asset.id));
 	const own = access === 'own';
 	// What a save would keep: the population page's selection and methods, carried in ?query=.
 	const query = Object.fromEntries(new URLSearchParams(event.url.searchParams.get('query') ?? ''));
@@ -94,16 +97,18 @@ export const actions = {
 				title: 'No survey is included: go back and tick at least one survey.'
 			});
 		}
-		const saved = await saveDraft(actor, {
-			assetId: pathId(params.assetId),
-			title: parsed.data.title,
-			surveyId: null,
-			surveyIds: requestedSurveyIds(scope.data),
-			split: scope.data.split,
-			methods: methods.data,
-			recommendations: parsed.data.recommendations || null,
-			supersedes: supersedes?.data ?? null
-		});
+		const saved = await loadOr404(() =>
+			saveDraft(actor, {
+				assetId: pathId(params.assetId),
+				title: parsed.data.title,
+				surveyId: null,
+				surveyIds: requestedSurveyIds(scope.data),
+				split: scope.data.split,
+				methods: methods.data,
+				recommendations: parsed.data.recommendations || null,
+				supersedes: supersedes?.data ?? null
+			})
+		);
 		redirect(303, `/assessments/${saved.id}`);
 	}
 } satisfies Actions;

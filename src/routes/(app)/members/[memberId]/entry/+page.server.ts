@@ -8,7 +8,7 @@ import { holeSchema } from '$lib/intake/schemas';
 import { createHole, listHoles } from '$lib/server/intake/holes';
 import { actOr, loadOr404 } from '$lib/server/web/pages';
 import { pathId } from '$lib/server/web/params';
-import { scopedMember } from '$lib/server/scope';
+import { scopedMember } from '$lib/server/access';
 import { frozenReason } from '$lib/server/intake/frozen';
 
 export const load: PageServerLoad = async (event) => {

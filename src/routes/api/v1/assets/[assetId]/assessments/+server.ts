@@ -3,11 +3,12 @@ import type { RequestHandler } from './$types';
 import { authorize } from '$lib/server/web/actor';
 import { pathId } from '$lib/server/web/params';
 import { history, readSaveBody, saveDraft, summarise } from '$lib/server/assessments';
+import { api } from '$lib/server/web/respond';
 
 /** The asset's assessments, newest first (drafts only for those who may write them). */
 export const GET: RequestHandler = async ({ locals, params }) => {
 	const actor = authorize(locals, 'assessment:read');
-	const rows = await history(actor, pathId(params.assetId));
+	const rows = await api(() => history(actor, pathId(params.assetId)));
 	return json({ assessments: await summarise(rows) });
 };
 
@@ -16,16 +17,18 @@ export const POST: RequestHandler = async ({ locals, params, request }) => {
 	const actor = authorize(locals, 'assessment:write');
 	const assetId = pathId(params.assetId);
 	const body = await readSaveBody(request);
-	const saved = await saveDraft(actor, {
-		assetId,
-		title: body.title,
-		surveyId: body.survey,
-		surveyIds: body.surveys,
-		split: body.split,
-		methods: body.methods,
-		recommendations: body.recommendations,
-		supersedes: body.supersedes
-	});
+	const saved = await api(() =>
+		saveDraft(actor, {
+			assetId,
+			title: body.title,
+			surveyId: body.survey,
+			surveyIds: body.surveys,
+			split: body.split,
+			methods: body.methods,
+			recommendations: body.recommendations,
+			supersedes: body.supersedes
+		})
+	);
 	const [summary] = await summarise([saved]);
 	return json({ assessment: summary }, { status: 201 });
 };

@@ -9,9 +9,10 @@ import {
 	populationOverview,
 	requestedSurveyIds,
 	scopeSchema,
-	surveySelection,
-	visibleAsset
+	surveySelection
 } from '$lib/server/populations';
+import { scopedAsset } from '$lib/server/access';
+import { api } from '$lib/server/web/respond';
 import { pathId } from '$lib/server/web/params';
 
 /** The population overview of an asset or one of its surveys: every group, judged by the engine. */
@@ -21,7 +22,7 @@ export const GET: RequestHandler = async ({ locals, params, url }) => {
 	const query = paramsOf(url);
 	const scope = parseParams(scopeSchema, query);
 	const choice = parseParams(methodSchema, query);
-	await visibleAsset(actor, assetId);
+	await api(() => scopedAsset(actor, assetId, 'read'));
 	const selection = await surveySelection(assetId, requestedSurveyIds(scope));
 	const overview = await populationOverview({
 		assetId,

@@ -18,9 +18,9 @@ import {
 	populationDetail,
 	requestedSurveyIds,
 	scopeSchema,
-	surveySelection,
-	visibleAsset
+	surveySelection
 } from '$lib/server/populations';
+import { scopedAsset } from '$lib/server/access';
 import { pathId } from '$lib/server/web/params';
 
 /** One population with chart data, per-member box figures and comparison, and the meter's verification. */
@@ -30,7 +30,7 @@ export const GET: RequestHandler = async ({ locals, params, url }) => {
 	const query = paramsOf(url);
 	const scope = parseParams(scopeSchema, query);
 	const choice = parseParams(methodSchema, query);
-	await visibleAsset(actor, assetId);
+	await api(() => scopedAsset(actor, assetId, 'read'));
 	const selection = await surveySelection(assetId, requestedSurveyIds(scope));
 	const input = { assetId, surveyIds: selection.surveyIds, choice };
 	let detail;
