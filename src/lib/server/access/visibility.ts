@@ -2,6 +2,7 @@ import { Op, type Model, type ModelStatic, type Transaction, type WhereOptions }
 import {
 	Asset,
 	AssetShare,
+	Attachment,
 	CarbonationTest,
 	ChlorideProfile,
 	ImportBatch,
@@ -182,6 +183,14 @@ export async function scopedChlorideProfile(
 		notFoundAs('The chloride profile')
 	);
 	return { record, ...scoped };
+}
+
+/** A survey's attachment, through its survey. */
+export async function scopedAttachment(actor: Actor, attachmentId: number) {
+	const attachment = await byId(Attachment, attachmentId);
+	if (!attachment) throw new NotFoundError('The attachment');
+	await scopedSurvey(actor, attachment.surveyId, 'read').catch(notFoundAs('The attachment'));
+	return attachment;
 }
 
 export async function scopedImportBatch(actor: Actor, batchId: number, access: Access) {
