@@ -27,9 +27,8 @@ export const load: PageServerLoad = async (event) => {
 	const query = Object.fromEntries(new URLSearchParams(event.url.searchParams.get('query') ?? ''));
 	const scope = scopeSchema.safeParse(query);
 	const methods = methodSchema.safeParse(query);
-	const selection = await surveySelection(
-		asset.id,
-		scope.success ? requestedSurveyIds(scope.data) : null
+	const selection = await loadOr404(() =>
+		surveySelection(asset.id, scope.success ? requestedSurveyIds(scope.data) : null)
 	);
 	return {
 		asset: { id: asset.id, name: asset.name },

@@ -23,7 +23,7 @@ export const GET: RequestHandler = async ({ locals, params, url }) => {
 	const scope = parseParams(scopeSchema, query);
 	const choice = parseParams(methodSchema, query);
 	await api(() => scopedAsset(actor, assetId, 'read'));
-	const selection = await surveySelection(assetId, requestedSurveyIds(scope));
+	const selection = await api(() => surveySelection(assetId, requestedSurveyIds(scope)));
 	const overview = await populationOverview({
 		assetId,
 		surveyIds: selection.surveyIds,
