@@ -3,6 +3,7 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { db, closeDb, Assessment, Member } from '../../src/lib/server/db';
 import { methodSchema } from '../../src/lib/server/populations';
 import { approve, saveDraft, sha256Hex } from '../../src/lib/server/assessments';
+import { loadOr404 } from '../../src/lib/server/web/pages';
 import { ADMIN, CAR_PARK, ENGINEER, assetIdByName, demoActor } from '../helpers/actors';
 import { addReadings, removeReadings } from '../helpers/readings';
 
@@ -80,12 +81,15 @@ describe('assessment sign-off', () => {
 			id: old.id,
 			reason: 'Roof survey readings reviewed and accepted.'
 		});
-		await expect(approve(checker, old.id)).rejects.toMatchObject({ status: 409 });
+		// The services throw domain errors; the route layer answers them (here 409).
+		await expect(loadOr404(() => approve(checker, old.id))).rejects.toMatchObject({
+			status: 409
+		});
 		await approve(checker, next.id);
 		await old.reload();
 		expect(old.state).toBe('superseded');
 		await expect(
-			save('Third', { id: old.id, reason: 'Trying to replace a superseded one.' })
+			loadOr404(() => save('Third', { id: old.id, reason: 'Trying to replace a superseded one.' }))
 		).rejects.toMatchObject({ status: 409 });
 		const audit = await sequelize.query<{ n: number }>(
 			"SELECT COUNT(*) AS n FROM audit_events WHERE action = 'assessment.approved'",
@@ -102,7 +106,7 @@ describe('assessment sign-off', () => {
 				type: QueryTypes.UPDATE
 			});
 		const draft = await save('Checked by a second engineer');
-		await expect(approve(engineer, draft.id)).rejects.toMatchObject({
+		await expect(loadOr404(() => approve(engineer, draft.id))).rejects.toMatchObject({
 			status: 409,
 			body: { message: expect.stringMatching(/second engineer/) }
 		});

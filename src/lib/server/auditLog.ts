@@ -105,3 +105,13 @@ export function detailLines(detail: unknown): string[] {
 	}
 	return lines;
 }
+
+/** What one user did lately in the actor's organisation, newest first. */
+export async function recentEventsOf(actor: Actor, userId: number, limit = 50) {
+	const events = await AuditEvent.findAll({
+		where: { organisationId: actor.organisationId, userId },
+		order: [['id', 'DESC']],
+		limit
+	});
+	return events.map((e) => ({ id: e.id, at: e.createdAt, action: e.action }));
+}

@@ -3,8 +3,9 @@
  * anything else is unexpected and goes to handleError.
  */
 export class NotFoundError extends Error {
-	constructor(what: string) {
-		super(`${what} was not found.`);
+	/** `what` names the record asked for; `message` replaces the sentence where one is fixed. */
+	constructor(what: string, message = `${what} was not found.`) {
+		super(message);
 		this.name = 'NotFoundError';
 	}
 }
@@ -22,6 +23,14 @@ export class StateError extends Error {
 	constructor(message: string) {
 		super(message);
 		this.name = 'StateError';
+	}
+}
+
+/** The record existed but is gone for good (a withdrawn or expired link): a 410. */
+export class GoneError extends Error {
+	constructor(message: string) {
+		super(message);
+		this.name = 'GoneError';
 	}
 }
 

@@ -1,6 +1,6 @@
 import { redirect } from '@sveltejs/kit';
 import type { LayoutServerLoad } from './$types';
-import { Membership, Organisation } from '$lib/server/db';
+import { membershipsOf } from '$lib/server/auth/membership';
 import { can } from '$lib/server/policy';
 import { signInUrl } from '$lib/server/web/guard';
 import { devOutboxEnabled } from '$lib/server/mail/devOutbox';
@@ -12,17 +12,13 @@ import { devOutboxEnabled } from '$lib/server/mail/devOutbox';
 export const load: LayoutServerLoad = async ({ locals, url }) => {
 	if (!locals.user) redirect(303, signInUrl(url));
 	const role = locals.membership?.role;
-	const memberships = await Membership.findAll({
-		where: { userId: locals.user.id },
-		include: [Organisation],
-		order: [['id', 'ASC']]
-	});
+	const memberships = await membershipsOf(locals.user.id);
 	return {
 		user: { displayName: locals.user.displayName, email: locals.user.email },
 		membership: locals.membership,
 		organisations: memberships.map((m) => ({
 			id: m.organisationId,
-			name: (m as Membership & { Organisation?: Organisation }).Organisation?.name ?? '',
+			name: m.organisationName,
 			role: m.role
 		})),
 		links: {

@@ -22,7 +22,7 @@ let sequelize: Sequelize;
 const secret = () => process.env.RESEARCH_ID_SECRET!;
 const everything: ResearchFilter = researchFilterSchema.parse({});
 let researcher: { userId: number; organisationId: number };
-let consultancy: { userId: number; organisationId: number };
+let consultancy: Awaited<ReturnType<typeof actorOf>>;
 
 async function exportText(filter: ResearchFilter, format: 'readings-csv' | 'readings-jsonl') {
 	const started = await startReadingsExport(sequelize, secret(), researcher, filter, format);
@@ -50,7 +50,7 @@ async function expectedCount(): Promise<number> {
 async function actorOf(email: string) {
 	const user = await User.findOne({ where: { email } });
 	const membership = await Membership.findOne({ where: { userId: user!.id } });
-	return { userId: user!.id, organisationId: membership!.organisationId };
+	return { userId: user!.id, organisationId: membership!.organisationId, role: membership!.role };
 }
 
 beforeAll(async () => {

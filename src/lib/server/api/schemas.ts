@@ -5,6 +5,7 @@ import { DESIGN_CODES, MEMBER_FACES, MEMBER_TYPES, SURVEY_STATES } from '$lib/wo
  * Shapes of the API's read answers for an organisation's own (or shared) records. The routes
  * build their answers to these and the OpenAPI document is generated from them.
  */
+/** How the OpenAPI document describes a path id; routes parse one with pathId (web/params.ts). */
 export const idParam = (name: string) =>
 	z.coerce.number().int().min(1).max(4_294_967_295).describe(`Id of the ${name}.`);
 

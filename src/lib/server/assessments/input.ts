@@ -1,5 +1,4 @@
 /** What a client sends to save an assessment, checked with zod. */
-import { readJson } from '$lib/server/web/http';
 import { z } from 'zod';
 import { methodSchema, SPLITS } from '$lib/server/populations';
 
@@ -48,8 +47,3 @@ export const saveSchema = z.object({
 });
 
 export type SaveBody = z.infer<typeof saveSchema>;
-
-/** Parse a JSON body; not JSON or not the schema is a 400 naming the field (http.ts). */
-export function readSaveBody(request: Request): Promise<SaveBody> {
-	return readJson(request, saveSchema);
-}

@@ -4,20 +4,19 @@
  * event. An approved or superseded snapshot is never rewritten.
  */
 import { annexFor, fromSnapshot, writeAnnex } from '$lib/server/risk';
-import { error } from '@sveltejs/kit';
 import type { Transaction } from 'sequelize';
 import { db, Assessment, Asset, Organisation } from '$lib/server/db';
 import { recordAudit } from '$lib/server/audit';
-import { apiError } from '$lib/server/web/http';
-import { can, type Actor } from '$lib/server/policy';
-import { InputError } from '$lib/server/domainErrors';
+import type { Actor } from '$lib/server/policy';
 import {
-	customPopulationsOf,
 	ownAsset,
-	surveySelection,
+	scopedSurvey,
+	seesDrafts,
 	visibleAsset,
-	visibleSurvey
-} from '$lib/server/populations';
+	visibleAssessment
+} from '$lib/server/access';
+import { InputError, NotFoundError, StateError } from '$lib/server/domainErrors';
+import { customPopulationsOf, surveySelection } from '$lib/server/populations';
 import type { MethodChoice, Split } from '$lib/server/populations';
 import { buildSnapshot, serialiseSnapshot, sha256Hex } from './snapshot';
 
@@ -38,9 +37,9 @@ export interface SaveInput {
 
 async function checkSupersedable(assetId: number, id: number) {
 	const old = await Assessment.findOne({ where: { id, assetId } });
-	if (!old) error(404, 'No such assessment to supersede.');
+	if (!old) throw new NotFoundError('The assessment to supersede');
 	if (old.state !== 'approved') {
-		error(409, 'Only an approved assessment can be superseded, and only once.');
+		throw new StateError('Only an approved assessment can be superseded, and only once.');
 	}
 }
 
@@ -63,12 +62,15 @@ async function chosenCustom(assetId: number, ids: number[] | null): Promise<numb
 /** Compute the populations now and keep them as a draft assessment. */
 export async function saveDraft(actor: Actor, input: SaveInput): Promise<Assessment> {
 	const asset = await ownAsset(actor, input.assetId);
-	if (input.surveyId) await visibleSurvey(actor, asset.id, input.surveyId);
+	if (input.surveyId) {
+		const { survey } = await scopedSurvey(actor, input.surveyId, 'read');
+		if (survey.assetId !== asset.id) throw new NotFoundError('The survey');
+	}
 	if (input.supersedes) await checkSupersedable(asset.id, input.supersedes.id);
 	const requested = input.surveyIds ?? (input.surveyId ? [input.surveyId] : null);
 	const selection = await surveySelection(asset.id, requested);
 	if (selection.surveyIds.length === 0) {
-		apiError(400, 'invalid_input', selection.words, 'surveys');
+		throw new InputError(selection.words, { surveys: [selection.words] });
 	}
 	const customIds = await chosenCustom(asset.id, input.customIds ?? null);
 	const snapshot = await buildSnapshot(
@@ -139,22 +141,19 @@ export async function mayApprove(actor: Actor, row: Assessment): Promise<boolean
  * supersedes, if any, becomes superseded. Policy 'assessment:approve' is asked by the caller.
  */
 export async function approve(actor: Actor, id: number): Promise<Assessment> {
-	const found = await Assessment.findByPk(id);
-	if (!found) error(404, 'No such assessment.');
-	await ownAsset(actor, found.assetId, 'No such assessment.');
+	await visibleAssessment(actor, id, 'write');
 	return db().transaction(async (transaction) => {
 		const draft = await Assessment.findByPk(id, { transaction, lock: transaction.LOCK.UPDATE });
-		if (!draft || draft.state !== 'draft') error(409, 'Only a draft can be approved.');
+		if (!draft || draft.state !== 'draft') throw new StateError('Only a draft can be approved.');
 		if (await secondApproverRequired(draft.assetId, transaction)) {
 			if (draft.createdByUserId === actor.userId) {
-				error(
-					409,
+				throw new StateError(
 					'You prepared this assessment: your organisation asks a second engineer to check and approve it.'
 				);
 			}
 		}
 		if (sha256Hex(draft.snapshot) !== draft.snapshotSha256) {
-			error(409, 'The draft does not match its checksum; save it again.');
+			throw new StateError('The draft does not match its checksum; save it again.');
 		}
 		await draft.update(
 			{ state: 'approved', approvedByUserId: actor.userId, approvedAt: new Date() },
@@ -166,7 +165,7 @@ export async function approve(actor: Actor, id: number): Promise<Assessment> {
 				lock: transaction.LOCK.UPDATE
 			});
 			if (!old || old.state !== 'approved') {
-				error(409, 'The assessment this one replaces is no longer approved.');
+				throw new StateError('The assessment this one replaces is no longer approved.');
 			}
 			await old.update({ state: 'superseded' }, { transaction });
 		}
@@ -185,11 +184,6 @@ export async function approve(actor: Actor, id: number): Promise<Assessment> {
 	});
 }
 
-/** Whether the actor sees drafts: only those who may write assessments, of their own assets. */
-function seesDrafts(actor: Actor, access: 'own' | 'shared'): boolean {
-	return access === 'own' && can(actor.role, 'assessment:write');
-}
-
 /** An asset's assessments, newest first; owners and shared viewers see approved ones only. */
 export async function history(actor: Actor, assetId: number): Promise<Assessment[]> {
 	const { access } = await visibleAsset(actor, assetId);
@@ -201,11 +195,7 @@ export async function history(actor: Actor, assetId: number): Promise<Assessment
 	return seesDrafts(actor, access) ? rows : rows.filter((a) => a.state !== 'draft');
 }
 
-/** One assessment with its snapshot, or 404 when not visible. */
+/** One assessment with its snapshot; NotFoundError when the actor may not see it. */
 export async function getAssessment(actor: Actor, id: number): Promise<Assessment> {
-	const found = await Assessment.findByPk(id);
-	if (!found) error(404, 'No such assessment.');
-	const { access } = await visibleAsset(actor, found.assetId, 'No such assessment.');
-	if (found.state === 'draft' && !seesDrafts(actor, access)) error(404, 'No such assessment.');
-	return found;
+	return (await visibleAssessment(actor, id)).assessment;
 }

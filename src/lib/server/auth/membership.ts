@@ -31,6 +31,16 @@ export async function membershipIn(
 	return row ? describe(row) : null;
 }
 
+/** Every organisation the user belongs to, oldest membership first (the switcher's list). */
+export async function membershipsOf(userId: number): Promise<ActiveMembership[]> {
+	const rows = await Membership.findAll({
+		where: { userId },
+		include: [Organisation],
+		order: [['id', 'ASC']]
+	});
+	return rows.map(describe);
+}
+
 function describe(row: Membership): ActiveMembership {
 	const organisation = (row as Membership & { Organisation?: Organisation }).Organisation;
 	return {

@@ -5,7 +5,7 @@
 import { Op } from 'sequelize';
 import { Asset, Assessment, ImportBatch, MailMessage, Survey } from '$lib/server/db';
 import { can, type Actor } from '$lib/server/policy';
-import { visibleAssetIds } from '$lib/server/populations';
+import { readableAssetIds } from '$lib/server/access';
 import { parseSnapshot } from '$lib/server/assessments';
 
 export interface AssetStanding {
@@ -72,7 +72,7 @@ async function standing(actor: Actor, assetIds: number[]): Promise<AssetStanding
 }
 
 export async function dashboardFor(actor: Actor) {
-	const assetIds = await visibleAssetIds(actor);
+	const assetIds = await readableAssetIds(actor);
 	const ownIds = (
 		await Asset.findAll({
 			attributes: ['id'],

@@ -13,7 +13,7 @@ import { recordAudit } from '../audit';
 import { StateError } from '../domainErrors';
 import { assertSurveyEditable } from '../intake/frozen';
 import type { Actor } from '../policy';
-import { scopedImportBatch, scopedSurvey } from '../scope';
+import { scopedImportBatch, scopedSurvey } from '../access';
 import { failAbandonedImports, requestCancel } from './progress';
 import { removeStagedCopies } from './stagedCopies';
 

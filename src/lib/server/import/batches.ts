@@ -6,7 +6,7 @@ import type { ImportKind } from '../db/models/ImportBatch';
 import { InputError, StateError, StorageUnavailableError } from '../domainErrors';
 import { assertSurveyEditable } from '../intake/frozen';
 import type { Actor } from '../policy';
-import { scopedImportBatch, scopedSurvey } from '../scope';
+import { scopedImportBatch, scopedSurvey } from '../access';
 import { sanitiseFileName } from '../storage/names';
 import { ImportError } from './errors';
 import type { ColumnMapping, ImportOptions } from './mapping';

@@ -1,7 +1,7 @@
 import type { CheckedRow } from '$lib/intake/checkedRow';
 import { z } from 'zod';
 import type { Actor } from '../policy';
-import { scopedImportBatch } from '../scope';
+import { scopedImportBatch } from '../access';
 import { columnMappingSchema, importOptionsSchema } from './mapping';
 import { extraFields, memberIndex } from './run';
 import { createRowValidator } from './validateRow';

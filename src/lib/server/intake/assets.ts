@@ -2,7 +2,7 @@ import { Asset, Survey } from '../db/models';
 import { recordAudit } from '../audit';
 import type { AssetInput } from '$lib/intake/schemas';
 import type { Actor } from '../policy';
-import { readableAssetsWhere, scopedAsset } from '../scope';
+import { readableAssetsWhere, scopedAsset } from '../access';
 import { saveAudited } from './changes';
 
 export interface AssetSummary {

@@ -5,7 +5,7 @@
 import type { CarbonationTestInput } from '$lib/intake/measurements';
 import { CarbonationTest, Member } from '../db/models';
 import type { Actor } from '../policy';
-import { scopedCarbonationTest, scopedMember, scopedSurvey } from '../scope';
+import { scopedCarbonationTest, scopedMember, scopedSurvey } from '../access';
 import { assertSurveyEditableLocked } from './frozen';
 import { assertLabelFree, auditMeasurement } from './measurementRecords';
 

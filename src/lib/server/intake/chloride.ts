@@ -9,7 +9,7 @@ import {
 } from '$lib/intake/measurements';
 import { ChlorideIncrement, ChlorideProfile, Member } from '../db/models';
 import type { Actor } from '../policy';
-import { scopedChlorideProfile, scopedMember, scopedSurvey } from '../scope';
+import { scopedChlorideProfile, scopedMember, scopedSurvey } from '../access';
 import { assertSurveyEditableLocked } from './frozen';
 import { assertLabelFree, auditMeasurement } from './measurementRecords';
 

@@ -4,7 +4,7 @@ import { recordAudit } from '../audit';
 import { InputError } from '../domainErrors';
 import type { HoleInput } from '$lib/intake/schemas';
 import type { Actor } from '../policy';
-import { scopedHole, scopedMember } from '../scope';
+import { scopedHole, scopedMember } from '../access';
 import { assertSurveyEditableLocked } from './frozen';
 import { saveAudited } from './changes';
 

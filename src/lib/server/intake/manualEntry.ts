@@ -9,7 +9,7 @@ import { importOptionsSchema, columnMappingSchema } from '../import/mapping';
 import { beginProgress } from '../import/progress';
 import { runImport } from '../import/run';
 import type { Actor } from '../policy';
-import { scopedMember } from '../scope';
+import { scopedMember } from '../access';
 import { assertSurveyEditable } from './frozen';
 
 const COLUMNS = ['memberLabel', 'x', 'y', 'cover', 'diameter', 'direction', 'note'] as const;

@@ -5,7 +5,7 @@ import { recordAudit } from '../audit';
 import { InputError } from '../domainErrors';
 import { memberSchema, type MemberInput } from '$lib/intake/schemas';
 import type { Actor } from '../policy';
-import { scopedMember, scopedSurvey } from '../scope';
+import { scopedMember, scopedSurvey } from '../access';
 import { assertSurveyEditable, assertSurveyEditableLocked } from './frozen';
 import { saveAudited } from './changes';
 import { labelKey } from '../import/validateRow';

@@ -5,7 +5,7 @@ import { InputError, StateError } from '../domainErrors';
 import { ImportError } from '../import/errors';
 import type { SiteBatch } from '$lib/intake/schemas';
 import type { Actor } from '../policy';
-import { scopedSurvey } from '../scope';
+import { scopedSurvey } from '../access';
 import { uploadAttachment } from '../storage/attachments';
 import { assertSurveyEditable, assertSurveyEditableLocked, frozenReason } from './frozen';
 import { recordHole } from './holes';

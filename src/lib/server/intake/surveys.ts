@@ -5,7 +5,7 @@ import { recordAudit } from '../audit';
 import { StateError } from '../domainErrors';
 import type { SurveyInput } from '$lib/intake/schemas';
 import type { Actor } from '../policy';
-import { scopedAsset, scopedSurvey } from '../scope';
+import { scopedAsset, scopedSurvey } from '../access';
 import { assertSurveyEditableLocked } from './frozen';
 import { saveAudited } from './changes';
 import { readingCounts } from '../readings/coverSets';

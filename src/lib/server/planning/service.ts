@@ -22,7 +22,7 @@ import {
 import { recordAudit } from '../audit';
 import { Member, MemberCoverSet, SurveyPlan, type Survey } from '../db/models';
 import type { Actor } from '../policy';
-import { scopedSurvey } from '../scope';
+import { scopedSurvey } from '../access';
 import { assertSurveyEditable, assertSurveyEditableLocked } from '../intake/frozen';
 import { earlierSpread } from './history';
 

@@ -10,7 +10,7 @@ import { pdfText } from '../reports/text';
 import { StateError } from '../domainErrors';
 import { Asset, Member } from '../db/models';
 import type { Actor } from '../policy';
-import { scopedSurvey } from '../scope';
+import { scopedSurvey } from '../access';
 import { surveyPlanOf, type SurveyPlanView } from './service';
 
 const COLUMNS = 10;

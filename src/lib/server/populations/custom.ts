@@ -9,7 +9,7 @@ import { UniqueConstraintError } from 'sequelize';
 import { db, CustomPopulation, Member } from '$lib/server/db';
 import { InputError, NotFoundError, ReadOnlyError } from '$lib/server/domainErrors';
 import type { Actor } from '$lib/server/policy';
-import { scopedAsset } from '$lib/server/scope';
+import { scopedAsset } from '$lib/server/access';
 import { recordAudit } from '$lib/server/audit';
 import { gatherAsOne, type PopulationKey } from './groups';
 import type { MemberSpec } from './gather';

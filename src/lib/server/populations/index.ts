@@ -1,5 +1,4 @@
 /** Populations: gathered with SQL, judged by the engine. The seam the risk view, reports and API call. */
-export * from './access';
 export * from './detail';
 export * from './mixture';
 export * from './groups';

@@ -119,5 +119,3 @@ export function parseParams<S extends z.ZodType>(
 	}
 	return parsed.data as z.infer<S>;
 }
-
-export const idParam = z.object({ id: id });

@@ -7,7 +7,7 @@
  */
 import { Member, MemberCoverSet, Survey } from '$lib/server/db';
 import { counted, surveyStateWords } from '$lib/words';
-import { apiError } from '$lib/server/web/http';
+import { InputError } from '$lib/server/domainErrors';
 
 export interface SelectableSurvey {
 	id: number;
@@ -82,7 +82,8 @@ export async function surveySelection(
 		const known = new Set(rows.map((s) => s.id));
 		const unknown = requested.find((id) => !known.has(id));
 		if (unknown !== undefined) {
-			apiError(400, 'invalid_input', `Survey ${unknown} is not a survey of this asset.`, 'surveys');
+			const words = `Survey ${unknown} is not a survey of this asset.`;
+			throw new InputError(words, { surveys: [words] });
 		}
 		basis = 'chosen';
 		ids = new Set(requested);

@@ -4,13 +4,13 @@
  * own report; every open is an audit event.
  */
 import { createHash, randomBytes } from 'node:crypto';
-import { error } from '@sveltejs/kit';
 import { z } from 'zod';
 import { db, Assessment, ReportLink, User } from '$lib/server/db';
 import { recordAudit } from '$lib/server/audit';
 import { appLink, queueMail } from '$lib/server/mail';
 import type { Actor } from '$lib/server/policy';
-import { visibleAsset } from '$lib/server/risk';
+import { visibleAssessment } from '$lib/server/access';
+import { GoneError, NotFoundError, StateError } from '$lib/server/domainErrors';
 
 export const DEFAULT_LINK_DAYS = 14;
 
@@ -29,14 +29,13 @@ export type ShareInput = z.infer<typeof shareSchema>;
 export const tokenHash = (token: string) =>
 	createHash('sha256').update(token, 'utf8').digest('hex');
 
-/** An approved assessment of an asset the actor's organisation owns, or 404. */
+/** An approved assessment of an asset the actor's organisation owns; NotFoundError otherwise. */
 async function ownApproved(actor: Actor, assessmentId: number): Promise<Assessment> {
-	const row = await Assessment.findByPk(assessmentId, { attributes: { exclude: ['snapshot'] } });
-	if (!row) error(404, 'No such assessment.');
-	const { own } = await visibleAsset(actor, row.assetId, 'No such assessment.');
-	if (!own) error(404, 'No such assessment.');
-	if (row.state !== 'approved') error(409, 'Only an approved assessment can be shared.');
-	return row;
+	const { assessment } = await visibleAssessment(actor, assessmentId, 'write');
+	if (assessment.state !== 'approved') {
+		throw new StateError('Only an approved assessment can be shared.');
+	}
+	return assessment;
 }
 
 /** Create a link and mail it. Returns the link's id (the token leaves only in the mail). */
@@ -99,7 +98,7 @@ export async function revokeLink(
 			transaction,
 			lock: transaction.LOCK.UPDATE
 		});
-		if (!link) error(404, 'No such link.');
+		if (!link) throw new NotFoundError('The link');
 		if (link.revokedAt) return;
 		await link.update({ revokedAt: new Date() }, { transaction });
 		await recordAudit(
@@ -127,20 +126,24 @@ export interface OpenedLink {
 	expiresAt: Date;
 }
 
+const invalidLink = () => new NotFoundError('The link', 'This link is not valid.');
+
 export async function openLink(token: string, ipAddress: string | null): Promise<OpenedLink> {
-	if (!/^[A-Za-z0-9_-]{20,100}$/.test(token)) error(404, 'This link is not valid.');
+	if (!/^[A-Za-z0-9_-]{20,100}$/.test(token)) throw invalidLink();
 	return db().transaction(async (transaction) => {
 		const link = await ReportLink.findOne({
 			where: { tokenHash: tokenHash(token) },
 			transaction,
 			lock: transaction.LOCK.UPDATE
 		});
-		if (!link) error(404, 'This link is not valid.');
-		if (link.revokedAt) error(410, 'This link has been withdrawn by the engineer who sent it.');
+		if (!link) throw invalidLink();
+		if (link.revokedAt) {
+			throw new GoneError('This link has been withdrawn by the engineer who sent it.');
+		}
 		if (link.expiresAt.getTime() <= Date.now())
-			error(410, 'This link has expired. Ask the engineer for a new one.');
+			throw new GoneError('This link has expired. Ask the engineer for a new one.');
 		const assessment = await Assessment.findByPk(link.assessmentId, { transaction });
-		if (!assessment || assessment.state === 'draft') error(404, 'This link is not valid.');
+		if (!assessment || assessment.state === 'draft') throw invalidLink();
 		await link.update({ lastOpenedAt: new Date() }, { transaction });
 		await recordAudit(
 			{

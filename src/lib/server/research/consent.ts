@@ -1,5 +1,7 @@
 import { recordAudit } from '../audit';
 import { Asset } from '../db/models';
+import { ownAsset } from '../access';
+import type { Actor } from '../policy';
 
 /**
  * An asset's consent to anonymised research use. Only its owning organisation may change it;
@@ -12,12 +14,6 @@ export interface ConsentState {
 	changedAt: string | null;
 }
 
-export class AssetNotFoundError extends Error {
-	constructor() {
-		super('No such asset in your organisation.');
-	}
-}
-
 function state(asset: Asset): ConsentState {
 	return {
 		assetId: asset.id,
@@ -26,26 +22,30 @@ function state(asset: Asset): ConsentState {
 	};
 }
 
-/** The consent of an asset the organisation owns; AssetNotFoundError otherwise (a 404). */
-export async function readConsent(organisationId: number, assetId: number): Promise<ConsentState> {
-	const asset = await Asset.findOne({ where: { id: assetId, organisationId } });
-	if (!asset) throw new AssetNotFoundError();
-	return state(asset);
+/** The consent of an asset the actor's organisation owns; NotFoundError otherwise (a 404). */
+export async function readConsent(actor: Actor, assetId: number): Promise<ConsentState> {
+	return state(await ownAsset(actor, assetId));
+}
+
+/** The consent of every asset the actor's organisation owns, by name. */
+export async function consentList(actor: Actor): Promise<(ConsentState & { name: string })[]> {
+	const assets = await Asset.findAll({
+		where: { organisationId: actor.organisationId },
+		order: [['name', 'ASC']]
+	});
+	return assets.map((asset) => ({ ...state(asset), name: asset.name }));
 }
 
 export async function setConsent(
-	actor: { userId: number; organisationId: number },
+	actor: Actor,
 	assetId: number,
 	optIn: boolean
 ): Promise<ConsentState> {
 	const sequelize = Asset.sequelize!;
 	return sequelize.transaction(async (transaction) => {
-		const asset = await Asset.findOne({
-			where: { id: assetId, organisationId: actor.organisationId },
-			transaction,
-			lock: transaction.LOCK.UPDATE
-		});
-		if (!asset) throw new AssetNotFoundError();
+		const asset = await ownAsset(actor, assetId, 'The asset', transaction);
+		// Locked so that two changes at once are recorded one after the other.
+		await asset.reload({ transaction, lock: transaction.LOCK.UPDATE });
 		if (Boolean(asset.researchOptIn) === optIn) return state(asset);
 		await asset.update(
 			{ researchOptIn: optIn, researchOptInChangedAt: new Date() },

@@ -1,5 +1,6 @@
 import { ENGINE_VERSION } from '$lib/analysis';
 import { ResearchExport } from '../db/models';
+import { NotFoundError } from '../domainErrors';
 import type { ResearchFilter } from './filter';
 
 /**
@@ -52,4 +53,21 @@ export function summariseExport(record: ResearchExport): ExportSummary {
 		engineVersion: record.engineVersion,
 		createdAt: new Date(record.createdAt).toISOString()
 	};
+}
+
+/** The exports of the organisation, newest first (the last 200). */
+export async function exportsOf(organisationId: number): Promise<ExportSummary[]> {
+	const rows = await ResearchExport.findAll({
+		where: { organisationId },
+		order: [['id', 'DESC']],
+		limit: 200
+	});
+	return rows.map(summariseExport);
+}
+
+/** One export of the organisation; NotFoundError for any other (ids reveal nothing). */
+export async function exportOf(organisationId: number, id: number): Promise<ExportSummary> {
+	const record = await ResearchExport.findOne({ where: { id, organisationId } });
+	if (!record) throw new NotFoundError('The export', 'No such export in your organisation.');
+	return summariseExport(record);
 }

@@ -1,6 +1,7 @@
 import { QueryTypes, type Sequelize } from 'sequelize';
 import { SELECTION_JOINS, selectionWhere } from './selection';
 import { researchFilterSchema } from './filter';
+import { db } from '../db';
 
 /** The values each filter can take within the research data, for the explorer's checkboxes. */
 export interface FilterOptions {
@@ -12,7 +13,7 @@ export interface FilterOptions {
 	cNomMm: number[];
 }
 
-export async function filterOptions(sequelize: Sequelize): Promise<FilterOptions> {
+export async function filterOptions(sequelize: Sequelize = db()): Promise<FilterOptions> {
 	const where = selectionWhere(researchFilterSchema.parse({}));
 	const rows = await sequelize.query<{
 		memberType: string;

@@ -10,6 +10,5 @@ export * from './summary';
 export * from './source';
 export * from './store';
 export * from './portfolio';
-export { visibleAsset, visibleAssets } from './access';
 export * from './view';
 export * from './form';

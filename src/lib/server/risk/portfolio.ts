@@ -2,10 +2,9 @@
  * The owner's portfolio: each visible asset with its latest approved assessment and its risk,
  * and the populations of all of them ranked for "look at first".
  */
-import { error } from '@sveltejs/kit';
 import { Assessment, Asset, Organisation, User } from '$lib/server/db';
 import type { Actor } from '$lib/server/policy';
-import { visibleAsset, visibleAssets } from './access';
+import { readableAssets, visibleAsset } from '$lib/server/access';
 import { coverOnlyAnnex, type RiskAnnex } from './annex';
 import type { PopulationRisk } from './compute';
 import { fromSnapshot, type AssessmentHeader, type SnapshotLike } from './source';
@@ -81,7 +80,7 @@ const assetFields = (a: Asset) => ({
 });
 
 export async function portfolio(actor: Actor) {
-	const assets = await visibleAssets(actor);
+	const assets = await readableAssets(actor);
 	const entries: PortfolioEntry[] = [];
 	for (const asset of assets) {
 		const row = await latestApproved(asset.id);
@@ -104,15 +103,11 @@ export async function portfolio(actor: Actor) {
 
 /** One visible asset with its latest approved assessment (404 for anyone else). */
 export async function assetView(actor: Actor, assetId: number) {
-	const { asset, own } = await visibleAsset(actor, assetId);
+	const { asset, access } = await visibleAsset(actor, assetId);
 	const row = await latestApproved(asset.id);
-	return { asset: assetFields(asset), own, latest: row ? await assessedSource(row) : null };
-}
-
-/** An approved or superseded assessment the actor may read (drafts and others' answer 404). */
-export async function readableAssessment(actor: Actor, assessmentId: number): Promise<Assessment> {
-	const row = await Assessment.findByPk(assessmentId);
-	if (!row || row.state === 'draft') error(404, 'No such assessment.');
-	await visibleAsset(actor, row.assetId, 'No such assessment.');
-	return row;
+	return {
+		asset: assetFields(asset),
+		own: access === 'own',
+		latest: row ? await assessedSource(row) : null
+	};
 }

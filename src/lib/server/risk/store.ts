@@ -3,11 +3,9 @@
  * by an engineer of the owning organisation, in one transaction with its audit event.
  */
 import { createHash } from 'node:crypto';
-import { error } from '@sveltejs/kit';
 import type { Transaction } from 'sequelize';
 import {
 	db,
-	Assessment,
 	AssessmentRisk,
 	CarbonationTest,
 	ChlorideIncrement,
@@ -23,7 +21,8 @@ import {
 import { readCoverCounts } from '$lib/server/readings/coverSets';
 import { recordAudit } from '$lib/server/audit';
 import type { Actor } from '$lib/server/policy';
-import { visibleAsset } from './access';
+import { visibleAssessment } from '$lib/server/access';
+import { StateError } from '$lib/server/domainErrors';
 import {
 	buildAnnex,
 	measurementKey,
@@ -149,17 +148,15 @@ export async function saveRisk(
 	assessmentId: number,
 	entered: DurabilityParameters
 ): Promise<RiskAnnex> {
-	const assessment = await Assessment.findByPk(assessmentId);
-	if (!assessment) error(404, 'No such assessment.');
-	const { own } = await visibleAsset(actor, assessment.assetId, 'No such assessment.');
-	if (!own) error(404, 'No such assessment.');
-	if (assessment.state !== 'draft')
-		error(409, 'The durability parameters of an approved assessment cannot change.');
+	const { assessment } = await visibleAssessment(actor, assessmentId, 'write');
+	if (assessment.state !== 'draft') {
+		throw new StateError('The durability parameters of an approved assessment cannot change.');
+	}
 	let annex: RiskAnnex;
 	try {
 		annex = await annexFor(fromSnapshot(assessment.snapshot), entered);
 	} catch (e) {
-		if (e instanceof ReadingsChangedError) error(409, e.message);
+		if (e instanceof ReadingsChangedError) throw new StateError(e.message);
 		throw e;
 	}
 	await db().transaction(async (transaction) => {

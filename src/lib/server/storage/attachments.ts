@@ -7,12 +7,12 @@ import sharp from 'sharp';
 import { Attachment } from '../db/models';
 import type { AttachmentKind } from '../db/models/Attachment';
 import { recordAudit } from '../audit';
-import { InputError, NotFoundError } from '../domainErrors';
+import { InputError } from '../domainErrors';
 import { readSample, removeStaged, stageUpload } from '../import/stage';
 import { sniffFormat } from '../import/sniff';
 import { assertSurveyEditable } from '../intake/frozen';
 import type { Actor } from '../policy';
-import { scopedSurvey } from '../scope';
+import { scopedSurvey } from '../access';
 import { deleteObject, putObject } from './s3';
 import { sanitiseFileName } from './names';
 
@@ -146,17 +146,6 @@ async function removeObjects(keys: string[]): Promise<void> {
 			)
 		)
 	);
-}
-
-export async function scopedAttachment(actor: Actor, attachmentId: number) {
-	const attachment = Number.isSafeInteger(attachmentId)
-		? await Attachment.findByPk(attachmentId)
-		: null;
-	if (!attachment) throw new NotFoundError('The attachment');
-	await scopedSurvey(actor, attachment.surveyId, 'read').catch((err) => {
-		throw err instanceof NotFoundError ? new NotFoundError('The attachment') : err;
-	});
-	return attachment;
 }
 
 /** A survey's attachments, newest first (the caller has checked the survey is visible). */

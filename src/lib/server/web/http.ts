@@ -20,6 +20,7 @@ const CODE_FOR_STATUS: Record<number, string> = {
 	404: 'not_found',
 	405: 'method_not_allowed',
 	409: 'conflict',
+	410: 'gone',
 	413: 'too_large',
 	415: 'unsupported_media_type',
 	429: 'too_many_requests',

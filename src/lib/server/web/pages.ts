@@ -3,16 +3,23 @@ import type { z } from 'zod';
 import { formMessage, parseForm, type FormFailure } from './forms';
 import type { Action, Actor } from '../policy';
 import { authorize } from './actor';
-import { InputError, NotFoundError, ReadOnlyError, StateError } from '../domainErrors';
+import { GoneError, InputError, NotFoundError, ReadOnlyError, StateError } from '../domainErrors';
 import { ImportError } from '../import/errors';
 
-/** For page loads: another organisation's record (or none) is a 404 page, read-only a 403. */
+/**
+ * For page loads (and actions that answer with an error page rather than the form): another
+ * organisation's record (or none) is a 404 page, read-only a 403, a refused state change a 409,
+ * a withdrawn link a 410, input the data refuses a 400.
+ */
 export async function loadOr404<T>(work: () => Promise<T>): Promise<T> {
 	try {
 		return await work();
 	} catch (err) {
 		if (err instanceof NotFoundError) error(404, err.message);
 		if (err instanceof ReadOnlyError) error(403, err.message);
+		if (err instanceof StateError) error(409, err.message);
+		if (err instanceof GoneError) error(410, err.message);
+		if (err instanceof InputError) error(400, err.message);
 		throw err;
 	}
 }
@@ -26,6 +33,7 @@ export async function actOr<T>(
 		return await work();
 	} catch (err) {
 		if (err instanceof NotFoundError) error(404, err.message);
+		if (err instanceof GoneError) error(410, err.message);
 		if (err instanceof ReadOnlyError) return formMessage(403, form, err.message);
 		if (err instanceof StateError) return formMessage(409, form, err.message);
 		if (err instanceof InputError || err instanceof ImportError) {

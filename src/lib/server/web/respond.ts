@@ -1,6 +1,7 @@
 import { isHttpError, isRedirect } from '@sveltejs/kit';
 import { apiError } from './http';
 import {
+	GoneError,
 	InputError,
 	NotFoundError,
 	ReadOnlyError,
@@ -15,6 +16,7 @@ export function toApiError(err: unknown): never {
 	if (err instanceof NotFoundError) apiError(404, 'not_found', err.message);
 	if (err instanceof ReadOnlyError) apiError(403, 'read_only', err.message);
 	if (err instanceof StateError) apiError(409, 'conflict', err.message);
+	if (err instanceof GoneError) apiError(410, 'gone', err.message);
 	if (err instanceof InputError) {
 		apiError(400, 'invalid_input', err.message, Object.keys(err.fieldErrors)[0]);
 	}

@@ -1,5 +1,4 @@
 import type { PageServerLoad } from './$types';
-import { db } from '$lib/server/db';
 import { pageActor } from '$lib/server/web/guard';
 import { can } from '$lib/server/policy';
 import { filterOptions } from '$lib/server/research/options';
@@ -8,7 +7,7 @@ import { filterOptions } from '$lib/server/research/options';
 export const load: PageServerLoad = async (event) => {
 	const actor = pageActor(event, 'research:read');
 	return {
-		options: await filterOptions(db()),
+		options: await filterOptions(),
 		mayExport: can(actor.role, 'research:export')
 	};
 };

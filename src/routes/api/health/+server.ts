@@ -1,14 +1,13 @@
 import { json } from '@sveltejs/kit';
 import type { RequestHandler } from './$types';
-import { db } from '$lib/server/db';
-import { checkDatabase } from '$lib/server/db/health';
+import { databaseHealth } from '$lib/server/health';
 
 /**
  * Liveness and the database's state: 200 when it answers, 503 with a reason when it does not.
  * The 503 carries the /api error shape too (`error: { code, message }`) beside the report.
  */
 export const GET: RequestHandler = async () => {
-	const database = await checkDatabase(db());
+	const database = await databaseHealth();
 	const report = {
 		status: database.up ? 'ok' : 'degraded',
 		database,

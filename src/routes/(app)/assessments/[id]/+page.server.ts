@@ -3,9 +3,10 @@ import type { Actions, PageServerLoad } from './$types';
 import { pageActor } from '$lib/server/web/guard';
 import { authorize } from '$lib/server/web/actor';
 import { can } from '$lib/server/policy';
-import { visibleAsset } from '$lib/server/populations';
 import { pathId } from '$lib/server/web/params';
 import { approve, getAssessment, mayApprove, withSnapshot } from '$lib/server/assessments';
+import { visibleAssessment } from '$lib/server/access';
+import { loadOr404 } from '$lib/server/web/pages';
 import type { AssessmentSnapshot } from '$lib/server/assessments/snapshot';
 import {
 	assessedSource,
@@ -22,8 +23,9 @@ const exposureClassesOf = (snapshot: AssessmentSnapshot) => [
 
 export const load: PageServerLoad = async (event) => {
 	const actor = pageActor(event, 'assessment:read');
-	const row = await getAssessment(actor, pathId(event.params.id));
-	const { access } = await visibleAsset(actor, row.assetId);
+	const { assessment: row, access } = await loadOr404(() =>
+		visibleAssessment(actor, pathId(event.params.id))
+	);
 	const assessment = await withSnapshot(row);
 	const annex = await loadAnnex(row.id);
 	return {
@@ -51,19 +53,19 @@ export const actions = {
 	/** Approve the draft (engineers and admins: policy 'assessment:approve'). */
 	approve: async ({ locals, params }) => {
 		const actor = authorize(locals, 'assessment:approve');
-		const approved = await approve(actor, pathId(params.id));
+		const approved = await loadOr404(() => approve(actor, pathId(params.id)));
 		redirect(303, `/assessments/${approved.id}`);
 	},
 	/** The engineer's durability parameters for a draft; the projections are computed and kept. */
 	durability: async ({ locals, params, request }) => {
 		const actor = authorize(locals, 'assessment:write');
 		const id = pathId(params.id);
-		const row = await getAssessment(actor, id);
+		const row = await loadOr404(() => getAssessment(actor, id));
 		const snapshot = (await withSnapshot(row)).snapshot;
 		const groups = durabilityFieldGroups(exposureClassesOf(snapshot), null);
 		const read = readDurabilityForm(await request.formData(), groups);
 		if (!read.ok) return fail(400, { durability: { errors: read.errors, values: read.values } });
-		await saveRisk(actor, id, read.parameters);
+		await loadOr404(() => saveRisk(actor, id, read.parameters));
 		redirect(303, `/assessments/${id}?saved=durability#durability`);
 	}
 } satisfies Actions;

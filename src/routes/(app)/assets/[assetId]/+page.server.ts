@@ -5,7 +5,7 @@ import { surveySchema } from '$lib/intake/schemas';
 import { createSurvey, listSurveys } from '$lib/server/intake/surveys';
 import { loadOr404, savingAction } from '$lib/server/web/pages';
 import { pathId } from '$lib/server/web/params';
-import { scopedAsset } from '$lib/server/scope';
+import { scopedAsset } from '$lib/server/access';
 
 export const load: PageServerLoad = async (event) => {
 	const actor = pageActor(event, 'asset:read');

@@ -1,25 +1,22 @@
-import { error, redirect } from '@sveltejs/kit';
+import { redirect } from '@sveltejs/kit';
 import { z } from 'zod';
 import type { Actions, PageServerLoad } from './$types';
-import { Asset } from '$lib/server/db';
 import { parseForm } from '$lib/server/web/forms';
 import { pageActor } from '$lib/server/web/guard';
 import { authorize } from '$lib/server/web/actor';
-import { AssetNotFoundError, setConsent } from '$lib/server/research/consent';
+import { loadOr404 } from '$lib/server/web/pages';
+import { consentList, setConsent } from '$lib/server/research/consent';
 
 /** The owning organisation's consent, asset by asset, to anonymised research use. */
 export const load: PageServerLoad = async (event) => {
 	const actor = pageActor(event, 'research:consent');
-	const assets = await Asset.findAll({
-		where: { organisationId: actor.organisationId },
-		order: [['name', 'ASC']]
-	});
+	const assets = await consentList(actor);
 	return {
 		assets: assets.map((a) => ({
-			id: a.id,
+			id: a.assetId,
 			name: a.name,
-			researchOptIn: Boolean(a.researchOptIn),
-			changedAt: a.researchOptInChangedAt?.toISOString() ?? null
+			researchOptIn: a.researchOptIn,
+			changedAt: a.changedAt
 		}))
 	};
 };
@@ -35,12 +32,7 @@ export const actions = {
 		const parsed = await parseForm(request, consentForm);
 		if (!parsed.ok) return parsed.failure;
 		const { assetId, researchOptIn } = parsed.data;
-		try {
-			await setConsent(actor, assetId, researchOptIn === 'true');
-		} catch (e) {
-			if (e instanceof AssetNotFoundError) error(404, e.message);
-			throw e;
-		}
+		await loadOr404(() => setConsent(actor, assetId, researchOptIn === 'true'));
 		redirect(303, '/organisation/research-consent');
 	}
 } satisfies Actions;

@@ -1,4 +1,4 @@
-import { error, fail, redirect } from '@sveltejs/kit';
+import { fail, redirect } from '@sveltejs/kit';
 import { z } from 'zod';
 import type { Actions, PageServerLoad } from './$types';
 import { parseForm } from '$lib/server/web/forms';
@@ -8,21 +8,20 @@ import { can } from '$lib/server/policy';
 import { linksOf, revokeLink, shareReport, shareSchema } from '$lib/server/reports';
 import { assetView, toRiskView } from '$lib/server/risk';
 import { customPopulationWords } from '$lib/words';
+import { loadOr404 } from '$lib/server/web/pages';
+import { pathId } from '$lib/server/web/params';
 
+/** The form's record ids (fields, not the path: a bad one is a 400 naming the field). */
 const idSchema = z.coerce.number().int().positive().max(4_294_967_295);
-
-function assetIdOf(raw: string): number {
-	const parsed = idSchema.safeParse(raw);
-	if (!parsed.success) error(404, 'No such asset.');
-	return parsed.data;
-}
 
 export const load: PageServerLoad = async (event) => {
 	const actor = pageActor(event, 'report:read');
-	const { asset, own, latest } = await assetView(actor, assetIdOf(event.params.assetId));
+	const { asset, own, latest } = await loadOr404(() =>
+		assetView(actor, pathId(event.params.assetId))
+	);
 	// Only the owning organisation's engineers send links; a shared viewer cannot.
 	const mayShare = own && can(actor.role, 'report:share') && latest !== null;
-	const links = mayShare && latest ? await linksOf(actor, latest.header.id) : [];
+	const links = mayShare && latest ? await loadOr404(() => linksOf(actor, latest.header.id)) : [];
 	return {
 		asset,
 		view: latest ? toRiskView(latest) : null,
@@ -47,14 +46,14 @@ export const actions = {
 		const actor = authorize(locals, 'report:share');
 		const parsed = await parseForm(request, shareSchema.extend(assessmentField.shape));
 		if (!parsed.ok) return parsed.failure;
-		await shareReport(actor, parsed.data.assessment, parsed.data);
-		redirect(303, `/portfolio/${assetIdOf(params.assetId)}?shared=1`);
+		await loadOr404(() => shareReport(actor, parsed.data.assessment, parsed.data));
+		redirect(303, `/portfolio/${pathId(params.assetId)}?shared=1`);
 	},
 	revoke: async ({ locals, params, request }) => {
 		const actor = authorize(locals, 'report:share');
 		const parsed = await parseForm(request, assessmentField.extend({ link: idSchema }));
 		if (!parsed.ok) return fail(400, { errors: { link: 'No such link.' }, values: {} });
-		await revokeLink(actor, parsed.data.assessment, parsed.data.link);
-		redirect(303, `/portfolio/${assetIdOf(params.assetId)}?revoked=1`);
+		await loadOr404(() => revokeLink(actor, parsed.data.assessment, parsed.data.link));
+		redirect(303, `/portfolio/${pathId(params.assetId)}?revoked=1`);
 	}
 } satisfies Actions;

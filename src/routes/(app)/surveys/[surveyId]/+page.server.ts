@@ -1,6 +1,5 @@
 import { fail } from '@sveltejs/kit';
 import type { Actions, PageServerLoad } from './$types';
-import { Attachment } from '$lib/server/db';
 import { authorize } from '$lib/server/web/actor';
 import { can } from '$lib/server/policy';
 import { pageActor } from '$lib/server/web/guard';
@@ -13,7 +12,8 @@ import { listImports } from '$lib/server/import/batchActions';
 import { IMPORT_LIMITS } from '$lib/server/import/limits';
 import { actOr, loadOr404 } from '$lib/server/web/pages';
 import { pathId } from '$lib/server/web/params';
-import { scopedSurvey } from '$lib/server/scope';
+import { scopedSurvey } from '$lib/server/access';
+import { listAttachments } from '$lib/server/storage/attachments';
 import { hasSurveyPlan } from '$lib/server/planning/service';
 import { EMPTY_SURVEY_WORDS } from '$lib/intake/frozen';
 import { counted } from '$lib/words';
@@ -25,7 +25,7 @@ export const load: PageServerLoad = async (event) => {
 	const { survey, asset } = await loadOr404(() => scopedSurvey(actor, surveyId, 'read'));
 	const own = asset.organisationId === actor.organisationId;
 	const editable = own && (survey.status === 'draft' || survey.status === 'returned');
-	const attachments = await Attachment.findAll({ where: { surveyId }, order: [['id', 'DESC']] });
+	const attachments = await listAttachments(surveyId);
 	const members = await listMembers(actor, surveyId);
 	// A survey without readings has nothing to review; the service refuses it too.
 	const hasReadings = members.some((m) => m.readingCount > 0);

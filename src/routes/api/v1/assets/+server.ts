@@ -1,7 +1,7 @@
 import { json } from '@sveltejs/kit';
 import type { RequestHandler } from './$types';
 import { authorize } from '$lib/server/web/actor';
-import { visibleAssets } from '$lib/server/api/visible';
+import { readableAssets, standingOf } from '$lib/server/access';
 import { assetAnswer } from '$lib/server/api/ownRecords';
 import { readJson } from '$lib/server/web/http';
 import { assetSchema } from '$lib/intake/schemas';
@@ -11,8 +11,10 @@ import { api } from '$lib/server/web/respond';
 /** Assets the caller's organisation owns or has been shared. */
 export const GET: RequestHandler = async ({ locals }) => {
 	const actor = authorize(locals, 'asset:read');
-	const assets = await visibleAssets(actor);
-	return json({ assets: assets.map(({ asset, owned }) => assetAnswer(asset, owned)) });
+	const assets = await readableAssets(actor, 'id');
+	return json({
+		assets: assets.map((asset) => assetAnswer(asset, standingOf(actor, asset) === 'own'))
+	});
 };
 
 export const POST: RequestHandler = async ({ locals, request }) => {

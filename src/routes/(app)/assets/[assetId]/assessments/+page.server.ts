@@ -10,25 +10,27 @@ import {
 	readingCountOf,
 	requestedSurveyIds,
 	scopeSchema,
-	surveySelection,
-	visibleAsset
+	surveySelection
 } from '$lib/server/populations';
+import { visibleAsset } from '$lib/server/access';
+import { loadOr404 } from '$lib/server/web/pages';
 import { pathId } from '$lib/server/web/params';
 import { history, saveDraft, saveSchema, summarise } from '$lib/server/assessments';
 import { InputError } from '$lib/server/domainErrors';
 
 export const load: PageServerLoad = async (event) => {
 	const actor = pageActor(event, 'assessment:read');
-	const { asset, access } = await visibleAsset(actor, pathId(event.params.assetId));
-	const rows = await history(actor, asset.id);
+	const { asset, access } = await loadOr404(() =>
+		visibleAsset(actor, pathId(event.params.assetId))
+	);
+	const rows = await loadOr404(() => history(actor, asset.id));
 	const own = access === 'own';
 	// What a save would keep: the population page's selection and methods, carried in ?query=.
 	const query = Object.fromEntries(new URLSearchParams(event.url.searchParams.get('query') ?? ''));
 	const scope = scopeSchema.safeParse(query);
 	const methods = methodSchema.safeParse(query);
-	const selection = await surveySelection(
-		asset.id,
-		scope.success ? requestedSurveyIds(scope.data) : null
+	const selection = await loadOr404(() =>
+		surveySelection(asset.id, scope.success ? requestedSurveyIds(scope.data) : null)
 	);
 	return {
 		asset: { id: asset.id, name: asset.name },
@@ -110,9 +112,10 @@ export const actions = {
 				title: 'No survey is included: go back and tick at least one survey.'
 			});
 		}
-		let saved;
-		try {
-			saved = await saveDraft(actor, {
+		// A refusal of the input (a custom population deleted since the page was drawn, no survey
+		// chosen) is said beside the form; anything else is the page's error.
+		const saved = await loadOr404(() =>
+			saveDraft(actor, {
 				assetId: pathId(params.assetId),
 				title: parsed.data.title,
 				surveyId: null,
@@ -122,11 +125,14 @@ export const actions = {
 				methods: methods.data,
 				recommendations: parsed.data.recommendations || null,
 				supersedes: supersedes?.data ?? null
-			});
-		} catch (err) {
-			// A population deleted since the page was drawn: say so beside the choice.
-			if (err instanceof InputError) return refuse(values, { custom: err.message });
-			throw err;
+			}).catch((err: unknown) => {
+				if (err instanceof InputError) return err;
+				throw err;
+			})
+		);
+		if (saved instanceof InputError) {
+			const field = Object.keys(saved.fieldErrors)[0] ?? 'custom';
+			return refuse(values, { [field]: saved.message });
 		}
 		redirect(303, `/assessments/${saved.id}`);
 	}

@@ -6,7 +6,7 @@ import { updateAsset } from '$lib/server/intake/assets';
 import { loadOr404, savingAction } from '$lib/server/web/pages';
 import { pathId } from '$lib/server/web/params';
 import { withSavedNotice } from '$lib/intake/savedNotice';
-import { scopedAsset } from '$lib/server/scope';
+import { scopedAsset } from '$lib/server/access';
 
 /** An asset's own details; a shared asset is read-only to its guests (403). */
 export const load: PageServerLoad = async (event) => {

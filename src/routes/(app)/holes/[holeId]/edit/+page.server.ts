@@ -9,7 +9,7 @@ import { frozenReason } from '$lib/server/intake/frozen';
 import { loadOr404, savingAction } from '$lib/server/web/pages';
 import { pathId } from '$lib/server/web/params';
 import { withSavedNotice } from '$lib/intake/savedNotice';
-import { scopedHole } from '$lib/server/scope';
+import { scopedHole } from '$lib/server/access';
 
 /** A verification hole to correct or delete, while its survey is a draft or returned. */
 export const load: PageServerLoad = async (event) => {

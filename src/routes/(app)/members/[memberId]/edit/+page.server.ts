@@ -8,7 +8,7 @@ import { frozenReason } from '$lib/server/intake/frozen';
 import { loadOr404, savingAction } from '$lib/server/web/pages';
 import { pathId } from '$lib/server/web/params';
 import { withSavedNotice } from '$lib/intake/savedNotice';
-import { scopedMember } from '$lib/server/scope';
+import { scopedMember } from '$lib/server/access';
 
 /** Every specified value of a member, editable while its survey is a draft or returned. */
 export const load: PageServerLoad = async (event) => {

@@ -3,12 +3,12 @@ import { authorize } from '$lib/server/web/actor';
 import { can } from '$lib/server/policy';
 import { pageActor } from '$lib/server/web/guard';
 import { parseForm } from '$lib/server/web/forms';
-import { Reading } from '$lib/server/db';
+import { readingCounts } from '$lib/server/readings/coverSets';
 import { holeSchema } from '$lib/intake/schemas';
 import { createHole, listHoles } from '$lib/server/intake/holes';
 import { actOr, loadOr404 } from '$lib/server/web/pages';
 import { pathId } from '$lib/server/web/params';
-import { scopedMember } from '$lib/server/scope';
+import { scopedMember } from '$lib/server/access';
 import { frozenReason } from '$lib/server/intake/frozen';
 
 export const load: PageServerLoad = async (event) => {
@@ -22,7 +22,7 @@ export const load: PageServerLoad = async (event) => {
 	return {
 		member: member.get({ plain: true }),
 		survey: { id: survey.id, title: survey.title, status: survey.status },
-		readingCount: await Reading.count({ where: { memberId } }),
+		readingCount: (await readingCounts([memberId])).get(memberId) ?? 0,
 		holes: holes.map((h) => h.get({ plain: true })),
 		// Said where the grid would be, so a frozen survey does not just lack one.
 		frozen: frozenReason(survey, can(actor.role, 'survey:review')),

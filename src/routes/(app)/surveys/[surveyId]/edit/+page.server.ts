@@ -8,7 +8,7 @@ import { frozenReason } from '$lib/server/intake/frozen';
 import { loadOr404, savingAction } from '$lib/server/web/pages';
 import { pathId } from '$lib/server/web/params';
 import { withSavedNotice } from '$lib/intake/savedNotice';
-import { scopedSurvey } from '$lib/server/scope';
+import { scopedSurvey } from '$lib/server/access';
 
 /** A survey's details (title, date, meter), editable while it is a draft or returned. */
 export const load: PageServerLoad = async (event) => {

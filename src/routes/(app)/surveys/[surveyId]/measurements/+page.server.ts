@@ -26,7 +26,7 @@ import { listMembers } from '$lib/server/intake/members';
 import { actOr, loadOr404 } from '$lib/server/web/pages';
 import { frozenReason } from '$lib/server/intake/frozen';
 import { pathId } from '$lib/server/web/params';
-import { scopedSurvey } from '$lib/server/scope';
+import { scopedSurvey } from '$lib/server/access';
 
 export const load: PageServerLoad = async (event) => {
 	const actor = pageActor(event, 'survey:read');

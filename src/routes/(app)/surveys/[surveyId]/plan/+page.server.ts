@@ -6,7 +6,7 @@ import { pageActor } from '$lib/server/web/guard';
 import { surveyPlanSchema, type PlannedPopulationInput } from '$lib/intake/plan';
 import { actOr, loadOr404 } from '$lib/server/web/pages';
 import { pathId } from '$lib/server/web/params';
-import { scopedSurvey } from '$lib/server/scope';
+import { scopedSurvey } from '$lib/server/access';
 import { proposedPopulations, saveSurveyPlan, surveyPlanOf } from '$lib/server/planning/service';
 
 export const load: PageServerLoad = async (event) => {

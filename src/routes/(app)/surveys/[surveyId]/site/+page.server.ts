@@ -4,7 +4,7 @@ import { pageActor } from '$lib/server/web/guard';
 import { listMembers } from '$lib/server/intake/members';
 import { loadOr404 } from '$lib/server/web/pages';
 import { pathId } from '$lib/server/web/params';
-import { scopedSurvey } from '$lib/server/scope';
+import { scopedSurvey } from '$lib/server/access';
 import { plannedReadingsByMember } from '$lib/server/planning/service';
 
 export const load: PageServerLoad = async (event) => {

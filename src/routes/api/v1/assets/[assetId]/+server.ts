@@ -4,7 +4,7 @@ import { authorize } from '$lib/server/web/actor';
 import { readJson } from '$lib/server/web/http';
 import { assetSchema } from '$lib/intake/schemas';
 import { updateAsset } from '$lib/server/intake/assets';
-import { scopedAsset } from '$lib/server/scope';
+import { scopedAsset } from '$lib/server/access';
 import { api } from '$lib/server/web/respond';
 import { pathId } from '$lib/server/web/params';
 

@@ -1,7 +1,7 @@
 import { Readable } from 'node:stream';
 import type { RequestHandler } from './$types';
 import { authorize } from '$lib/server/web/actor';
-import { scopedAttachment } from '$lib/server/storage/attachments';
+import { scopedAttachment } from '$lib/server/access';
 import { attachmentDownloadQuerySchema } from '$lib/server/storage/attachmentQuery';
 import { getObject } from '$lib/server/storage/s3';
 import { contentDisposition } from '$lib/server/storage/names';

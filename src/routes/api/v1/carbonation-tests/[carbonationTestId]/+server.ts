@@ -2,7 +2,7 @@ import { json } from '@sveltejs/kit';
 import type { RequestHandler } from './$types';
 import { authorize } from '$lib/server/web/actor';
 import { deleteCarbonationTest } from '$lib/server/intake/carbonation';
-import { scopedCarbonationTest } from '$lib/server/scope';
+import { scopedCarbonationTest } from '$lib/server/access';
 import { api } from '$lib/server/web/respond';
 import { pathId } from '$lib/server/web/params';
 

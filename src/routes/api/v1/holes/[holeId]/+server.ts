@@ -4,7 +4,7 @@ import { authorize } from '$lib/server/web/actor';
 import { readJson } from '$lib/server/web/http';
 import { holeSchema } from '$lib/intake/schemas';
 import { deleteHole, updateHole } from '$lib/server/intake/holes';
-import { scopedHole } from '$lib/server/scope';
+import { scopedHole } from '$lib/server/access';
 import { api } from '$lib/server/web/respond';
 import { pathId } from '$lib/server/web/params';
 

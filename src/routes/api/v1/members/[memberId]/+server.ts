@@ -4,7 +4,7 @@ import { authorize } from '$lib/server/web/actor';
 import { readJson } from '$lib/server/web/http';
 import { memberSchema } from '$lib/intake/schemas';
 import { updateMember } from '$lib/server/intake/members';
-import { scopedMember } from '$lib/server/scope';
+import { scopedMember } from '$lib/server/access';
 import { api } from '$lib/server/web/respond';
 import { pathId } from '$lib/server/web/params';
 

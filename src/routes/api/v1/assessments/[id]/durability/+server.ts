@@ -1,9 +1,11 @@
 import { json } from '@sveltejs/kit';
 import { z } from 'zod';
 import type { RequestHandler } from './$types';
-import { Assessment } from '$lib/server/db';
-import { apiError, readJson } from '$lib/server/web/http';
+import { readJson } from '$lib/server/web/http';
 import { authorize } from '$lib/server/web/actor';
+import { pathId } from '$lib/server/web/params';
+import { api } from '$lib/server/web/respond';
+import { visibleAssessment } from '$lib/server/access';
 import {
 	assessedSource,
 	CARBONATION_DEFAULTS,
@@ -11,18 +13,10 @@ import {
 	durabilityParametersSchema,
 	loadAnnex,
 	saveRisk,
-	toRiskView,
-	visibleAsset
+	toRiskView
 } from '$lib/server/risk';
 
-const idSchema = z.coerce.number().int().positive().max(4_294_967_295);
 const bodySchema = z.object({ parameters: durabilityParametersSchema });
-
-function assessmentId(raw: string): number {
-	const parsed = idSchema.safeParse(raw);
-	if (!parsed.success) apiError(404, 'not_found', 'No such assessment.');
-	return parsed.data;
-}
 
 /**
  * The parameters kept with an assessment (or none yet), its populations' risk (measured fronts
@@ -30,11 +24,8 @@ function assessmentId(raw: string): number {
  */
 export const GET: RequestHandler = async ({ locals, params }) => {
 	const actor = authorize(locals, 'assessment:read');
-	const id = assessmentId(params.id);
-	const row = await Assessment.findByPk(id);
-	if (!row) apiError(404, 'not_found', 'No such assessment.');
-	const { own } = await visibleAsset(actor, row.assetId, 'No such assessment.');
-	if (row.state === 'draft' && !own) apiError(404, 'not_found', 'No such assessment.');
+	const id = pathId(params.id);
+	const { assessment: row } = await api(() => visibleAssessment(actor, id));
 	const annex = await loadAnnex(id);
 	return json({
 		parameters: annex?.parameters ?? null,
@@ -47,8 +38,8 @@ export const GET: RequestHandler = async ({ locals, params }) => {
 /** Enter the durability parameters of a draft; the risk figures are computed and kept with it. */
 export const PUT: RequestHandler = async ({ locals, params, request }) => {
 	const actor = authorize(locals, 'assessment:write');
-	const id = assessmentId(params.id);
+	const id = pathId(params.id);
 	const { parameters } = await readJson(request, bodySchema);
-	const annex = await saveRisk(actor, id, parameters);
+	const annex = await api(() => saveRisk(actor, id, parameters));
 	return json({ parameters: annex.parameters, populations: annex.populations });
 };

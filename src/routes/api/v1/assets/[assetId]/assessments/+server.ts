@@ -2,13 +2,14 @@ import { json } from '@sveltejs/kit';
 import type { RequestHandler } from './$types';
 import { authorize } from '$lib/server/web/actor';
 import { pathId } from '$lib/server/web/params';
+import { history, saveDraft, saveSchema, summarise } from '$lib/server/assessments';
+import { readJson } from '$lib/server/web/http';
 import { api } from '$lib/server/web/respond';
-import { history, readSaveBody, saveDraft, summarise } from '$lib/server/assessments';
 
 /** The asset's assessments, newest first (drafts only for those who may write them). */
 export const GET: RequestHandler = async ({ locals, params }) => {
 	const actor = authorize(locals, 'assessment:read');
-	const rows = await history(actor, pathId(params.assetId));
+	const rows = await api(() => history(actor, pathId(params.assetId)));
 	return json({ assessments: await summarise(rows) });
 };
 
@@ -16,7 +17,7 @@ export const GET: RequestHandler = async ({ locals, params }) => {
 export const POST: RequestHandler = async ({ locals, params, request }) => {
 	const actor = authorize(locals, 'assessment:write');
 	const assetId = pathId(params.assetId);
-	const body = await readSaveBody(request);
+	const body = await readJson(request, saveSchema);
 	const saved = await api(() =>
 		saveDraft(actor, {
 			assetId,

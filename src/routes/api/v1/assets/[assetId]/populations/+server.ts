@@ -9,9 +9,10 @@ import {
 	populationOverview,
 	requestedSurveyIds,
 	scopeSchema,
-	surveySelection,
-	visibleAsset
+	surveySelection
 } from '$lib/server/populations';
+import { scopedAsset } from '$lib/server/access';
+import { api } from '$lib/server/web/respond';
 import { pathId } from '$lib/server/web/params';
 
 /** The population overview of an asset or one of its surveys: every group, judged by the engine. */
@@ -21,8 +22,8 @@ export const GET: RequestHandler = async ({ locals, params, url }) => {
 	const query = paramsOf(url);
 	const scope = parseParams(scopeSchema, query);
 	const choice = parseParams(methodSchema, query);
-	await visibleAsset(actor, assetId);
-	const selection = await surveySelection(assetId, requestedSurveyIds(scope));
+	await api(() => scopedAsset(actor, assetId, 'read'));
+	const selection = await api(() => surveySelection(assetId, requestedSurveyIds(scope)));
 	const overview = await populationOverview({
 		assetId,
 		surveyIds: selection.surveyIds,

@@ -1,30 +1,22 @@
 import { json } from '@sveltejs/kit';
-import { z } from 'zod';
 import type { RequestHandler } from './$types';
 import { authorize } from '$lib/server/web/actor';
-import { apiError, readJson } from '$lib/server/web/http';
-import { parseInput } from '$lib/server/api/request';
-import { idParam } from '$lib/server/api/schemas';
+import { readJson } from '$lib/server/web/http';
+import { api } from '$lib/server/web/respond';
+import { pathId } from '$lib/server/web/params';
 import { consentBodySchema } from '$lib/server/research/apiSchemas';
-import { AssetNotFoundError, readConsent, setConsent } from '$lib/server/research/consent';
-
-const paramsSchema = z.object({ assetId: idParam('asset') });
-
-function notFound(e: unknown): never {
-	if (e instanceof AssetNotFoundError) apiError(404, 'not_found', e.message);
-	throw e;
-}
+import { readConsent, setConsent } from '$lib/server/research/consent';
 
 /** The consent of an asset the caller's organisation owns (a shared one is not theirs to give). */
 export const GET: RequestHandler = async ({ locals, params }) => {
 	const actor = authorize(locals, 'research:consent');
-	const { assetId } = parseInput(paramsSchema, params);
-	return json(await readConsent(actor.organisationId, assetId).catch(notFound));
+	const assetId = pathId(params.assetId);
+	return json(await api(() => readConsent(actor, assetId)));
 };
 
 export const PUT: RequestHandler = async ({ locals, params, request }) => {
 	const actor = authorize(locals, 'research:consent');
-	const { assetId } = parseInput(paramsSchema, params);
+	const assetId = pathId(params.assetId);
 	const { researchOptIn } = await readJson(request, consentBodySchema);
-	return json(await setConsent(actor, assetId, researchOptIn).catch(notFound));
+	return json(await api(() => setConsent(actor, assetId, researchOptIn)));
 };

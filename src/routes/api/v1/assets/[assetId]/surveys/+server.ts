@@ -1,10 +1,7 @@
 import { json } from '@sveltejs/kit';
-import { z } from 'zod';
 import type { RequestHandler } from './$types';
 import { authorize } from '$lib/server/web/actor';
-import { parseInput } from '$lib/server/api/request';
-import { idParam } from '$lib/server/api/schemas';
-import { visibleAsset } from '$lib/server/api/visible';
+import { scopedAsset } from '$lib/server/access';
 import { surveysOf } from '$lib/server/api/ownRecords';
 import { readJson } from '$lib/server/web/http';
 import { surveySchema } from '$lib/intake/schemas';
@@ -14,8 +11,8 @@ import { pathId } from '$lib/server/web/params';
 
 export const GET: RequestHandler = async ({ locals, params }) => {
 	const actor = authorize(locals, 'survey:read');
-	const { assetId } = parseInput(z.object({ assetId: idParam('asset') }), params);
-	const asset = await visibleAsset(actor, assetId);
+	const assetId = pathId(params.assetId);
+	const asset = await api(() => scopedAsset(actor, assetId, 'read'));
 	return json({ surveys: await surveysOf(asset.id) });
 };
 

@@ -1,11 +1,9 @@
 import { json } from '@sveltejs/kit';
-import { z } from 'zod';
 import type { RequestHandler } from './$types';
 import { authorize } from '$lib/server/web/actor';
 import { pageQuerySchema } from '$lib/server/api/cursor';
 import { parseInput, queryObject } from '$lib/server/api/request';
-import { idParam } from '$lib/server/api/schemas';
-import { visibleMember } from '$lib/server/api/visible';
+import { scopedMember } from '$lib/server/access';
 import { readingPage } from '$lib/server/api/ownRecords';
 import { apiError, readJson } from '$lib/server/web/http';
 import { manualEntrySchema } from '$lib/intake/schemas';
@@ -15,9 +13,9 @@ import { pathId } from '$lib/server/web/params';
 
 export const GET: RequestHandler = async ({ locals, params, url }) => {
 	const actor = authorize(locals, 'survey:read');
-	const { memberId } = parseInput(z.object({ memberId: idParam('member') }), params);
+	const memberId = pathId(params.memberId);
 	const { cursor, limit } = parseInput(pageQuerySchema, queryObject(url));
-	const member = await visibleMember(actor, memberId);
+	const { member } = await api(() => scopedMember(actor, memberId, 'read'));
 	return json(await readingPage(member.id, cursor?.after ?? 0, limit));
 };
 

@@ -5,16 +5,10 @@ import { authorize } from '$lib/server/web/actor';
 import type { Actor } from '$lib/server/policy';
 import { apiError, readJson } from '$lib/server/web/http';
 import { roleSchema } from '$lib/server/auth/schemas';
-import { idParamSchema } from '$lib/server/auth/tokenSchemas';
+import { pathId } from '$lib/server/web/params';
 import { changeRole, LastAdminError, removeMember } from '$lib/server/organisation/members';
 
 const patchSchema = z.object({ role: roleSchema });
-
-function membershipId(raw: string): number {
-	const id = idParamSchema.safeParse(raw);
-	if (!id.success) apiError(404, 'not_found', 'No such member.');
-	return id.data;
-}
 
 /** Runs a change, turning "not ours" into 404 and "last admin" into 409. */
 async function change<T>(run: () => Promise<T | null>): Promise<T> {
@@ -31,7 +25,7 @@ async function change<T>(run: () => Promise<T | null>): Promise<T> {
 /** Changes a member's role: `{ "role": "engineer" }`. */
 export const PATCH: RequestHandler = async ({ locals, params, request }) => {
 	const actor: Actor = authorize(locals, 'organisation:manage');
-	const id = membershipId(params.id);
+	const id = pathId(params.id);
 	const { role } = await readJson(request, patchSchema);
 	const membership = await change(() => changeRole(actor, id, role));
 	return json({ member: { id: membership.id, userId: membership.userId, role: membership.role } });
@@ -39,7 +33,7 @@ export const PATCH: RequestHandler = async ({ locals, params, request }) => {
 
 export const DELETE: RequestHandler = async ({ locals, params }) => {
 	const actor = authorize(locals, 'organisation:manage');
-	const id = membershipId(params.id);
+	const id = pathId(params.id);
 	await change(() => removeMember(actor, id));
 	return new Response(null, { status: 204 });
 };

@@ -8,7 +8,7 @@ import {
 	uploadAttachment
 } from '$lib/server/storage/attachments';
 import { attachmentUploadQuerySchema } from '$lib/server/storage/attachmentQuery';
-import { scopedSurvey } from '$lib/server/scope';
+import { scopedSurvey } from '$lib/server/access';
 import { api, noBodyAnswer } from '$lib/server/web/respond';
 import { pathId } from '$lib/server/web/params';
 

@@ -1,7 +1,7 @@
 import { json } from '@sveltejs/kit';
 import type { RequestHandler } from './$types';
 import { authorize } from '$lib/server/web/actor';
-import { visibleSurvey } from '$lib/server/api/visible';
+import { scopedSurvey } from '$lib/server/access';
 import { membersOf } from '$lib/server/api/ownRecords';
 import { readJson } from '$lib/server/web/http';
 import { memberSchema } from '$lib/intake/schemas';
@@ -11,7 +11,7 @@ import { pathId } from '$lib/server/web/params';
 
 export const GET: RequestHandler = async ({ locals, params }) => {
 	const actor = authorize(locals, 'survey:read');
-	const survey = await visibleSurvey(actor, pathId(params.surveyId));
+	const { survey } = await api(() => scopedSurvey(actor, pathId(params.surveyId), 'read'));
 	return json({ members: await membersOf(survey.id) });
 };
 

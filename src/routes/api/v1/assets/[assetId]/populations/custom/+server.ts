@@ -7,15 +7,15 @@ import { pathId } from '$lib/server/web/params';
 import {
 	createCustomPopulation,
 	customPopulationSchema,
-	customPopulationsOf,
-	visibleAsset
+	customPopulationsOf
 } from '$lib/server/populations';
+import { scopedAsset } from '$lib/server/access';
 
 /** The populations the engineers made from chosen members of this asset. */
 export const GET: RequestHandler = async ({ locals, params }) => {
 	const actor = authorize(locals, 'population:read');
 	const assetId = pathId(params.assetId);
-	await visibleAsset(actor, assetId);
+	await api(() => scopedAsset(actor, assetId, 'read'));
 	return json({ populations: await customPopulationsOf(assetId) });
 };
 
@@ -23,7 +23,7 @@ export const GET: RequestHandler = async ({ locals, params }) => {
 export const POST: RequestHandler = async ({ locals, params, request }) => {
 	const actor = authorize(locals, 'assessment:write');
 	const assetId = pathId(params.assetId);
-	await visibleAsset(actor, assetId);
+	await api(() => scopedAsset(actor, assetId, 'read'));
 	const input = await readJson(request, customPopulationSchema);
 	const created = await api(() => createCustomPopulation(actor, assetId, input));
 	return json({ population: created }, { status: 201 });

@@ -20,9 +20,9 @@ import {
 	populationDetail,
 	requestedSurveyIds,
 	scopeSchema,
-	surveySelection,
-	visibleAsset
+	surveySelection
 } from '$lib/server/populations';
+import { scopedAsset } from '$lib/server/access';
 import { pathId } from '$lib/server/web/params';
 
 /**
@@ -36,8 +36,8 @@ export const GET: RequestHandler = async ({ locals, params, url }) => {
 	const scope = parseParams(scopeSchema, query);
 	const choice = parseParams(methodSchema, query);
 	const { calibration } = parseParams(calibrationSchema, query);
-	await visibleAsset(actor, assetId);
-	const selection = await surveySelection(assetId, requestedSurveyIds(scope));
+	await api(() => scopedAsset(actor, assetId, 'read'));
+	const selection = await api(() => surveySelection(assetId, requestedSurveyIds(scope)));
 	const input = { assetId, surveyIds: selection.surveyIds, choice };
 	let detail;
 	if (query.custom !== undefined) {

@@ -4,7 +4,7 @@ import { authorize } from '$lib/server/web/actor';
 import { readJson } from '$lib/server/web/http';
 import { createMembers } from '$lib/server/intake/members';
 import { parsePastedMembers, pastedTableSchema } from '$lib/server/intake/pastedMembers';
-import { scopedSurvey } from '$lib/server/scope';
+import { scopedSurvey } from '$lib/server/access';
 import { api } from '$lib/server/web/respond';
 import { pathId } from '$lib/server/web/params';
 

@@ -7,9 +7,9 @@ import { pathId } from '$lib/server/web/params';
 import {
 	deleteCustomPopulation,
 	renameCustomPopulation,
-	renameSchema,
-	visibleAsset
+	renameSchema
 } from '$lib/server/populations';
+import { scopedAsset } from '$lib/server/access';
 
 /** Rename a population the engineers made (audited); the name stays unique on the asset. */
 export const PATCH: RequestHandler = async ({ locals, params, request }) => {
@@ -17,7 +17,7 @@ export const PATCH: RequestHandler = async ({ locals, params, request }) => {
 	const assetId = pathId(params.assetId);
 	const customId = pathId(params.customId);
 	// Another organisation's asset answers 404 before its body is read, as a missing one does.
-	await visibleAsset(actor, assetId);
+	await api(() => scopedAsset(actor, assetId, 'read'));
 	const input = await readJson(request, renameSchema);
 	const renamed = await api(() => renameCustomPopulation(actor, assetId, customId, input));
 	return json({ population: renamed });
@@ -31,7 +31,7 @@ export const DELETE: RequestHandler = async ({ locals, params }) => {
 	const actor = authorize(locals, 'assessment:write');
 	const assetId = pathId(params.assetId);
 	const customId = pathId(params.customId);
-	await visibleAsset(actor, assetId);
+	await api(() => scopedAsset(actor, assetId, 'read'));
 	await api(() => deleteCustomPopulation(actor, assetId, customId));
 	return new Response(null, { status: 204 });
 };

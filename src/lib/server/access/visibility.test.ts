@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
-import { NotFoundError } from './domainErrors';
-import { ownRecord } from './scope';
-import { loadOr404 } from './web/pages';
+import { NotFoundError } from '../domainErrors';
+import { ownRecord } from './visibility';
+import { loadOr404 } from '../web/pages';
 
 const actor = { userId: 1, organisationId: 7, role: 'engineer' as const };
 

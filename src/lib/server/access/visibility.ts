@@ -2,22 +2,31 @@ import { Op, type Model, type ModelStatic, type Transaction, type WhereOptions }
 import {
 	Asset,
 	AssetShare,
+	Attachment,
 	CarbonationTest,
 	ChlorideProfile,
 	ImportBatch,
 	Member,
 	Survey,
 	VerificationHole
-} from './db/models';
-import { NotFoundError, ReadOnlyError } from './domainErrors';
-import type { Actor } from './policy';
+} from '../db/models';
+import { NotFoundError, ReadOnlyError } from '../domainErrors';
+import type { Actor } from '../policy';
 
 /**
  * Data scoping, written once: an actor sees the assets their organisation owns and those shared
  * with it (read-only); surveys, members, readings, holes, imports and attachments through their
- * asset. Anything else does not exist for them: NotFoundError, which routes answer with 404.
+ * asset. Anything else does not exist for them: NotFoundError, which routes answer with 404,
+ * said of the record asked for so that another organisation's ids reveal nothing.
  */
 export type Access = 'read' | 'write';
+
+/** How the actor stands to a visible asset: their organisation's, or shared with it read-only. */
+export type Standing = 'own' | 'shared';
+
+export function standingOf(actor: Actor, asset: Asset): Standing {
+	return asset.organisationId === actor.organisationId ? 'own' : 'shared';
+}
 
 /** The record with this id, or null; an id no integer column could hold finds nothing. */
 function byId<M extends Model>(model: ModelStatic<M>, id: number, transaction?: Transaction) {
@@ -42,6 +51,46 @@ export async function readableAssetsWhere(actor: Actor): Promise<WhereOptions<As
 	return shared.length
 		? { [Op.or]: [{ organisationId: actor.organisationId }, { id: shared }] }
 		: { organisationId: actor.organisationId };
+}
+
+/** Every asset the actor may read, by name (the owner's lists) or by id (the API's). */
+export async function readableAssets(actor: Actor, orderBy: 'name' | 'id' = 'name') {
+	return Asset.findAll({ where: await readableAssetsWhere(actor), order: [[orderBy, 'ASC']] });
+}
+
+/** Ids of every asset the actor may read. */
+export async function readableAssetIds(actor: Actor): Promise<number[]> {
+	const assets = await Asset.findAll({
+		attributes: ['id'],
+		where: await readableAssetsWhere(actor)
+	});
+	return assets.map((a) => a.id);
+}
+
+/** A readable asset and how the actor stands to it; NotFoundError said of `what` otherwise. */
+export async function visibleAsset(
+	actor: Actor,
+	assetId: number,
+	what = 'The asset',
+	transaction?: Transaction
+): Promise<{ asset: Asset; access: Standing }> {
+	const asset = await scopedAsset(actor, assetId, 'read', transaction).catch(notFoundAs(what));
+	return { asset, access: standingOf(actor, asset) };
+}
+
+/**
+ * An asset of the actor's own organisation, for what only the owner may see or do (drafts,
+ * research consent): a shared asset is as unknown as any other here, NotFoundError said of `what`.
+ */
+export async function ownAsset(
+	actor: Actor,
+	assetId: number,
+	what = 'The asset',
+	transaction?: Transaction
+): Promise<Asset> {
+	const { asset, access } = await visibleAsset(actor, assetId, what, transaction);
+	if (access !== 'own') throw new NotFoundError(what);
+	return asset;
 }
 
 export async function scopedAsset(
@@ -134,6 +183,14 @@ export async function scopedChlorideProfile(
 		notFoundAs('The chloride profile')
 	);
 	return { record, ...scoped };
+}
+
+/** A survey's attachment, through its survey. */
+export async function scopedAttachment(actor: Actor, attachmentId: number) {
+	const attachment = await byId(Attachment, attachmentId);
+	if (!attachment) throw new NotFoundError('The attachment');
+	await scopedSurvey(actor, attachment.surveyId, 'read').catch(notFoundAs('The attachment'));
+	return attachment;
 }
 
 export async function scopedImportBatch(actor: Actor, batchId: number, access: Access) {
