@@ -2,6 +2,7 @@
  * The histogram of a population's covers against its limits: one configuration for the
  * population page (chart.js in the browser) and the report (chart.js on the server).
  */
+import { mm } from '$lib/format';
 import type { ChartConfiguration } from 'chart.js';
 import type { PopulationAssessment } from '$lib/analysis';
 import { limitLines, lineAnnotations, toleranceBand } from './limits';
@@ -109,7 +110,7 @@ export function histogramDescription(assessment: PopulationAssessment): string {
 		: ' No fitted curve is drawn: the goodness-of-fit test rejected the model (or had too few readings).';
 	return (
 		`Histogram of ${d.n} readings from ${d.minMm} to ${d.maxMm} mm; ` +
-		`${lines.map((l) => `${l.name} at ${l.valueMm.toFixed(1)} mm`).join(', ')}; ` +
+		`${lines.map((l) => `${l.name} at ${mm(l.valueMm)}`).join(', ')}; ` +
 		`the shaded band runs from c_min to the upper tolerance.${model}`
 	);
 }

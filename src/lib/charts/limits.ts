@@ -2,6 +2,7 @@
  * Vertical limit lines on a cover axis: c_min, c_nom, c_nom + Δplus and the characteristic
  * cover. Each has its own dash pattern and a written label, so none is told apart by colour only.
  */
+import { mm } from '$lib/format';
 import type { CoverRequirement } from '$lib/analysis';
 import { OKABE_ITO } from './palette';
 
@@ -60,7 +61,7 @@ export function lineAnnotations(lines: LimitLine[], fontSize = 12) {
 				borderDash: line.dash,
 				label: {
 					display: true,
-					content: `${line.name} ${line.valueMm.toFixed(1)} mm`,
+					content: `${line.name} ${mm(line.valueMm)}`,
 					position: 'start' as const,
 					yAdjust: -i * Math.round(labelSize * 2),
 					backgroundColor: 'rgba(255,255,255,0.9)',

@@ -3,6 +3,7 @@
  * the true share of it below c_min, one line per rule (exact) and one for the whole rule set
  * (simulated, drawn with points so it reads as estimates), p0 and p1 marked.
  */
+import { percent } from '$lib/format';
 import type { ChartConfiguration, Plugin } from 'chart.js';
 import type { OcCurve } from '$lib/analysis';
 import { PAGE_LOOK, type ChartLook } from './histogram';
@@ -96,8 +97,8 @@ export function operatingCharacteristicConfig(
 		plugins: [
 			shareLines(
 				[
-					{ p: p0, label: `p0 ${(p0 * 100).toFixed(1)} %` },
-					{ p: p1, label: `p1 ${(p1 * 100).toFixed(1)} %` }
+					{ p: p0, label: `p0 ${percent(p0)}` },
+					{ p: p1, label: `p1 ${percent(p1)}` }
 				],
 				look.fontSize
 			)

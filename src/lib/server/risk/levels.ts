@@ -2,6 +2,8 @@
  * Risk levels in our own plain words, each with a one-sentence reason. The level is carried by
  * its words (and an order), never by colour alone; pages may add a colour beside the words.
  */
+import { roundedPercent } from '$lib/format';
+
 export const RISK_LEVELS = ['act-now', 'plan-repairs', 'keep-watching', 'low-concern'] as const;
 export type RiskLevel = (typeof RISK_LEVELS)[number] | 'not-judged';
 
@@ -38,8 +40,6 @@ export interface LevelInput {
 	firstAgeMissingTarget: number | null;
 }
 
-const percent = (share: number) => `${(share * 100).toFixed(share < 0.1 ? 1 : 0)} %`;
-
 function belowMinimumLevel(input: LevelInput): { level: RiskLevel; reason: string } {
 	const share = input.shareBelowCMin ?? 0;
 	if (input.verdict === 'pass') {
@@ -50,7 +50,7 @@ function belowMinimumLevel(input: LevelInput): { level: RiskLevel; reason: strin
 	}
 	return {
 		level: 'keep-watching',
-		reason: `Protection is projected to hold through the design life, but ${percent(share)} of readings are below the minimum cover of ${input.cMinMm} mm.`
+		reason: `Protection is projected to hold through the design life, but ${roundedPercent(share)} of readings are below the minimum cover of ${input.cMinMm} mm.`
 	};
 }
 
@@ -62,7 +62,7 @@ export function riskLevel(input: LevelInput): { level: RiskLevel; reason: string
 	if (input.meetsTargetNow === false && input.probabilityNow !== null) {
 		return {
 			level: 'act-now',
-			reason: `About ${percent(input.probabilityNow)} of this part is projected to have lost its protection against corrosion already, at ${input.ageAtSurveyYears} years of age.`
+			reason: `About ${roundedPercent(input.probabilityNow)} of this part is projected to have lost its protection against corrosion already, at ${input.ageAtSurveyYears} years of age.`
 		};
 	}
 	if (input.meetsTargetAtDesignLife === false) {

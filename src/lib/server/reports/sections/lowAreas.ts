@@ -1,4 +1,5 @@
 /** Where to treat first: the low-cover areas kept in the snapshot (populations/lowAreas.ts). */
+import { percent } from '$lib/format';
 import type { AssessedSource } from '$lib/server/risk';
 import { treatFirstWords } from '$lib/words';
 import type { ReportWriter } from '../layout';
@@ -21,7 +22,7 @@ export function lowAreaSection(w: ReportWriter, source: AssessedSource): void {
 			.slice(0, 8)
 			.map((m): [string, string] => [
 				`${m.memberLabel} (${m.populationLabel})`,
-				`${m.areaCount} area${m.areaCount === 1 ? '' : 's'}, ${m.areaM2.toFixed(1)} m² (${(m.share * 100).toFixed(1)} % of the member)`
+				`${m.areaCount} area${m.areaCount === 1 ? '' : 's'}, ${m.areaM2.toFixed(1)} m² (${percent(m.share)} of the member)`
 			])
 	);
 }

@@ -1,5 +1,14 @@
 import { describe, expect, it } from 'vitest';
-import { counted, formatDate, formatDateTime } from '../../src/lib/words';
+import {
+	counted,
+	formatDate,
+	formatDateTime,
+	mm,
+	NO_VALUE,
+	num,
+	percent,
+	roundedPercent
+} from '$lib/format';
 
 describe('counted: one plural rule for every page', () => {
 	it('says "1 member" and "2 members", never "1 members" or "2 row(s)"', () => {
@@ -35,5 +44,28 @@ describe('rule set words', () => {
 			expect(ruleSetWords(name)).not.toBe(name);
 			expect(ruleSetWords(name)).not.toMatch(/^[a-z]+-[a-z]+$/);
 		}
+	});
+});
+
+// The app's one way of printing figures (pages and report); the rounding is JavaScript's
+// Number.prototype.toFixed (ECMA-262 §21.1.3.3), the layout common practice ("31.5 mm", "4.2 %").
+describe('figures as people read them', () => {
+	it('prints lengths in mm and shares in % to the digits asked, and a dash for nothing', () => {
+		expect(mm(31.46)).toBe('31.5 mm');
+		expect(mm(30, 0)).toBe('30 mm');
+		expect(percent(0.0423)).toBe('4.2 %');
+		expect(percent(0.05, 0)).toBe('5 %');
+		expect(num(0.48249, 3)).toBe('0.482');
+		for (const f of [mm, percent, num]) {
+			expect(f(null)).toBe(NO_VALUE);
+			expect(f(undefined)).toBe(NO_VALUE);
+		}
+	});
+
+	it('gives a projected share one decimal below 10 % and none above', () => {
+		expect(roundedPercent(0.032)).toBe('3.2 %');
+		expect(roundedPercent(0.0999)).toBe('10.0 %');
+		expect(roundedPercent(0.1)).toBe('10 %');
+		expect(roundedPercent(0.456)).toBe('46 %');
 	});
 });
