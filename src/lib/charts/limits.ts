@@ -4,6 +4,7 @@
  */
 import { mm } from '$lib/format';
 import type { CoverRequirement } from '$lib/analysis';
+import { lineLabel } from './look';
 import { OKABE_ITO } from './palette';
 
 export interface LimitLine {
@@ -60,13 +61,8 @@ export function lineAnnotations(lines: LimitLine[], fontSize = 12) {
 				borderWidth: 2,
 				borderDash: line.dash,
 				label: {
-					display: true,
-					content: `${line.name} ${mm(line.valueMm)}`,
-					position: 'start' as const,
-					yAdjust: -i * Math.round(labelSize * 2),
-					backgroundColor: 'rgba(255,255,255,0.9)',
-					color: '#24292b',
-					font: { size: labelSize }
+					...lineLabel(`${line.name} ${mm(line.valueMm)}`, labelSize, 'start'),
+					yAdjust: -i * Math.round(labelSize * 2)
 				}
 			}
 		])
