@@ -11,7 +11,7 @@ export default defineConfig({
 				extends: true,
 				test: {
 					name: 'unit',
-					include: ['src/**/*.test.ts', 'tests/unit/**/*.test.ts'],
+					include: ['tests/unit/**/*.test.ts'],
 					environment: 'node'
 				}
 			},

@@ -7,7 +7,7 @@
 set -euo pipefail
 cd "$(dirname "$0")/.."
 export FUZZ_RUNS="${FUZZ_RUNS:-1000}"
-npx vitest run --project unit src/lib/server/import/readers.fuzz.test.ts src/lib/csv.test.ts
+npx vitest run --project unit tests/unit/import/readers.fuzz.test.ts tests/unit/csv.test.ts
 if [ -f .env.test ]; then
 	set -a; . ./.env.test; set +a
 	export FRACTILE_ENV_FILE="$PWD/.env.test"

@@ -3,6 +3,7 @@
  * and the domain's word lists (at the end). Browser-safe: no server imports.
  */
 import type { RuleOutcome } from '$lib/analysis';
+import { counted } from './format';
 
 /** A rule's or population's verdict as people read it. */
 export const VERDICT_WORDS: Record<RuleOutcome, string> = {
@@ -26,32 +27,8 @@ export const SURVEY_STATE_WORDS: Record<string, string> = {
 
 export const surveyStateWords = (state: string): string => SURVEY_STATE_WORDS[state] ?? state;
 
-/**
- * A count with its noun, as people read it: "1 member", "2 members", "2,242 readings". The one
- * place plurals are made, so no page says "1 members" or "2 row(s)".
- */
-export function counted(n: number, one: string, many = `${one}s`): string {
-	return `${n.toLocaleString('en-GB')} ${n === 1 ? one : many}`;
-}
-
-/**
- * Dates as people read them, one way everywhere: "2026-03-02", and with the time
- * "2026-03-02 14:05 UTC" (unambiguous in every locale, ISO 8601's order). Exports and the API
- * keep full ISO 8601 timestamps; these are for pages and the report only.
- */
-export function formatDate(value: Date | string | null | undefined, none = '—'): string {
-	if (value === null || value === undefined || value === '') return none;
-	if (typeof value === 'string' && /^\d{4}-\d{2}-\d{2}$/.test(value)) return value;
-	const date = new Date(value);
-	return Number.isNaN(date.getTime()) ? String(value) : date.toISOString().slice(0, 10);
-}
-
-export function formatDateTime(value: Date | string | null | undefined, none = '—'): string {
-	if (value === null || value === undefined || value === '') return none;
-	const date = new Date(value);
-	if (Number.isNaN(date.getTime())) return String(value);
-	return `${date.toISOString().slice(0, 16).replace('T', ' ')} UTC`;
-}
+// Figures and dates are formatted in format.ts (re-exported here for the word lists' callers).
+export { counted, formatDate, formatDateTime } from './format';
 
 /** What "depassivated" means, for an owner who is not a corrosion engineer (pages and report). */
 export const DEPASSIVATED_WORDS =

@@ -1,42 +1,18 @@
 /**
- * A test fixture in place of the assessments' save and approve: build a snapshot of one
- * survey's populations with the engine on the seeded demo readings, shaped like
- * AssessmentSnapshot (src/lib/server/assessments/snapshot.ts), and insert it as an Assessment row.
+ * Assessments for tests that need one on the seeded demo readings: the snapshot is the one the
+ * app stores (the production `buildSnapshot`, with the survey selection the save service makes),
+ * written as a draft row; approval is stamped at a fixed time so that the report's dates repeat.
  */
-import { createHash } from 'node:crypto';
 import type { Sequelize } from 'sequelize';
-import {
-	assessPopulation,
-	ENGINE_VERSION,
-	verifyMeter,
-	type CoverRequirement
-} from '../../src/lib/analysis';
-import {
-	Assessment,
-	Asset,
-	Member,
-	Reading,
-	Survey,
-	User,
-	VerificationHole
-} from '../../src/lib/server/db/models';
+import { ENGINE_VERSION } from '../../src/lib/analysis';
+import { buildSnapshot, serialiseSnapshot } from '../../src/lib/server/assessments/snapshot';
+import { Assessment, Asset, Reading, Survey, User } from '../../src/lib/server/db/models';
+import { methodSchema, surveySelection } from '../../src/lib/server/populations';
 
 export const CAR_PARK = 'Brackenfield Multi-storey Car Park';
 export const CAR_PARK_SURVEY = 'Level 2 deck and soffits, condition survey';
 
-function requirementOf(m: Member): CoverRequirement {
-	return {
-		cMinMm: m.cMinMm,
-		cNomMm: m.cNomMm,
-		deltaCDevMm: m.deltaCDevMm,
-		deltaPlusMm: m.deltaPlusMm,
-		codeSystem: 'EN',
-		memberDepthMm: m.memberDepthMm,
-		basis: `EN 1992-1-1, as specified for member ${m.label}`
-	};
-}
-
-/** The covers of each member, one query. */
+/** The covers of each member, one query (read here so tests check the engine against the rows). */
 export async function coversByMember(memberIds: number[]): Promise<Map<number, number[]>> {
 	const rows = await Reading.findAll({
 		attributes: ['memberId', 'coverMm'],
@@ -48,111 +24,18 @@ export async function coversByMember(memberIds: number[]): Promise<Map<number, n
 	return out;
 }
 
-async function populations(members: Member[]) {
-	const covers = await coversByMember(members.map((m) => m.id));
-	const groups = new Map<string, Member[]>();
-	for (const m of members) {
-		const id = `${m.memberType}|${m.exposureClass}`;
-		groups.set(id, [...(groups.get(id) ?? []), m]);
-	}
-	return [...groups.entries()]
-		.sort(([a], [b]) => a.localeCompare(b))
-		.map(([id, group]) => {
-			const all = group.flatMap((m) => covers.get(m.id)!);
-			return {
-				id,
-				key: { memberType: group[0].memberType, exposureClass: group[0].exposureClass },
-				label: `${group[0].memberType} · ${group[0].exposureClass}`,
-				members: group.map((m) => ({
-					id: m.id,
-					label: m.label,
-					surveyId: m.surveyId,
-					face: m.face,
-					readings: covers.get(m.id)!.length
-				})),
-				requirement: {
-					requirement: requirementOf(group[0]),
-					governingMember: group[0].label,
-					mixed: false,
-					note: null,
-					cMinValuesMm: [group[0].cMinMm]
-				},
-				assessment:
-					all.length >= 2 ? assessPopulation(all, requirementOf(group[0]), { charts: true }) : null,
-				problem: all.length >= 2 ? null : 'Too few readings.'
-			};
-		});
-}
-
-async function meter(memberIds: number[]) {
-	const holes = await VerificationHole.findAll({
-		where: { memberId: memberIds },
-		order: [['id', 'ASC']]
-	});
-	const rows = holes.map((h) => ({
-		id: h.id,
-		memberId: h.memberId,
-		label: h.label,
-		xMm: h.xMm,
-		yMm: h.yMm,
-		meterReadingMm: h.meterReadingMm,
-		measuredCoverMm: h.measuredCoverMm,
-		method: h.method
-	}));
-	const verification =
-		rows.length >= 3
-			? verifyMeter(
-					rows.map((h) => h.meterReadingMm),
-					rows.map((h) => h.measuredCoverMm)
-				)
-			: null;
-	return { holes: rows, verification, note: verification ? null : 'Too few holes.' };
-}
-
-/** A snapshot of one survey of an asset, as the assessments' buildSnapshot would store it. */
-export async function buildTestSnapshot(assetName: string, surveyTitle: string) {
+/** The snapshot the app would store for one survey of an asset, with the default methods. */
+async function surveySnapshot(assetName: string, surveyTitle: string) {
 	const asset = (await Asset.findOne({ where: { name: assetName } }))!;
 	const survey = (await Survey.findOne({ where: { assetId: asset.id, title: surveyTitle } }))!;
-	const members = await Member.findAll({ where: { surveyId: survey.id }, order: [['id', 'ASC']] });
-	const surveyJson = {
-		id: survey.id,
-		title: survey.title,
-		surveyDate: survey.surveyDate,
-		status: survey.status,
-		meterMake: survey.meterMake,
-		meterSerial: survey.meterSerial,
-		meterCalibration: survey.meterCalibration
-	};
-	const pops = await populations(members);
-	return {
+	const selection = await surveySelection(asset.id, [survey.id]);
+	const snapshot = await buildSnapshot(
 		asset,
-		snapshot: {
-			schemaVersion: 1,
-			engineVersion: ENGINE_VERSION,
-			computedAt: '2026-01-15T09:00:00.000Z',
-			asset: {
-				id: asset.id,
-				name: asset.name,
-				locationText: asset.locationText,
-				designCode: asset.designCode,
-				designServiceLifeYears: asset.designServiceLifeYears,
-				yearOfConstruction: asset.yearOfConstruction
-			},
-			survey: surveyJson,
-			surveys: [surveyJson],
-			scope: { surveyId: survey.id, split: 'none' },
-			methods: {
-				fractile: 0.05,
-				confidence: 0.95,
-				percentile: '7',
-				model: 'best-fit',
-				method: 'prediction'
-			},
-			populations: pops,
-			meter: await meter(members.map((m) => m.id)),
-			readingCount: pops.reduce((s, p) => s + p.members.reduce((t, m) => t + m.readings, 0), 0)
-		}
-	};
+		{ surveyId: survey.id, split: 'none' },
+		methodSchema.parse({}),
+		selection
+	);
+	return { asset, survey, snapshot };
 }
 
 /** Insert a draft assessment of the survey, created by the demo engineer. */
@@ -162,15 +45,15 @@ export async function insertDraft(
 	surveyTitle = CAR_PARK_SURVEY
 ): Promise<Assessment> {
 	void sequelize;
-	const { asset, snapshot } = await buildTestSnapshot(assetName, surveyTitle);
+	const { asset, survey, snapshot } = await surveySnapshot(assetName, surveyTitle);
 	const engineer = await User.findOne({ where: { email: 'engineer@kestrel-lane.example' } });
-	const text = JSON.stringify(snapshot);
+	const { text, sha256 } = serialiseSnapshot(snapshot);
 	return Assessment.create({
 		assetId: asset.id,
-		surveyId: snapshot.survey.id,
+		surveyId: survey.id,
 		title: `${surveyTitle}: cover assessment`,
 		snapshot: text,
-		snapshotSha256: createHash('sha256').update(text).digest('hex'),
+		snapshotSha256: sha256,
 		engineVersion: ENGINE_VERSION,
 		recommendations:
 			'Break out and test chloride profiles in bays L2-BAY-04 and L2-BAY-07 first; plan a protective coating for the deck within five years.',
@@ -178,7 +61,7 @@ export async function insertDraft(
 	});
 }
 
-/** Approve as the demo engineer, in place of the assessments' approve service. */
+/** Approve as the demo engineer at a fixed time (the report's creation date is asserted). */
 export async function approveDirectly(assessment: Assessment): Promise<void> {
 	const engineer = await User.findOne({ where: { email: 'engineer@kestrel-lane.example' } });
 	await assessment.update({

@@ -6,9 +6,8 @@
  */
 import type { ChartConfiguration } from 'chart.js';
 import { erfc } from '$lib/analysis';
-import type { ChartLook } from './histogram';
-import { PAGE_LOOK } from './histogram';
-import { AXIS_TEXT, OKABE_ITO } from './palette';
+import { axisTicks, axisTitle, legendLabels, PAGE_LOOK, type ChartLook } from './look';
+import { OKABE_ITO } from './palette';
 
 export interface ProfileChartData {
 	label: string;
@@ -38,7 +37,6 @@ export function chlorideProfileConfig(
 	profile: ProfileChartData,
 	look: ChartLook = PAGE_LOOK
 ): ChartConfiguration<'line'> {
-	const font = { size: look.fontSize };
 	const deepest = Math.max(...profile.points.map((p) => p.depthMm)) + 5;
 	const marker = look.fontSize > 14 ? 7 : 4;
 	const datasets: ChartConfiguration<'line'>['data']['datasets'] = [
@@ -94,18 +92,18 @@ export function chlorideProfileConfig(
 					type: 'linear',
 					min: 0,
 					max: Math.ceil(deepest / 10) * 10,
-					title: { display: true, text: 'Depth below the surface (mm)', color: AXIS_TEXT, font },
-					ticks: { color: AXIS_TEXT, font }
+					title: axisTitle('Depth below the surface (mm)', look),
+					ticks: axisTicks(look)
 				},
 				y: {
 					min: 0,
-					title: { display: true, text: 'Chloride (% of binder)', color: AXIS_TEXT, font },
-					ticks: { color: AXIS_TEXT, font }
+					title: axisTitle('Chloride (% of binder)', look),
+					ticks: axisTicks(look)
 				}
 			},
 			plugins: {
-				legend: { labels: { color: AXIS_TEXT, font, usePointStyle: true } },
-				title: { display: true, text: profile.label, color: AXIS_TEXT, font }
+				legend: legendLabels(look, { usePointStyle: true }),
+				title: axisTitle(profile.label, look)
 			}
 		}
 	};

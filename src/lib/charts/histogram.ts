@@ -2,18 +2,12 @@
  * The histogram of a population's covers against its limits: one configuration for the
  * population page (chart.js in the browser) and the report (chart.js on the server).
  */
+import { mm } from '$lib/format';
 import type { ChartConfiguration } from 'chart.js';
 import type { PopulationAssessment } from '$lib/analysis';
 import { limitLines, lineAnnotations, toleranceBand } from './limits';
-import { AXIS_TEXT, OKABE_ITO } from './palette';
-
-export interface ChartLook {
-	/** Base font size in px: the pages use chart.js's 12; the report's 900 px image wants more. */
-	fontSize: number;
-}
-
-export const PAGE_LOOK: ChartLook = { fontSize: 12 };
-export const PRINT_LOOK: ChartLook = { fontSize: 17 };
+import { axisTicks, axisTitle, legendLabels, PAGE_LOOK, type ChartLook } from './look';
+import { OKABE_ITO } from './palette';
 
 /** A model's curve is drawn only where the goodness-of-fit test did not reject it. */
 export function chosenModelFits(assessment: PopulationAssessment): boolean {
@@ -34,7 +28,6 @@ export function histogramConfig(
 				.filter((c) => c.model === assessment.chosenModel)
 				.map((c) => ({ x: c.coverMm, y: c.pdf * assessment.description.n * binWidthMm }))
 		: [];
-	const font = { size: look.fontSize };
 	// Every limit line inside the axis: c_min is drawn even when no reading comes near it.
 	const limitValues = lines.map((l) => l.valueMm).filter((v) => Number.isFinite(v));
 	const xMin = Math.floor(Math.min(charts.histogram[0].fromMm, ...limitValues) - binWidthMm);
@@ -77,18 +70,18 @@ export function histogramConfig(
 					type: 'linear',
 					min: xMin,
 					max: xMax,
-					title: { display: true, text: 'Cover (mm)', color: AXIS_TEXT, font },
+					title: axisTitle('Cover (mm)', look),
 					// Whole-number ticks, never rotated: a cover axis reads left to right.
-					ticks: { color: AXIS_TEXT, font, maxRotation: 0, autoSkipPadding: 12 }
+					ticks: { ...axisTicks(look), maxRotation: 0, autoSkipPadding: 12 }
 				},
 				y: {
 					beginAtZero: true,
-					title: { display: true, text: 'Number of readings', color: AXIS_TEXT, font },
-					ticks: { color: AXIS_TEXT, font }
+					title: axisTitle('Number of readings', look),
+					ticks: axisTicks(look)
 				}
 			},
 			plugins: {
-				legend: { labels: { color: AXIS_TEXT, font } },
+				legend: legendLabels(look),
 				annotation: {
 					annotations: {
 						band: toleranceBand(assessment.requirement),
@@ -109,7 +102,7 @@ export function histogramDescription(assessment: PopulationAssessment): string {
 		: ' No fitted curve is drawn: the goodness-of-fit test rejected the model (or had too few readings).';
 	return (
 		`Histogram of ${d.n} readings from ${d.minMm} to ${d.maxMm} mm; ` +
-		`${lines.map((l) => `${l.name} at ${l.valueMm.toFixed(1)} mm`).join(', ')}; ` +
+		`${lines.map((l) => `${l.name} at ${mm(l.valueMm)}`).join(', ')}; ` +
 		`the shaded band runs from c_min to the upper tolerance.${model}`
 	);
 }

@@ -2,7 +2,9 @@
  * Vertical limit lines on a cover axis: c_min, c_nom, c_nom + Δplus and the characteristic
  * cover. Each has its own dash pattern and a written label, so none is told apart by colour only.
  */
+import { mm } from '$lib/format';
 import type { CoverRequirement } from '$lib/analysis';
+import { lineLabel } from './look';
 import { OKABE_ITO } from './palette';
 
 export interface LimitLine {
@@ -59,13 +61,8 @@ export function lineAnnotations(lines: LimitLine[], fontSize = 12) {
 				borderWidth: 2,
 				borderDash: line.dash,
 				label: {
-					display: true,
-					content: `${line.name} ${line.valueMm.toFixed(1)} mm`,
-					position: 'start' as const,
-					yAdjust: -i * Math.round(labelSize * 2),
-					backgroundColor: 'rgba(255,255,255,0.9)',
-					color: '#24292b',
-					font: { size: labelSize }
+					...lineLabel(`${line.name} ${mm(line.valueMm)}`, labelSize, 'start'),
+					yAdjust: -i * Math.round(labelSize * 2)
 				}
 			}
 		])

@@ -3,10 +3,11 @@
  * the true share of it below c_min, one line per rule (exact) and one for the whole rule set
  * (simulated, drawn with points so it reads as estimates), p0 and p1 marked.
  */
+import { percent } from '$lib/format';
 import type { ChartConfiguration, Plugin } from 'chart.js';
 import type { OcCurve } from '$lib/analysis';
-import { PAGE_LOOK, type ChartLook } from './histogram';
-import { AXIS_TEXT, seriesColour, seriesDash } from './palette';
+import { axisTicks, axisTitle, legendLabels, PAGE_LOOK, type ChartLook } from './look';
+import { seriesColour, seriesDash } from './palette';
 
 const METHOD_WORDS: Record<OcCurve['method'], string> = {
 	'exact-binomial': 'exact, binomial',
@@ -50,7 +51,6 @@ export function operatingCharacteristicConfig(
 	p1: number,
 	look: ChartLook = PAGE_LOOK
 ): ChartConfiguration<'line'> {
-	const font = { size: look.fontSize };
 	return {
 		type: 'line',
 		data: {
@@ -70,34 +70,29 @@ export function operatingCharacteristicConfig(
 				x: {
 					type: 'linear',
 					min: 0,
-					title: {
-						display: true,
-						text: 'True share of the population below c_min (%)',
-						color: AXIS_TEXT,
-						font
-					},
-					ticks: { color: AXIS_TEXT, font }
+					title: axisTitle('True share of the population below c_min (%)', look),
+					ticks: axisTicks(look)
 				},
 				y: {
 					min: 0,
 					max: 100,
-					title: { display: true, text: 'Probability the rules pass (%)', color: AXIS_TEXT, font },
-					ticks: { color: AXIS_TEXT, font }
+					title: axisTitle('Probability the rules pass (%)', look),
+					ticks: axisTicks(look)
 				}
 			},
 			// A short line per series in the legend: a filled box would hide the dash pattern.
 			plugins: {
 				legend: {
 					position: 'bottom',
-					labels: { color: AXIS_TEXT, font, usePointStyle: true, pointStyle: 'line' }
+					...legendLabels(look, { usePointStyle: true, pointStyle: 'line' })
 				}
 			}
 		},
 		plugins: [
 			shareLines(
 				[
-					{ p: p0, label: `p0 ${(p0 * 100).toFixed(1)} %` },
-					{ p: p1, label: `p1 ${(p1 * 100).toFixed(1)} %` }
+					{ p: p0, label: `p0 ${percent(p0)}` },
+					{ p: p1, label: `p1 ${percent(p1)}` }
 				],
 				look.fontSize
 			)

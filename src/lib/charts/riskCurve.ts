@@ -5,10 +5,9 @@
  * from measured fronts has its bootstrap band drawn as a shaded area about its line (two
  * unlabelled datasets, the upper filled down to the lower; chart.js's Filler must be registered).
  */
-import type { ChartConfiguration, ChartDataset, Plugin } from 'chart.js';
-import type { ChartLook } from './histogram';
-import { PAGE_LOOK } from './histogram';
-import { AXIS_TEXT, seriesColour, seriesDash } from './palette';
+import type { ChartConfiguration, ChartDataset, LegendItem, Plugin } from 'chart.js';
+import { axisTicks, axisTitle, legendLabels, PAGE_LOOK, type ChartLook } from './look';
+import { seriesColour, seriesDash } from './palette';
 
 export interface RiskSeries {
 	label: string;
@@ -73,7 +72,6 @@ export function riskCurveConfig(
 	designLifeYears: number,
 	look: ChartLook = PAGE_LOOK
 ): ChartConfiguration<'line'> {
-	const font = { size: look.fontSize };
 	return {
 		type: 'line',
 		data: {
@@ -97,24 +95,20 @@ export function riskCurveConfig(
 				x: {
 					type: 'linear',
 					min: 0,
-					title: { display: true, text: 'Age of the structure (years)', color: AXIS_TEXT, font },
-					ticks: { color: AXIS_TEXT, font }
+					title: axisTitle('Age of the structure (years)', look),
+					ticks: axisTicks(look)
 				},
 				y: {
 					min: 0,
 					max: 100,
-					title: { display: true, text: 'Share depassivated (%)', color: AXIS_TEXT, font },
-					ticks: { color: AXIS_TEXT, font }
+					title: axisTitle('Share depassivated (%)', look),
+					ticks: axisTicks(look)
 				}
 			},
 			plugins: {
-				legend: {
-					labels: {
-						color: AXIS_TEXT,
-						font,
-						filter: (item) => !item.text.endsWith(BAND_SUFFIX)
-					}
-				}
+				legend: legendLabels(look, {
+					filter: (item: LegendItem) => !item.text.endsWith(BAND_SUFFIX)
+				})
 			}
 		},
 		plugins: [designLifeLine(designLifeYears, look.fontSize)]

@@ -38,8 +38,3 @@ export async function fetchJson<T>(fetcher: typeof fetch, path: string): Promise
 	}
 	return body as T;
 }
-
-export const mm = (value: number | null | undefined, digits = 1) =>
-	value === null || value === undefined ? '—' : `${value.toFixed(digits)} mm`;
-export const percent = (value: number | null | undefined, digits = 1) =>
-	value === null || value === undefined ? '—' : `${(value * 100).toFixed(digits)} %`;

@@ -241,4 +241,33 @@ describe('intake API over HTTP (the built app, the real database)', () => {
 		});
 		expect((await good.json()).rowsImported).toBe(2);
 	});
+
+	it('numbers grid rows as the grid does, in the message, the reason for a repeat and the rejected rows', async () => {
+		// The grid's rows reach the row checks as cells: no header line shifts their numbers, so
+		// a repeat of the first reading names row 1 (it named its own row when the grid went
+		// through CSV text under a header).
+		const { members, survey } = await freshSurvey(actor);
+		const response = await surveyor.postJson(`/api/v1/members/${members[0].id}/readings`, {
+			rows: [
+				{ x: '0', y: '0', cover: '31', note: 'left, =1+1' },
+				{ x: '0', y: '0', cover: '31', note: 'left, =1+1' },
+				{ x: '150', y: '0', cover: 'thirty' }
+			]
+		});
+		expect(response.status).toBe(400);
+		const message: string = (await response.json()).error.message;
+		expect(message).toMatch(/^2 of 3 rows failed the checks/);
+		expect(message).toContain(
+			'Grid row 2: exact duplicate of row 1 (and 1 more row with problems).'
+		);
+		expect(message).not.toMatch(/\bRow \d/);
+		expect(await countReadings(sequelize, { surveyId: survey.id })).toBe(0);
+		const batches = (await (await surveyor.get(`/api/v1/surveys/${survey.id}/imports`)).json())
+			.imports as { id: number }[];
+		const rejected = await surveyor.get(`/api/v1/imports/${batches[0].id}/rejected`);
+		const lines = (await rejected.text()).trim().split('\r\n');
+		expect(lines[0]).toBe('row,reason,memberLabel,x,y,cover,diameter,direction,note');
+		expect(lines[1]).toBe(`2,exact duplicate of row 1,${members[0].label},0,0,31,,,"left, '=1+1"`);
+		expect(lines[2]).toMatch(new RegExp(`^3,.*,${members[0].label},150,0,thirty,,,$`));
+	});
 });

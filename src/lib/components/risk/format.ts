@@ -1,6 +1,5 @@
-/** Figures as the owner's pages and the report show them. */
-export const percent = (share: number | null | undefined, digits = 1) =>
-	share === null || share === undefined ? '–' : `${(share * 100).toFixed(digits)} %`;
+import { percent } from '$lib/format';
+/** An area in square metres, as the owner's pages and the report show it. */
 export const area = (m2: number | null) => (m2 === null ? 'unknown' : `${m2.toFixed(0)} m²`);
 
 /** What a projected share needs to be printed honestly (a ShareView of the risk view). */

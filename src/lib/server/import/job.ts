@@ -18,8 +18,14 @@ export interface ImportJob {
 	organisationId: number;
 	userId: number | null;
 	format: SourceFormat;
-	/** Opens the file from its start (a staged file, or any stream in the benchmark). */
-	open: () => Readable;
+	/** Opens the file from its start (a staged file, or any stream in the benchmark); absent when `cells` are given. */
+	open?: () => Readable;
+	/**
+	 * Rows already split into cells, read instead of the file (the entry grid, a device's site
+	 * entries): nothing is written out as text to be parsed again. Row numbers are the grid's own
+	 * (1 = the first reading) and messages call them `rowWord` ("Grid row 2").
+	 */
+	cells?: { headers: string[]; rows: string[][]; rowWord: string };
 	mapping: ColumnMapping;
 	options: ImportOptions;
 	/** Reading flags for every row (READING_FLAGS.manual for the entry grid). */

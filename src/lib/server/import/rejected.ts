@@ -20,6 +20,9 @@ export class RejectedRows {
 	private readonly kept: string[][] = [];
 	private readonly byCode = new Map<string, RejectionSummary>();
 
+	/** `rowWord` names a row in messages: a file's "Row", the entry grid's "Grid row". */
+	constructor(private readonly rowWord = 'Row') {}
+
 	add(rowNumber: number, code: string, reason: string, cells: readonly string[]): void {
 		this.count++;
 		if (this.kept.length < IMPORT_LIMITS.maxRejectedRowsKept) {
@@ -42,7 +45,7 @@ export class RejectedRows {
 		const others = this.count - 1;
 		const tail =
 			others > 0 ? ` (and ${others} more row${others === 1 ? '' : 's'} with problems)` : '';
-		return `Row ${first.firstRow}: ${first.example}${tail}.`;
+		return `${this.rowWord} ${first.firstRow}: ${first.example}${tail}.`;
 	}
 
 	toCsv(headers: readonly string[]): string | null {

@@ -1,5 +1,3 @@
-import { Readable } from 'node:stream';
-import Papa from 'papaparse';
 import type { Transaction } from 'sequelize';
 import { z } from 'zod';
 import { ImportBatch, type Survey } from '../db/models';
@@ -7,7 +5,7 @@ import { READING_FLAGS } from '../db/models/Reading';
 import { manualEntrySchema, manualReadingSchema } from '$lib/intake/schemas';
 import { importOptionsSchema, columnMappingSchema } from '../import/mapping';
 import { beginProgress } from '../import/progress';
-import { runImport } from '../import/run';
+import { gridBytes, runImport } from '../import/run';
 import type { Actor } from '../policy';
 import { scopedMember } from '../access';
 import { assertSurveyEditable } from './frozen';
@@ -19,7 +17,8 @@ export type GridReading = z.infer<typeof manualReadingSchema> & { memberLabel: s
 /**
  * Readings from a grid (the member entry grid, a device's site entries) written through the
  * import path itself: the same row checks, one transaction, a batch that can be undone, all or
- * nothing. Row numbers in the message are the grid's (1 = the first reading).
+ * nothing. The rows go to the row checks as cells, and row numbers in messages are the grid's
+ * (1 = the first reading).
  */
 export async function importGridRows(input: {
 	actor: Actor;
@@ -30,10 +29,7 @@ export async function importGridRows(input: {
 	claim?: (transaction: Transaction) => Promise<void>;
 }) {
 	const { actor, survey } = input;
-	const text = Papa.unparse({
-		fields: [...COLUMNS],
-		data: input.rows.map((r) => COLUMNS.map((c) => r[c]))
-	});
+	const rows = input.rows.map((r) => COLUMNS.map((c) => r[c]));
 	const batch = await ImportBatch.create({
 		surveyId: survey.id,
 		createdByUserId: actor.userId,
@@ -52,25 +48,23 @@ export async function importGridRows(input: {
 	const options = importOptionsSchema.parse({
 		units: input.units,
 		failingRows: 'reject-file',
-		headerRowIndex: 0
+		headerRowIndex: -1
 	});
 	await batch.update({ mapping, options, state: 'running' });
-	await beginProgress(batch.id, Buffer.byteLength(text));
+	await beginProgress(batch.id, gridBytes(rows));
 	const outcome = await runImport({
 		batchId: batch.id,
 		surveyId: survey.id,
 		organisationId: actor.organisationId,
 		userId: actor.userId,
 		format: 'csv',
-		open: () => Readable.from([Buffer.from(text)]),
+		cells: { headers: [...COLUMNS], rows, rowWord: 'Grid row' },
 		mapping,
 		options,
 		flags: READING_FLAGS.manual,
 		claim: input.claim
 	});
-	// Row numbers count the header line the grid's rows were written under: say grid rows.
-	const message = outcome.message.replace(/\bRow (\d+)/g, (_m, n) => `Grid row ${Number(n) - 1}`);
-	return { batchId: batch.id, ...outcome, message };
+	return { batchId: batch.id, ...outcome };
 }
 
 /** Readings typed or pasted into the entry grid for one member. */

@@ -3,6 +3,7 @@
  * by hand, numbered, as many as the plan asks of the member, with the member's figures above it.
  * pdfkit in the reports' typeface (reports/fonts.ts), which prints Δ, ≥ and Ø.
  */
+import { mm } from '$lib/format';
 import PDFDocument from 'pdfkit';
 import { registerReportFonts } from '../reports/fonts';
 import { MARGIN, ReportWriter } from '../reports/layout';
@@ -80,7 +81,7 @@ function memberBlock(w: ReportWriter, m: SheetMember) {
 function summaryLines(plan: SurveyPlanView): string[] {
 	return plan.result.map(
 		(p) =>
-			`${p.memberType} × ${p.exposureClass}: ${p.totalReadings} readings = ${p.memberCount} member${p.memberCount === 1 ? '' : 's'} × ${p.readingsPerMember} (governed by ${p.governing.criterion}; expected SD ${p.sdMm.toFixed(1)} mm, ${p.sdBasis})`
+			`${p.memberType} × ${p.exposureClass}: ${p.totalReadings} readings = ${p.memberCount} member${p.memberCount === 1 ? '' : 's'} × ${p.readingsPerMember} (governed by ${p.governing.criterion}; expected SD ${mm(p.sdMm)}, ${p.sdBasis})`
 	);
 }
 

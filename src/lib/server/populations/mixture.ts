@@ -3,6 +3,7 @@
  * normal mixture (engine: fitNormalMixtureCounted, EM weighted by counts) and the members that
  * carry its low component, each from its own counts.
  */
+import { mm, percent } from '$lib/format';
 import {
 	fitNormalMixtureCounted,
 	lowComponentShareCounted,
@@ -22,15 +23,13 @@ export interface PopulationMixture {
 	sentence: string;
 }
 
-const mmText = (v: number) => `${v.toFixed(1)} mm`;
-
 function mixtureSentence(m: Omit<NormalMixture, 'trace'>, carriers: { label: string }[]): string {
 	const [low, high] = m.components;
 	const fit =
 		`A mixture of two normal populations (EM, seed ${m.seed}, ${m.starts} starts, ` +
 		`${m.converged ? `converged in ${m.iterations} iterations` : `not converged after ${m.iterations} iterations`}) ` +
-		`gives ${(100 * low.share).toFixed(0)} % around ${mmText(low.meanMm)} (SD ${mmText(low.sdMm)}) and ` +
-		`${(100 * high.share).toFixed(0)} % around ${mmText(high.meanMm)} (SD ${mmText(high.sdMm)}); ` +
+		`gives ${percent(low.share, 0)} around ${mm(low.meanMm)} (SD ${mm(low.sdMm)}) and ` +
+		`${percent(high.share, 0)} around ${mm(high.meanMm)} (SD ${mm(high.sdMm)}); ` +
 		`BIC ${m.bicTwoComponents.toFixed(0)} against ${m.bicOneComponent.toFixed(0)} for one normal` +
 		(m.twoComponentsPreferred
 			? ', so two populations are the better account.'

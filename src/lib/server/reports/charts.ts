@@ -18,7 +18,8 @@ import {
 } from 'chart.js';
 import annotationPlugin from 'chartjs-plugin-annotation';
 import type { PopulationAssessment } from '$lib/analysis';
-import { histogramConfig, PRINT_LOOK } from '$lib/charts/histogram';
+import { histogramConfig } from '$lib/charts/histogram';
+import { PRINT_LOOK } from '$lib/charts/look';
 import { riskCurveConfig, type RiskSeries } from '$lib/charts/riskCurve';
 import { chlorideProfileConfig, type ProfileChartData } from '$lib/charts/chlorideProfile';
 import { CHART_FONT_FAMILY, registerChartFonts } from './fonts';

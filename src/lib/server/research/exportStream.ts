@@ -1,6 +1,6 @@
 import type { Sequelize } from 'sequelize';
 import type { ResearchFilter } from './filter';
-import { csvLine } from './csv';
+import { csvLine } from '$lib/csv';
 import { closeExportRecord, openExportRecord, type ExportActor } from './exportRecord';
 import { selectedMembers } from './members';
 import { pseudonymMaker } from './pseudonym';

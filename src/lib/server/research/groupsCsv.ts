@@ -1,5 +1,5 @@
 import { GROUP_KEYS, type GroupKey } from './filter';
-import { csvLine } from './csv';
+import { csvLine } from '$lib/csv';
 import type { GroupStatistics, ResearchStatistics } from './statistics';
 import type { PopulationFigures } from './population';
 

@@ -1,4 +1,5 @@
 import { RISK_WORDS, type RiskLevel } from '$lib/words';
+import { roundedPercent } from '$lib/format';
 
 /**
  * Risk levels (their words are in $lib/words), each with a one-sentence reason. The level is
@@ -31,8 +32,6 @@ export interface LevelInput {
 	firstAgeMissingTarget: number | null;
 }
 
-const percent = (share: number) => `${(share * 100).toFixed(share < 0.1 ? 1 : 0)} %`;
-
 function belowMinimumLevel(input: LevelInput): { level: RiskLevel; reason: string } {
 	const share = input.shareBelowCMin ?? 0;
 	if (input.verdict === 'pass') {
@@ -43,7 +42,7 @@ function belowMinimumLevel(input: LevelInput): { level: RiskLevel; reason: strin
 	}
 	return {
 		level: 'keep-watching',
-		reason: `Protection is projected to hold through the design life, but ${percent(share)} of readings are below the minimum cover of ${input.cMinMm} mm.`
+		reason: `Protection is projected to hold through the design life, but ${roundedPercent(share)} of readings are below the minimum cover of ${input.cMinMm} mm.`
 	};
 }
 
@@ -55,7 +54,7 @@ export function riskLevel(input: LevelInput): { level: RiskLevel; reason: string
 	if (input.meetsTargetNow === false && input.probabilityNow !== null) {
 		return {
 			level: 'act-now',
-			reason: `About ${percent(input.probabilityNow)} of this part is projected to have lost its protection against corrosion already, at ${input.ageAtSurveyYears} years of age.`
+			reason: `About ${roundedPercent(input.probabilityNow)} of this part is projected to have lost its protection against corrosion already, at ${input.ageAtSurveyYears} years of age.`
 		};
 	}
 	if (input.meetsTargetAtDesignLife === false) {

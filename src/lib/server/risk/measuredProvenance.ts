@@ -4,6 +4,7 @@
  * with its standard error, and each fit's own), and what stays assumed — C_crit with its
  * source, the ageing exponent (none: Da taken constant from the age of sampling).
  */
+import { roundedPercent } from '$lib/format';
 import type { PopulationRisk } from './compute';
 import type { MeasuredLocation, MeasuredRisk } from './measured';
 import type { InputProvenance } from './provenance';
@@ -146,16 +147,14 @@ const INPUT_WORDS: Record<string, { name: string; unit: (sd: number) => string }
 	}
 };
 
-const pct = (share: number) => `${(share * 100).toFixed(share < 0.1 ? 1 : 0)} %`;
-
 /** One line: which input, moved by one standard deviation, changes the share at the design life most. */
 export function sensitivityWords(measured: MeasuredRisk | null | undefined): string {
 	if (!measured)
 		return 'Not ranked: every input is assumed, with no measured spread to move it by.';
 	const s = measured.sensitivity;
-	const share = pct(measured.atDesignLife.share);
+	const share = roundedPercent(measured.atDesignLife.share);
 	if (!s || (s.shareMinus === measured.atDesignLife.share && s.sharePlus === s.shareMinus))
 		return `No input moved by one standard deviation changes the share at the design life (${share}).`;
 	const words = INPUT_WORDS[s.input];
-	return `Most telling input: ${words.name} — one standard deviation either way (${words.unit(s.sd)}; ${s.basis}) moves the share at the design life from ${share} to ${pct(s.shareMinus)} or ${pct(s.sharePlus)}.`;
+	return `Most telling input: ${words.name} — one standard deviation either way (${words.unit(s.sd)}; ${s.basis}) moves the share at the design life from ${share} to ${roundedPercent(s.shareMinus)} or ${roundedPercent(s.sharePlus)}.`;
 }

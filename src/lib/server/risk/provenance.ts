@@ -7,6 +7,7 @@
  * (measuredProvenance.ts): the tests with their number and locations, the fitted values with
  * their standard errors, and what stays assumed (C_crit, the ageing exponent).
  */
+import { roundedPercent } from '$lib/format';
 import type { ExposureParameters } from './parameters';
 import { CARBONATION_DEFAULTS, CHLORIDE_DEFAULTS, type SourcedValue } from './parameters';
 
@@ -117,8 +118,6 @@ export function verdictAndRiskWords(
 	return null;
 }
 
-const pc = (share: number) => `${(share * 100).toFixed(share < 0.1 ? 1 : 0)} %`;
-
 /** The same sentence where the projection rests on fronts measured on the structure. */
 function measuredVerdictWords(
 	verdict: 'pass' | 'fail' | 'not-enough-data' | null,
@@ -130,9 +129,9 @@ function measuredVerdictWords(
 		kind === 'chloride'
 			? `the chloride front fitted to the ${m.locations} profiles taken here`
 			: `the carbonation front measured at ${m.locations} locations here`;
-	const already = m.now !== null && m.now > 0 ? ` (${pc(m.now)} already)` : '';
+	const already = m.now !== null && m.now > 0 ? ` (${roundedPercent(m.now)} already)` : '';
 	if (verdict === 'pass' && (level === 'act-now' || level === 'plan-repairs')) {
-		return `The cover meets its specification, yet ${front} passes the cover of ${pc(m.atDesignLife)} of the readings by the design life${already}: the specified cover is too little for what was measured on this structure.`;
+		return `The cover meets its specification, yet ${front} passes the cover of ${roundedPercent(m.atDesignLife)} of the readings by the design life${already}: the specified cover is too little for what was measured on this structure.`;
 	}
 	if (verdict === 'fail' && (level === 'low-concern' || level === 'keep-watching')) {
 		return `The cover falls short of its specification, but ${front} is not projected to reach the steel within the design life: the shortfall matters less here than the rules assume.`;

@@ -1,4 +1,5 @@
 /** What the pages get: plain figures of an assessed source, without the snapshot's bulk. */
+import { roundedPercent } from '$lib/format';
 import { RISK_WORDS, type RiskLevel } from './levels';
 import type { AssessedSource } from './portfolio';
 import { worstFirst } from './summary';
@@ -92,8 +93,6 @@ function shareView(a: RiskAtAge & { label: string }): ShareView {
 	};
 }
 
-const pc = (share: number) => `${(share * 100).toFixed(share < 0.1 ? 1 : 0)} %`;
-
 function measuredWords(p: PopulationRisk): string | null {
 	const m = p.measured;
 	if (!m) return null;
@@ -109,10 +108,10 @@ function measuredWords(p: PopulationRisk): string | null {
 			? ` Their fronts at the design life lie between ${Math.min(...fronts).toFixed(0)} and ${Math.max(...fronts).toFixed(0)} mm; that spread between locations is part of the band.`
 			: ' One location: the spread between locations is not known.';
 	const now = m.now
-		? ` Now (${m.now.years} years): ${pc(m.now.share)} (band ${pc(m.now.low)}–${pc(m.now.high)}).`
+		? ` Now (${m.now.years} years): ${roundedPercent(m.now.share)} (band ${roundedPercent(m.now.low)}–${roundedPercent(m.now.high)}).`
 		: '';
 	const [lo, hi] = m.bootstrap.probabilities;
-	return `Measured: from ${what} (${locationWords(m.locations)}).${spread}${now} At the design life: ${pc(m.atDesignLife.share)}, band ${pc(m.atDesignLife.low)}–${pc(m.atDesignLife.high)} (${lo * 100}–${hi * 100} % of a seeded bootstrap, ${m.bootstrap.replicates} replicates).`;
+	return `Measured: from ${what} (${locationWords(m.locations)}).${spread}${now} At the design life: ${roundedPercent(m.atDesignLife.share)}, band ${roundedPercent(m.atDesignLife.low)}–${roundedPercent(m.atDesignLife.high)} (${lo * 100}–${hi * 100} % of a seeded bootstrap, ${m.bootstrap.replicates} replicates).`;
 }
 
 /** Inputs of every projection: a measured population's own rows, else its class's assumed ones. */

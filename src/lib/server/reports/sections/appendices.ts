@@ -1,7 +1,7 @@
 /** Appendices: readings summary per member and the verification holes. */
 import type { AssessedSource } from '$lib/server/risk';
 import type { ReportWriter } from '../layout';
-import { mm } from '../text';
+import { mm } from '$lib/format';
 
 export function appendices(w: ReportWriter, source: AssessedSource): void {
 	const { annex, snapshot } = source;

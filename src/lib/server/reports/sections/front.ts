@@ -3,7 +3,7 @@ import { referenceSurvey, toRiskView, type AssessedSource } from '$lib/server/ri
 import { CAUTION_TEXT, CAUTION_TITLE } from '../caution';
 import type { ReportWriter } from '../layout';
 import { DEPASSIVATED_WORDS, surveyStateWords, formatDate, formatDateTime } from '$lib/words';
-import { pct } from '../text';
+import { percent } from '$lib/format';
 
 /** Each survey whose readings are in the figures, with its state when the figures were taken. */
 function surveyLines(source: AssessedSource): string {
@@ -59,11 +59,11 @@ export function ownerSummary(w: ReportWriter, source: AssessedSource): void {
 	w.heading('Summary for the owner');
 	w.paragraph(`Overall: ${risk.words}. ${risk.reason}`, { bold: true });
 	w.keyValues([
-		['Readings below minimum cover', pct(risk.shareBelowCMin)],
+		['Readings below minimum cover', percent(risk.shareBelowCMin)],
 		[
 			'Projected share without protection at design life',
 			source.projected
-				? pct(risk.shareDepassivatedAtDesignLife)
+				? percent(risk.shareDepassivatedAtDesignLife)
 				: 'Not projected: no durability parameters were entered.'
 		],
 		[

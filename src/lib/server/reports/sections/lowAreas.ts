@@ -1,4 +1,5 @@
 /** Where to treat first: the low-cover areas kept in the snapshot (populations/lowAreas.ts). */
+import { percent } from '$lib/format';
 import type { AssessedSource } from '$lib/server/risk';
 import { memberLowAreaWords, treatFirstWords } from '$lib/words';
 import type { ReportWriter } from '../layout';
@@ -23,7 +24,7 @@ export function lowAreaSection(w: ReportWriter, source: AssessedSource): void {
 			.slice(0, 8)
 			.map((m): [string, string] => [
 				`${m.memberLabel} (${m.populationLabel})`,
-				`${memberLowAreaWords(m)} (${(m.share * 100).toFixed(1)} % of the member below c_min)`
+				`${memberLowAreaWords(m)} (${percent(m.share)} of the member below c_min)`
 			])
 	);
 }

@@ -1,7 +1,7 @@
 /** Method statement: meter and its verification, populations, statistics and rules, engine. */
 import { describeParameters, type AssessedSource } from '$lib/server/risk';
 import type { ReportWriter } from '../layout';
-import { mm, num } from '../text';
+import { mm, num } from '$lib/format';
 
 export function methodStatement(w: ReportWriter, source: AssessedSource): void {
 	const { snapshot, annex } = source;

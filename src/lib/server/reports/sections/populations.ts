@@ -4,7 +4,7 @@ import { histogramDescription } from '$lib/charts/histogram';
 import { verdictWords } from '$lib/words';
 import { histogramPng } from '../charts';
 import type { ReportWriter } from '../layout';
-import { mm, pct } from '../text';
+import { mm, percent } from '$lib/format';
 
 export function populationSections(w: ReportWriter, source: AssessedSource): void {
 	w.doc.addPage();
@@ -37,7 +37,7 @@ export function populationSections(w: ReportWriter, source: AssessedSource): voi
 					mm(a.description.sdMm),
 					mm(a.characteristic.chosenMm),
 					mm(a.requirement.cMinMm, 0),
-					pct(a.fractionBelowCMin.empirical),
+					percent(a.fractionBelowCMin.empirical),
 					a.chosenModel
 				]
 			]

@@ -3,7 +3,7 @@ import { RISK_WORDS, toRiskView, type AssessedSource } from '$lib/server/risk';
 import { betaWords, METHOD_WORDS, shareWords } from '$lib/components/risk/format';
 import { PROFILE_CHART, chlorideProfilePng, riskCurvePng } from '../charts';
 import type { ReportWriter } from '../layout';
-import { pct } from '../text';
+import { percent } from '$lib/format';
 import { chlorideProfilesSection } from './profiles';
 
 type RiskView = ReturnType<typeof toRiskView>;
@@ -71,7 +71,7 @@ export function riskSection(w: ReportWriter, source: AssessedSource): void {
 		);
 		if (p.measured === undefined || p.measured === null)
 			w.paragraph(
-				`Readings reached by the mean front at the design life: ${pct(p.atDesignLife?.empiricalShare)}.`,
+				`Readings reached by the mean front at the design life: ${percent(p.atDesignLife?.empiricalShare)}.`,
 				{ size: 8 }
 			);
 	}
