@@ -30,39 +30,6 @@ import {
 
 export const DEMO_SEED = 20_240_312;
 
-/** Tables that hold data (not the migration record), children first. */
-const DATA_TABLES = [
-	'api_rate_counters',
-	'audit_events',
-	'research_exports',
-	'report_links',
-	'assessment_risks',
-	'assessments',
-	'column_templates',
-	'attachments',
-	'verification_holes',
-	'chloride_increments',
-	'chloride_profiles',
-	'carbonation_tests',
-	'readings',
-	'import_progress',
-	'import_batches',
-	'member_cover_sets',
-	'members',
-	'surveys',
-	'asset_shares',
-	'assets',
-	'mail_outbox',
-	'sign_in_throttles',
-	'password_resets',
-	'invitations',
-	'api_tokens',
-	'sessions',
-	'memberships',
-	'users',
-	'organisations'
-];
-
 export async function isDatabaseEmpty(sequelize: Sequelize): Promise<boolean> {
 	const row = await sequelize.query<{ n: number }>('SELECT COUNT(*) AS n FROM organisations', {
 		type: QueryTypes.SELECT,
@@ -71,11 +38,22 @@ export async function isDatabaseEmpty(sequelize: Sequelize): Promise<boolean> {
 	return Number(row?.n ?? 0) === 0;
 }
 
+/**
+ * Empties every table but the migration record. The tables are read from the schema rather than
+ * listed here, so a table a later migration adds is emptied too (a hand list once missed the
+ * custom populations, whose names then collided with the next run's). Sequences (reading ids)
+ * are not tables and keep counting.
+ */
 export async function clearAllData(sequelize: Sequelize): Promise<void> {
+	const tables = await sequelize.query<{ name: string }>(
+		`SELECT table_name AS name FROM information_schema.tables
+		 WHERE table_schema = DATABASE() AND table_type = 'BASE TABLE' AND table_name <> 'schema_migrations'`,
+		{ type: QueryTypes.SELECT }
+	);
 	await sequelize.query('SET FOREIGN_KEY_CHECKS = 0', { type: QueryTypes.RAW });
 	try {
-		for (const table of DATA_TABLES)
-			await sequelize.query(`TRUNCATE TABLE \`${table}\``, { type: QueryTypes.RAW });
+		for (const { name } of tables)
+			await sequelize.query(`TRUNCATE TABLE \`${name}\``, { type: QueryTypes.RAW });
 	} finally {
 		await sequelize.query('SET FOREIGN_KEY_CHECKS = 1', { type: QueryTypes.RAW });
 	}

@@ -28,6 +28,33 @@ describe('demo scenario seeding', () => {
 		expect(second).toEqual(first);
 	});
 
+	it('empties every data table on reset, the custom populations and plans included', async () => {
+		const { QueryTypes } = await import('sequelize');
+		const [asset] = await scratch.sequelize.query<{ id: number }>('SELECT id FROM assets LIMIT 1', {
+			type: QueryTypes.SELECT
+		});
+		await scratch.sequelize.query(
+			`INSERT INTO custom_populations (asset_id, name, member_ids, created_at)
+			 VALUES (?, 'Left over', '[]', NOW())`,
+			{ replacements: [asset.id], type: QueryTypes.RAW }
+		);
+		await clearAllData(scratch.sequelize);
+		const tables = await scratch.sequelize.query<{ name: string }>(
+			`SELECT table_name AS name FROM information_schema.tables
+			 WHERE table_schema = DATABASE() AND table_type = 'BASE TABLE' AND table_name <> 'schema_migrations'`,
+			{ type: QueryTypes.SELECT }
+		);
+		expect(tables.map((t) => t.name)).toContain('custom_populations');
+		for (const { name } of tables) {
+			const [row] = await scratch.sequelize.query<{ n: number }>(
+				`SELECT COUNT(*) AS n FROM \`${name}\``,
+				{ type: QueryTypes.SELECT }
+			);
+			expect([name, Number(row.n)]).toEqual([name, 0]);
+		}
+		await loadDemoScenario(scratch.sequelize);
+	});
+
 	it('is as large and varied as the scenario promises', async () => {
 		const summary = await summariseDemo(scratch.sequelize);
 		expect(summary.counts.readings).toBeGreaterThanOrEqual(20_000);
