@@ -101,7 +101,7 @@ describe('the check-hole calibration chosen over the population detail API', () 
 		const bad = await detail('type=deck&exposure=XD3&calibration=yes');
 		expect(bad.status).toBe(400);
 		expect(bad.body.error?.field).toBe('calibration');
-		expect(bad.body.error?.message).toBe('The calibration is none or apply.');
+		expect(bad.body.error?.message).toBe('calibration: The calibration is none or apply.');
 	});
 
 	it('a population without check holes says in words why nothing was applied', async () => {

@@ -2,7 +2,6 @@
  * The population query: which readings, how they are grouped and which methods judge them.
  * One zod schema for the API's query string and the page URL, so a view can be bookmarked.
  */
-import { apiError } from '$lib/server/web/http';
 import { z } from 'zod';
 import { RULE_SETS, type AssessOptions, type RuleSetName } from '$lib/analysis';
 import { MEMBER_FACES, MEMBER_TYPES } from '$lib/words';
@@ -99,23 +98,4 @@ export function toAssessOptions(choice: MethodChoice, charts = false): AssessOpt
 		...(choice.rules ? { ruleSet: choice.rules } : {}),
 		charts
 	};
-}
-
-/** Plain object of the URL's query parameters (the last value of a repeated key wins). */
-export function paramsOf(url: URL): Record<string, string> {
-	return Object.fromEntries(url.searchParams.entries());
-}
-
-/** Validate query parameters; a bad one is a 400 `invalid_input` naming the parameter (field). */
-export function parseParams<S extends z.ZodType>(
-	schema: S,
-	params: Record<string, string>
-): z.infer<S> {
-	const parsed = schema.safeParse(params);
-	if (!parsed.success) {
-		const issue = parsed.error.issues[0];
-		const field = issue.path.join('.');
-		apiError(400, 'invalid_input', issue.message, field || undefined);
-	}
-	return parsed.data as z.infer<S>;
 }

@@ -2,7 +2,7 @@ import { json } from '@sveltejs/kit';
 import type { RequestHandler } from './$types';
 import { authorize } from '$lib/server/web/actor';
 import { researchContext } from '$lib/server/research/context';
-import { statisticsQueryOf } from '$lib/server/research/requests';
+import { statisticsQueryOf } from '$lib/server/web/researchQuery';
 import { researchStatistics } from '$lib/server/research/statistics';
 
 export const GET: RequestHandler = async ({ locals, url }) => {

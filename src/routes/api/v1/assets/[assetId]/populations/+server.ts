@@ -4,8 +4,6 @@ import { authorize } from '$lib/server/web/actor';
 import {
 	customOverview,
 	methodSchema,
-	paramsOf,
-	parseParams,
 	populationOverview,
 	requestedSurveyIds,
 	scopeSchema,
@@ -14,14 +12,15 @@ import {
 import { scopedAsset } from '$lib/server/access';
 import { api } from '$lib/server/web/respond';
 import { pathId } from '$lib/server/web/params';
+import { queryObject, readQuery } from '$lib/server/web/query';
 
 /** The population overview of an asset or one of its surveys: every group, judged by the engine. */
 export const GET: RequestHandler = async ({ locals, params, url }) => {
 	const actor = authorize(locals, 'population:read');
 	const assetId = pathId(params.assetId);
-	const query = paramsOf(url);
-	const scope = parseParams(scopeSchema, query);
-	const choice = parseParams(methodSchema, query);
+	const query = queryObject(url);
+	const scope = readQuery(scopeSchema, query);
+	const choice = readQuery(methodSchema, query);
 	await api(() => scopedAsset(actor, assetId, 'read'));
 	const selection = await api(() => surveySelection(assetId, requestedSurveyIds(scope)));
 	const overview = await populationOverview({

@@ -2,7 +2,7 @@ import { json } from '@sveltejs/kit';
 import type { RequestHandler } from './$types';
 import { authorize } from '$lib/server/web/actor';
 import { pageQuerySchema } from '$lib/server/api/cursor';
-import { parseInput, queryObject } from '$lib/server/api/request';
+import { queryObject, readQuery } from '$lib/server/web/query';
 import { scopedMember } from '$lib/server/access';
 import { readingPage } from '$lib/server/api/ownRecords';
 import { apiError, readJson } from '$lib/server/web/http';
@@ -14,7 +14,7 @@ import { pathId } from '$lib/server/web/params';
 export const GET: RequestHandler = async ({ locals, params, url }) => {
 	const actor = authorize(locals, 'survey:read');
 	const memberId = pathId(params.memberId);
-	const { cursor, limit } = parseInput(pageQuerySchema, queryObject(url));
+	const { cursor, limit } = readQuery(pageQuerySchema, queryObject(url));
 	const { member } = await api(() => scopedMember(actor, memberId, 'read'));
 	return json(await readingPage(member.id, cursor?.after ?? 0, limit));
 };

@@ -1,7 +1,7 @@
 import type { RequestHandler } from './$types';
 import { authorize } from '$lib/server/web/actor';
 import { groupsExportResponse } from '$lib/server/research/exportResponse';
-import { statisticsQueryOf } from '$lib/server/research/requests';
+import { statisticsQueryOf } from '$lib/server/web/researchQuery';
 
 /** The group statistics of the selection as CSV; recorded in research_exports. */
 export const GET: RequestHandler = async ({ locals, url }) => {

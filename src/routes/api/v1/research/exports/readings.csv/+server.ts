@@ -1,7 +1,7 @@
 import type { RequestHandler } from './$types';
 import { authorize } from '$lib/server/web/actor';
 import { readingsExportResponse } from '$lib/server/research/exportResponse';
-import { filterOf } from '$lib/server/research/requests';
+import { filterOf } from '$lib/server/web/researchQuery';
 
 /** The selected readings, streamed as CSV; recorded in research_exports. */
 export const GET: RequestHandler = async ({ locals, url }) => {

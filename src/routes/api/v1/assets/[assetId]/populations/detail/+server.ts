@@ -15,8 +15,6 @@ import {
 	populationMixture,
 	meterCheck,
 	methodSchema,
-	paramsOf,
-	parseParams,
 	populationDetail,
 	requestedSurveyIds,
 	scopeSchema,
@@ -24,6 +22,7 @@ import {
 } from '$lib/server/populations';
 import { scopedAsset } from '$lib/server/access';
 import { pathId } from '$lib/server/web/params';
+import { queryObject, readQuery } from '$lib/server/web/query';
 
 /**
  * One population with chart data, per-member box figures and comparison, and the meter's
@@ -32,21 +31,21 @@ import { pathId } from '$lib/server/web/params';
 export const GET: RequestHandler = async ({ locals, params, url }) => {
 	const actor = authorize(locals, 'population:read');
 	const assetId = pathId(params.assetId);
-	const query = paramsOf(url);
-	const scope = parseParams(scopeSchema, query);
-	const choice = parseParams(methodSchema, query);
-	const { calibration } = parseParams(calibrationSchema, query);
+	const query = queryObject(url);
+	const scope = readQuery(scopeSchema, query);
+	const choice = readQuery(methodSchema, query);
+	const { calibration } = readQuery(calibrationSchema, query);
 	await api(() => scopedAsset(actor, assetId, 'read'));
 	const selection = await api(() => surveySelection(assetId, requestedSurveyIds(scope)));
 	const input = { assetId, surveyIds: selection.surveyIds, choice };
 	let detail;
 	if (query.custom !== undefined) {
 		// A population the engineer made, shared by its URL: ?custom=3 (&part=rest for the remainder).
-		const picked = parseParams(customSchema, query);
+		const picked = readQuery(customSchema, query);
 		const [custom] = await api(() => customPopulationsOf(assetId, [picked.custom]));
 		[detail] = await judgeCustom({ ...input, charts: true }, custom, picked.part);
 	} else {
-		detail = await populationDetail(input, parseParams(groupSchema, query));
+		detail = await populationDetail(input, readQuery(groupSchema, query));
 	}
 	if (!detail) error(404, 'No members of this asset match that population.');
 	const type = choice.percentile === '6' ? 6 : 7;
