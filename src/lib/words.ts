@@ -27,8 +27,7 @@ export const SURVEY_STATE_WORDS: Record<string, string> = {
 
 export const surveyStateWords = (state: string): string => SURVEY_STATE_WORDS[state] ?? state;
 
-// Figures and dates are formatted in format.ts (re-exported here for the word lists' callers).
-export { counted, formatDate, formatDateTime } from './format';
+// Figures, counts and dates are formatted in format.ts.
 
 /** What "depassivated" means, for an owner who is not a corrosion engineer (pages and report). */
 export const DEPASSIVATED_WORDS =

@@ -1,5 +1,5 @@
 import type { Transaction } from 'sequelize';
-import { counted } from '$lib/words';
+import { counted } from '$lib/format';
 import { ImportBatch } from '../db/models';
 import type { ImportState } from '../db/models/ImportBatch';
 import { recordAudit } from '../audit';

@@ -1,5 +1,5 @@
 import { z } from 'zod';
-import { counted } from '$lib/words';
+import { counted } from '$lib/format';
 import {
 	FIELD_LABELS,
 	LENGTH_FIELDS,

@@ -6,7 +6,8 @@
  * chosen explicitly; the choice travels with the page URL into the saved assessment.
  */
 import { Member, MemberCoverSet, Survey } from '$lib/server/db';
-import { counted, surveyStateWords } from '$lib/words';
+import { surveyStateWords } from '$lib/words';
+import { counted } from '$lib/format';
 import { InputError } from '$lib/server/domainErrors';
 
 export interface SelectableSurvey {

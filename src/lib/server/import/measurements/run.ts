@@ -1,5 +1,5 @@
 import type { Transaction } from 'sequelize';
-import { counted } from '$lib/words';
+import { counted } from '$lib/format';
 import type { Readable } from 'node:stream';
 import {
 	CarbonationTest,

@@ -2,8 +2,8 @@
 import { referenceSurvey, toRiskView, type AssessedSource } from '$lib/server/risk';
 import { CAUTION_TEXT, CAUTION_TITLE } from '../caution';
 import type { ReportWriter } from '../layout';
-import { DEPASSIVATED_WORDS, surveyStateWords, formatDate, formatDateTime } from '$lib/words';
-import { percent } from '$lib/format';
+import { DEPASSIVATED_WORDS, surveyStateWords } from '$lib/words';
+import { formatDate, formatDateTime, percent } from '$lib/format';
 
 /** Each survey whose readings are in the figures, with its state when the figures were taken. */
 function surveyLines(source: AssessedSource): string {

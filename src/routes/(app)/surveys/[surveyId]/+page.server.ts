@@ -16,7 +16,7 @@ import { scopedSurvey } from '$lib/server/access';
 import { listAttachments } from '$lib/server/storage/attachments';
 import { hasSurveyPlan } from '$lib/server/planning/service';
 import { EMPTY_SURVEY_WORDS } from '$lib/intake/frozen';
-import { counted } from '$lib/words';
+import { counted } from '$lib/format';
 import { frozenReason } from '$lib/server/intake/frozen';
 
 export const load: PageServerLoad = async (event) => {
