@@ -23,7 +23,6 @@ import {
 	describeSorted,
 	fitNormalMixtureCounted,
 	fractionBelow,
-	gridValue,
 	histogramCounted,
 	histogramSorted,
 	kruskalWallis,
@@ -39,32 +38,12 @@ import {
 	pooledRanksCounted,
 	poolSorted,
 	projectRequirement,
-	type CountedSample,
-	type CoverGrid
+	type CountedSample
 } from '../../../src/lib/analysis';
+import { drawOnGrid as draw, GRIDS } from '../../helpers/quantized';
 
 const RELATIVE = 1e-12;
 const THROUGH_FIT = 1e-9;
-
-const GRIDS: CoverGrid[] = [
-	{ den: 1, factor: 1 },
-	{ den: 2, factor: 1 },
-	{ den: 10, factor: 1 },
-	{ den: 20, factor: 25.4 }
-];
-
-/** Readings near `centre` mm on a grid, in the order drawn (not sorted); a small LCG per seed. */
-function draw(grid: CoverGrid, centre: number, spread: number, n: number, seed: number) {
-	let state = seed;
-	const uniform = () => (state = (state * 1103515245 + 12345) % 2 ** 31) / 2 ** 31;
-	const stepsPerMm = grid.den / grid.factor;
-	const values = new Float64Array(n);
-	for (let i = 0; i < n; i++) {
-		const mm = centre + spread * (uniform() + uniform() + uniform() - 1.5);
-		values[i] = gridValue(Math.max(1, Math.round(mm * stepsPerMm)), grid);
-	}
-	return values;
-}
 
 const population = fc
 	.record({

@@ -14,16 +14,10 @@ import {
 	normalProbabilityPlotCounted
 } from '../../../src/lib/analysis/charts';
 import { countedFromSorted } from '../../../src/lib/analysis/countedSample';
-import { gridValue } from '../../../src/lib/analysis/coverGrid';
 import { histogramCounted, histogramSorted } from '../../../src/lib/analysis/histogram';
+import { drawOnGrid, GRIDS } from '../../helpers/quantized';
 
 /** Readings on a meter's grid (1, 0.5, 0.1 mm or 0.05 in), as the import stores them. */
-const GRIDS = [
-	{ den: 1, factor: 1 },
-	{ den: 2, factor: 1 },
-	{ den: 10, factor: 1 },
-	{ den: 20, factor: 25.4 }
-];
 const quantized = fc
 	.record({
 		grid: fc.constantFrom(...GRIDS),
@@ -32,20 +26,9 @@ const quantized = fc
 		n: fc.integer({ min: 1, max: 1500 }),
 		seed: fc.integer({ min: 1, max: 2 ** 30 })
 	})
-	.map(({ grid, centre, spread, n, seed }) => {
-		// A small LCG keeps each case reproducible from its seed; a bell near `centre` mm (negative
-		// values too: a deviation from nominal is charted as well).
-		let state = seed;
-		const uniform = () => (state = (state * 1103515245 + 12345) % 2 ** 31) / 2 ** 31;
-		const stepsPerMm = grid.den / grid.factor;
-		const values = new Float64Array(n);
-		for (let i = 0; i < n; i++) {
-			const mm = centre + spread * (uniform() + uniform() + uniform() - 1.5);
-			// + 0: no −0 (a reading is never stored as −0; counts merge it with 0).
-			values[i] = gridValue(Math.round(mm * stepsPerMm), grid) + 0;
-		}
-		return values.sort();
-	});
+	.map(({ grid, centre, spread, n, seed }) =>
+		drawOnGrid(grid, centre, spread, n, seed, true).sort()
+	);
 
 describe('chart data from counts', () => {
 	it('bins exactly as the histogram of the readings (Freedman–Diaconis and fixed widths)', () => {

@@ -26,7 +26,7 @@ import {
 	momentsCounted,
 	percentileCounted
 } from '../../../src/lib/analysis/countedSample';
-import { detectGrid, gridValue } from '../../../src/lib/analysis/coverGrid';
+import { detectGrid } from '../../../src/lib/analysis/coverGrid';
 import { describeSorted } from '../../../src/lib/analysis/describe';
 import { fitLognormal, fitNormal } from '../../../src/lib/analysis/fitModels';
 import { compareModels, compareModelsCounted } from '../../../src/lib/analysis/goodnessOfFit';
@@ -34,6 +34,7 @@ import { fractionBelow } from '../../../src/lib/analysis/fractionBelow';
 import { kolmogorovSmirnov } from '../../../src/lib/analysis/lilliefors';
 import { percentileSorted } from '../../../src/lib/analysis/percentile';
 import { countAtOrBelowSorted, countBelowSorted } from '../../../src/lib/analysis/readings';
+import { drawOnGrid, GRIDS } from '../../helpers/quantized';
 
 const RELATIVE = 1e-12;
 
@@ -46,12 +47,6 @@ function close(a: number | null, b: number | null, scale = 1): void {
 }
 
 /** Readings on a meter's grid as the import stores them (k/den mm, or (k/den)·25.4 for inches). */
-const GRIDS = [
-	{ den: 1, factor: 1 },
-	{ den: 2, factor: 1 },
-	{ den: 10, factor: 1 },
-	{ den: 20, factor: 25.4 }
-];
 const quantized = fc
 	.record({
 		grid: fc.constantFrom(...GRIDS),
@@ -60,18 +55,7 @@ const quantized = fc
 		n: fc.integer({ min: 8, max: 400 }),
 		seed: fc.integer({ min: 1, max: 2 ** 30 })
 	})
-	.map(({ grid, centre, spread, n, seed }) => {
-		// A small LCG keeps each case reproducible from its seed; readings near `centre` mm.
-		let state = seed;
-		const uniform = () => (state = (state * 1103515245 + 12345) % 2 ** 31) / 2 ** 31;
-		const stepsPerMm = grid.den / grid.factor;
-		const values = new Float64Array(n);
-		for (let i = 0; i < n; i++) {
-			const mm = centre + spread * (uniform() + uniform() + uniform() - 1.5);
-			values[i] = gridValue(Math.max(1, Math.round(mm * stepsPerMm)), grid);
-		}
-		return values.sort();
-	});
+	.map(({ grid, centre, spread, n, seed }) => drawOnGrid(grid, centre, spread, n, seed).sort());
 
 describe('counted samples equal the raw readings', () => {
 	it('finds the grid the readings were logged on (0.1 mm; 0.05 in = 1.27 mm)', () => {
