@@ -24,6 +24,15 @@ const args = process.argv.slice(2).filter((a) => !a.startsWith('--'));
 const REUSE = process.argv.includes('--reuse');
 /** --resume: generate the rest of a stock whose generation stopped part-way. */
 const RESUME = process.argv.includes('--resume');
+/**
+ * --rows-only: generate the readings and stop; --summaries-only: build the summaries of a stock
+ * generated that way (both resume where they stopped). The default writes both per batch.
+ */
+const PHASE = process.argv.includes('--rows-only')
+	? 'rows'
+	: process.argv.includes('--summaries-only')
+		? 'summaries'
+		: 'both';
 const READINGS = Number(args[0] ?? 10_000_000);
 const STRUCTURES = Number(args[1] ?? 1_000);
 const MEMBERS_PER_STRUCTURE = Number(args[2] ?? 100);
@@ -107,14 +116,17 @@ async function generateReadings(memberIds: number[]) {
 	if (perMember * memberIds.length !== READINGS)
 		throw new Error(`${READINGS} readings do not split evenly over ${memberIds.length} members`);
 	// --resume: carry on after the last member whose batch committed (a batch is one transaction).
-	const [{ maxId, lastMember }] = await sequelize.query<{
+	const [{ maxId, lastMember, lastRowMember }] = await sequelize.query<{
 		maxId: number | null;
 		lastMember: number | null;
+		lastRowMember: number | null;
 	}>(
-		'SELECT (SELECT MAX(id) FROM readings) AS maxId, (SELECT MAX(member_id) FROM member_cover_sets) AS lastMember',
+		`SELECT (SELECT MAX(id) FROM readings) AS maxId, (SELECT MAX(member_id) FROM member_cover_sets) AS lastMember,
+		        (SELECT MAX(member_id) FROM readings) AS lastRowMember`,
 		{ type: QueryTypes.SELECT }
 	);
-	const done = RESUME && lastMember !== null ? Number(lastMember) - first + 1 : 0;
+	const last = PHASE === 'rows' ? lastRowMember : lastMember;
+	const done = (RESUME || PHASE === 'summaries') && last !== null ? Number(last) - first + 1 : 0;
 	const idBase = Number(maxId ?? 0) - done * perMember;
 	const raw = (sql: string, replacements?: Record<string, number>, transaction?: Transaction) =>
 		sequelize.query(sql, { type: QueryTypes.RAW, transaction, replacements });
@@ -143,28 +155,30 @@ async function generateReadings(memberIds: number[]) {
 				t
 			);
 			const t0 = performance.now();
-			await raw(
-				`INSERT INTO readings (id, member_id, x_mm, y_mm, cover_mm, bar_diameter_mm, flags)
+			if (PHASE !== 'summaries')
+				await raw(
+					`INSERT INTO readings (id, member_id, x_mm, y_mm, cover_mm, bar_diameter_mm, flags)
 				 SELECT :idBase + seq, member, ((seq - 1) % 97) * 50, (FLOOR((seq - 1) / 97) % 100) * 50, k / 10, 12, 0
 				   FROM (SELECT seq, member,
 				                200 + CRC32(member) % 100 + CRC32(seq) % 134 + CRC32(seq * 7 + 1) % 134 + CRC32(seq * 13 + 5) % 134 AS k
 				           FROM (SELECT seq + :start AS seq, :first + (seq + :start - 1) DIV :perMember AS member
 				                   FROM seq_1_to_${size}) s) r`,
-				{ idBase, start, first, perMember },
-				t
-			);
+					{ idBase, start, first, perMember },
+					t
+				);
 			const t1 = performance.now();
-			await raw(
-				`INSERT INTO member_cover_sets (member_id, reading_count, covers_mm, grid_den, grid_factor, distinct_covers, cover_counts)
+			if (PHASE !== 'rows')
+				await raw(
+					`INSERT INTO member_cover_sets (member_id, reading_count, covers_mm, grid_den, grid_factor, distinct_covers, cover_counts)
 				 SELECT c.member_id, SUM(c.n), GROUP_CONCAT(REPEAT(b.le8, c.n) ORDER BY c.k SEPARATOR ''), 10, 1, COUNT(*),
 				        GROUP_CONCAT(REVERSE(UNHEX(LPAD(HEX(c.k), 8, '0'))), REVERSE(UNHEX(LPAD(HEX(c.n), 8, '0'))) ORDER BY c.k SEPARATOR '')
 				   FROM (SELECT member_id, CAST(ROUND(cover_mm * 10) AS SIGNED) AS k, COUNT(*) AS n FROM readings
 				          WHERE member_id BETWEEN :lo AND :hi GROUP BY member_id, k) c
 				   JOIN bench_step_bytes b ON b.k = c.k
 				  GROUP BY c.member_id`,
-				{ lo: memberIds[m], hi: memberIds[m + members - 1] },
-				t
-			);
+					{ lo: memberIds[m], hi: memberIds[m + members - 1] },
+					t
+				);
 			rowsMs += t1 - t0;
 			summariesMs += performance.now() - t1;
 		});
@@ -174,7 +188,7 @@ async function generateReadings(memberIds: number[]) {
 	}
 	await raw('DROP TABLE bench_step_bytes');
 	// Later app writes take ids after the generated ones.
-	await raw(`SELECT SETVAL(reading_ids, ${idBase + READINGS})`);
+	if (PHASE !== 'summaries') await raw(`SELECT SETVAL(reading_ids, ${idBase + READINGS})`);
 	console.log(
 		`rows ${(rowsMs / 1000).toFixed(1)} s, summaries ${(summariesMs / 1000).toFixed(1)} s`
 	);
@@ -186,7 +200,7 @@ if (REUSE) {
 		type: QueryTypes.SELECT
 	});
 	memberIds = rows.map((r) => r.id);
-} else if (RESUME) {
+} else if (RESUME || PHASE === 'summaries') {
 	const rows = await sequelize.query<{ id: number }>('SELECT id FROM members ORDER BY id', {
 		type: QueryTypes.SELECT
 	});
@@ -220,6 +234,12 @@ if (REUSE) {
 			`(counts alone ${mb(Number(size.countsBytes))} MB, ` +
 			`${(Number(size.countsBytes) / memberIds.length).toFixed(0)} bytes a member)`
 	);
+}
+
+if (PHASE === 'rows') {
+	console.log('rows only: build the summaries with --summaries-only, then time them');
+	await sequelize.close();
+	process.exit(0);
 }
 
 const filter = researchFilterSchema.parse({});
