@@ -14,6 +14,7 @@ import { join } from 'node:path';
 import { QueryTypes, type Transaction } from 'sequelize';
 import { createSequelize, readDatabaseSettings } from '../../src/lib/server/db/connection';
 import { Asset, initModels, Member, Organisation, Survey } from '../../src/lib/server/db/models';
+import { gridCountsBuffer, readGridCounts } from '../../src/lib/server/readings/coverCountCodec';
 import { researchFilterSchema } from '../../src/lib/server/research/filter';
 import { researchStatistics } from '../../src/lib/server/research/statistics';
 import { loadProjectEnv } from '../../scripts/env';
@@ -101,6 +102,17 @@ async function createMembers(): Promise<number[]> {
 }
 
 /**
+ * A whole number below 2^21 as the codec's LEB128 varint (readings/coverCountCodec.ts), in SQL:
+ * the generated stock's steps (ZigZag of 200–1,000: first steps are never negative here) and
+ * counts stay far below it. `npm run db:check-summaries` on a small run compares the bytes with
+ * what the app writes.
+ */
+const varintSql = (v: string) =>
+	`IF(${v} < 128, CHAR(${v} USING binary), IF(${v} < 16384,
+	   CONCAT(CHAR(128 + ${v} % 128 USING binary), CHAR(${v} DIV 128 USING binary)),
+	   CONCAT(CHAR(128 + ${v} % 128 USING binary), CHAR(128 + (${v} DIV 128) % 128 USING binary), CHAR(${v} DIV 16384 USING binary))))`;
+
+/**
  * The readings straight from the sequence engine with explicit ids, in primary-key order
  * (member, id) so every batch appends to the clustered index, and each batch's summaries built
  * at once by GROUP BY while its rows are still in the buffer pool — the same bytes an import
@@ -171,9 +183,11 @@ async function generateReadings(memberIds: number[]) {
 				await raw(
 					`INSERT INTO member_cover_sets (member_id, reading_count, covers_mm, grid_den, grid_factor, distinct_covers, cover_counts)
 				 SELECT c.member_id, SUM(c.n), GROUP_CONCAT(REPEAT(b.le8, c.n) ORDER BY c.k SEPARATOR ''), 10, 1, COUNT(*),
-				        GROUP_CONCAT(REVERSE(UNHEX(LPAD(HEX(c.k), 8, '0'))), REVERSE(UNHEX(LPAD(HEX(c.n), 8, '0'))) ORDER BY c.k SEPARATOR '')
-				   FROM (SELECT member_id, CAST(ROUND(cover_mm * 10) AS SIGNED) AS k, COUNT(*) AS n FROM readings
-				          WHERE member_id BETWEEN :lo AND :hi GROUP BY member_id, k) c
+				        GROUP_CONCAT(${varintSql('c.gap')}, ${varintSql('c.n')} ORDER BY c.k SEPARATOR '')
+				   FROM (SELECT member_id, k, n, IF(prev IS NULL, 2 * k, k - prev - 1) AS gap
+				           FROM (SELECT member_id, k, n, LAG(k) OVER (PARTITION BY member_id ORDER BY k) AS prev
+				                   FROM (SELECT member_id, CAST(ROUND(cover_mm * 10) AS SIGNED) AS k, COUNT(*) AS n FROM readings
+				                          WHERE member_id BETWEEN :lo AND :hi GROUP BY member_id, k) g) w) c
 				   JOIN bench_step_bytes b ON b.k = c.k
 				  GROUP BY c.member_id`,
 					{ lo: memberIds[m], hi: memberIds[m + members - 1] },
@@ -191,6 +205,27 @@ async function generateReadings(memberIds: number[]) {
 	if (PHASE !== 'summaries') await raw(`SELECT SETVAL(reading_ids, ${idBase + READINGS})`);
 	console.log(
 		`rows ${(rowsMs / 1000).toFixed(1)} s, summaries ${(summariesMs / 1000).toFixed(1)} s`
+	);
+}
+
+/** The tables' size on disk (statistics refreshed first) and the counts' bytes a member. */
+async function printSizes() {
+	await sequelize.query('ANALYZE TABLE readings, member_cover_sets');
+	const [size] = await sequelize.query<{
+		readings: number;
+		summaries: number;
+		countsBytes: number;
+	}>(
+		`SELECT
+		   (SELECT data_length + index_length FROM information_schema.tables WHERE table_schema = DATABASE() AND table_name = 'readings') AS readings,
+		   (SELECT data_length + index_length FROM information_schema.tables WHERE table_schema = DATABASE() AND table_name = 'member_cover_sets') AS summaries,
+		   (SELECT SUM(LENGTH(cover_counts)) FROM member_cover_sets) AS countsBytes`,
+		{ type: QueryTypes.SELECT }
+	);
+	console.log(
+		`on disk: readings ${mb(size.readings)} MB, summary rows ${mb(size.summaries)} MB ` +
+			`(counts alone ${mb(Number(size.countsBytes))} MB, ` +
+			`${(Number(size.countsBytes) / memberIds.length).toFixed(0)} bytes a member)`
 	);
 }
 
@@ -216,25 +251,12 @@ if (REUSE) {
 	const membersMade = seconds(generationStart);
 	await generateReadings(memberIds);
 	const generated = seconds(generationStart);
-	const [size] = await sequelize.query<{
-		readings: number;
-		summaries: number;
-		countsBytes: number;
-	}>(
-		`SELECT
-		   (SELECT data_length + index_length FROM information_schema.tables WHERE table_schema = DATABASE() AND table_name = 'readings') AS readings,
-		   (SELECT data_length + index_length FROM information_schema.tables WHERE table_schema = DATABASE() AND table_name = 'member_cover_sets') AS summaries,
-		   (SELECT SUM(LENGTH(cover_counts)) FROM member_cover_sets) AS countsBytes`,
-		{ type: QueryTypes.SELECT }
-	);
 	console.log(
 		`generated ${READINGS} readings in ${STRUCTURES} structures (${memberIds.length} members): ` +
-			`${generated} s in all (members ${membersMade} s); disk used ${mb(freeBefore - disk())} MB (df); ` +
-			`on disk readings ${mb(size.readings)} MB, summary rows ${mb(size.summaries)} MB ` +
-			`(counts alone ${mb(Number(size.countsBytes))} MB, ` +
-			`${(Number(size.countsBytes) / memberIds.length).toFixed(0)} bytes a member)`
+			`${generated} s in all (members ${membersMade} s); disk used ${mb(freeBefore - disk())} MB (df)`
 	);
 }
+if (!REUSE) await printSizes();
 
 if (PHASE === 'rows') {
 	console.log('rows only: build the summaries with --summaries-only, then time them');
@@ -269,6 +291,7 @@ const GROUP_OF = (type: string, exposure: string) => `${type}|${exposure}`;
 const groupNames: string[] = [];
 const file = join(process.cwd(), '.local', 'bench-counts.bin');
 const readTimes: number[] = [];
+const decoded = gridCountsBuffer();
 for (let run = 0; run < 3; run++) {
 	const parts: Buffer[] = [];
 	const t0 = performance.now();
@@ -303,10 +326,16 @@ for (let run = 0; run < 3; run++) {
 			const name = GROUP_OF(r.memberType, r.exposureClass);
 			let g = groupNames.indexOf(name);
 			if (g < 0) g = groupNames.push(name) - 1;
-			const head = Buffer.alloc(8);
-			head.writeInt32LE(g, 0);
-			head.writeInt32LE(r.counts.length / 8, 4);
-			parts.push(head, r.counts);
+			// The peer's file keeps fixed entries (int32 step, uint32 count) for numpy to read.
+			const entries = readGridCounts(r.counts, decoded);
+			const fixed = Buffer.alloc(8 + entries * 8);
+			fixed.writeInt32LE(g, 0);
+			fixed.writeInt32LE(entries, 4);
+			for (let i = 0; i < entries; i++) {
+				fixed.writeInt32LE(decoded.steps[i], 8 + i * 8);
+				fixed.writeUInt32LE(decoded.counts[i], 12 + i * 8);
+			}
+			parts.push(fixed);
 		}
 	}
 	readTimes.push(performance.now() - t0);

@@ -188,3 +188,87 @@ describe('migration 009 on a database that already holds readings', () => {
 		expect(after.map((r) => Number(r.cover))).toEqual([...covers, 40, 41]);
 	});
 });
+
+describe('migration 017 on a database that already holds cover counts', () => {
+	let scratch: Awaited<ReturnType<typeof scratchDatabase>>;
+	beforeAll(async () => {
+		scratch = await scratchDatabase('migration_017');
+	});
+	afterAll(async () => {
+		await scratch.drop();
+	});
+
+	it('rewrites grid counts in the live codec’s form, leaves off-grid counts, and reverts', async () => {
+		const migrator = createMigrator(scratch.sequelize);
+		await migrator.up({ to: '016-measurement-imports' });
+		const q = async (sql: string, replacements: unknown[] = []) =>
+			(await scratch.sequelize.query(sql, { replacements, type: QueryTypes.INSERT }))[0] as number;
+		const org = await q(
+			"INSERT INTO organisations (name, slug, created_at, updated_at) VALUES ('Scratch', 'scratch', NOW(), NOW())"
+		);
+		const asset = await q(
+			"INSERT INTO assets (organisation_id, name, design_code, design_service_life_years, created_at, updated_at) VALUES (?, 'A', 'EN 1992-1-1', 50, NOW(), NOW())",
+			[org]
+		);
+		const survey = await q(
+			"INSERT INTO surveys (asset_id, title, survey_date, created_at, updated_at) VALUES (?, 'S', '2025-01-01', NOW(), NOW())",
+			[asset]
+		);
+		const member = async (label: string) =>
+			q(
+				"INSERT INTO members (survey_id, asset_id, label, member_type, face, exposure_class, requirement_source, c_min_mm, c_nom_mm, delta_c_dev_mm, created_at, updated_at) VALUES (?, ?, ?, 'slab', 'top', 'XC3', 'EN 1992-1-1', 25, 35, 10, NOW(), NOW())",
+				[survey, asset, label]
+			);
+		// Migration 012's fixed form: int32 step, uint32 count, little-endian. Steps of 0.1 mm,
+		// one of them far from the rest and a count past one varint byte.
+		const entries: [number, number][] = [
+			[281, 3],
+			[282, 1],
+			[290, 200],
+			[1234, 70000]
+		];
+		const fixed = Buffer.alloc(entries.length * 8);
+		entries.forEach(([k, n], i) => {
+			fixed.writeInt32LE(k, i * 8);
+			fixed.writeUInt32LE(n, i * 8 + 4);
+		});
+		const offGrid = Buffer.alloc(12);
+		offGrid.writeDoubleLE(0.1 + 0.2, 0);
+		offGrid.writeUInt32LE(2, 8);
+		const onGridId = await member('on grid');
+		const offGridId = await member('off grid');
+		await q(
+			"INSERT INTO member_cover_sets (member_id, reading_count, covers_mm, grid_den, grid_factor, distinct_covers, cover_counts) VALUES (?, 70204, '', 10, 1, 4, ?), (?, 2, '', NULL, NULL, 1, ?)",
+			[onGridId, fixed, offGridId, offGrid]
+		);
+		const stored = async () =>
+			new Map(
+				(
+					await scratch.sequelize.query<{ id: number; counts: Buffer }>(
+						'SELECT member_id AS id, cover_counts AS counts FROM member_cover_sets',
+						{ type: QueryTypes.SELECT }
+					)
+				).map((r) => [Number(r.id), Buffer.from(r.counts)])
+			);
+
+		await migrator.up({ to: '017-shorter-cover-counts' });
+		const after = await stored();
+		const grid = { den: 10, factor: 1 };
+		// What the live codec writes for the same counts, and what it reads back.
+		const { encodeCounts, decodeCounts } =
+			await import('../../src/lib/server/readings/coverCountCodec');
+		const sample = decodeCounts(after.get(onGridId)!, grid);
+		expect(Array.from(sample.lattice!.steps)).toEqual(entries.map(([k]) => k));
+		expect(Array.from(sample.counts)).toEqual(entries.map(([, n]) => n));
+		expect(after.get(onGridId)!.equals(encodeCounts(sample).bytes)).toBe(true);
+		// ZigZag(281) = 562 = 0xb2 0x04; gaps 0, 7, 943 (0xaf 0x07); 200 = 0xc8 0x01;
+		// 70000 = 0xf0 0xa2 0x04 (LEB128, Protocol Buffers encoding guide's rule).
+		expect(after.get(onGridId)!.toString('hex')).toBe('b20403' + '0001' + '07c801' + 'af07f0a204');
+		expect(after.get(offGridId)!.equals(offGrid)).toBe(true);
+
+		await migrator.down({ to: '017-shorter-cover-counts' });
+		const back = await stored();
+		expect(back.get(onGridId)!.equals(fixed)).toBe(true);
+		expect(back.get(offGridId)!.equals(offGrid)).toBe(true);
+	});
+});

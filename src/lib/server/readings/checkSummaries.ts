@@ -5,7 +5,7 @@
  */
 import { QueryTypes, type Sequelize } from 'sequelize';
 import { countedFromSorted } from '../../analysis/countedSample';
-import { decodeCounts } from './coverCountCodec';
+import { decodeCounts, encodeCounts } from './coverCountCodec';
 import { decodeCovers } from './coverSetCodec';
 
 export interface SummaryMismatch {
@@ -97,6 +97,8 @@ export async function checkCoverSummaries(sequelize: Sequelize): Promise<Summary
 					bad(`distinct_covers ${row.distinct}, readings give ${rebuilt.values.length}`);
 				if (!sameArray(stored.values, rebuilt.values) || !sameArray(stored.counts, rebuilt.counts))
 					bad('cover counts differ from readings');
+				else if (!Buffer.from(row.counts).equals(encodeCounts(rebuilt).bytes))
+					bad('cover counts are not in the form the codec writes');
 			}
 		});
 	}

@@ -1,5 +1,6 @@
 import { QueryTypes, type Sequelize } from 'sequelize';
 import { countedFromTally, gridValue, type CountedSample, type CoverGrid } from '$lib/analysis';
+import { gridCountsBuffer, readGridCounts } from '../readings/coverCountCodec';
 import { readCoverCounts } from '../readings/coverSets';
 import type { GroupKey, ResearchFilter } from './filter';
 import { constructionDecade } from './pseudonym';
@@ -156,12 +157,16 @@ function emptyGroup(key: GroupValues['key']): GroupValues {
 	};
 }
 
-/** A member's counts as stored on its grid (int32 step, uint32 count, 8 bytes an entry) added in. */
+/** Decoded grid counts of the row being added; one per process, grown as rows need. */
+const decoded = gridCountsBuffer();
+
+/** A member's counts as stored on its grid (coverCountCodec.ts) added in; returns its readings. */
 function addOnGrid(gathering: Gathering, row: CountRow, grid: CoverGrid, bytes: Buffer): number {
-	const entries = bytes.length / 8;
+	const entries = readGridCounts(bytes, decoded);
 	if (entries === 0) return 0;
-	const lo = bytes.readInt32LE(0);
-	const hi = bytes.readInt32LE((entries - 1) * 8);
+	const { steps, counts } = decoded;
+	const lo = steps[0];
+	const hi = steps[entries - 1];
 	const name = `${grid.den}:${grid.factor}:${row.cNomMm}:${row.cMinMm}`;
 	let at = gathering.steps.get(name);
 	if (!at) {
@@ -177,18 +182,12 @@ function addOnGrid(gathering: Gathering, row: CountRow, grid: CoverGrid, bytes: 
 		at.counts = grown;
 		at.offset = from;
 	}
-	// Whole-word views of the entries (little-endian, as every platform Node runs on): a
-	// per-entry Buffer read cost about half the gathering at 10^8 readings. A row's bytes may
-	// start off a 4-byte boundary, then they are copied once.
-	const aligned = bytes.byteOffset % 4 === 0 ? bytes : Buffer.from(bytes);
-	const steps = new Int32Array(aligned.buffer, aligned.byteOffset, entries * 2);
-	const counts = new Uint32Array(aligned.buffer, aligned.byteOffset, entries * 2);
 	const into = at.counts;
 	const offset = at.offset;
 	let n = 0;
-	for (let i = 0; i < entries * 2; i += 2) {
-		into[steps[i] - offset] += counts[i + 1];
-		n += counts[i + 1];
+	for (let i = 0; i < entries; i++) {
+		into[steps[i] - offset] += counts[i];
+		n += counts[i];
 	}
 	return n;
 }

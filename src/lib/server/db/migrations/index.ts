@@ -14,6 +14,7 @@ import { surveyPlans } from './013-survey-plans';
 import { syncBatches } from './014-sync-batches';
 import { customPopulations } from './015-custom-populations';
 import { measurementImports } from './016-measurement-imports';
+import { shorterCoverCounts } from './017-shorter-cover-counts';
 import type { Migration } from './types';
 
 /**
@@ -36,5 +37,6 @@ export const migrations: Migration[] = [
 	surveyPlans,
 	syncBatches,
 	customPopulations,
-	measurementImports
+	measurementImports,
+	shorterCoverCounts
 ];
