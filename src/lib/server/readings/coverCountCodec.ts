@@ -124,11 +124,14 @@ export function readGridCounts(bytes: Uint8Array, into: GridCountsBuffer): numbe
 	return size;
 }
 
+/** decodeCounts' working space, reused from row to row (it copies out what it returns). */
+const scratch = gridCountsBuffer();
+
 /** A counted sample back from its stored form; throws on bytes that are not whole entries. */
 export function decodeCounts(bytes: Uint8Array, grid: CoverGrid | null): CountedSample {
 	if (grid) {
-		const buffer = gridCountsBuffer(bytes.length >> 1);
-		const size = readGridCounts(bytes, buffer);
+		const size = readGridCounts(bytes, scratch);
+		const buffer = scratch;
 		const steps = Float64Array.from(buffer.steps.subarray(0, size));
 		const counts = buffer.counts.slice(0, size);
 		const values = new Float64Array(size);

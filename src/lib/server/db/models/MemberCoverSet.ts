@@ -23,7 +23,7 @@ export class MemberCoverSet extends Model<
 	declare gridDen: CreationOptional<number | null>;
 	declare gridFactor: CreationOptional<number | null>;
 	declare distinctCovers: CreationOptional<number>;
-	/** Counts of each distinct cover (readings/coverCountCodec.ts, migration 012); null until written. */
+	/** Counts of each distinct cover (readings/coverCountCodec.ts; migrations 012 and 017); null until written. */
 	declare coverCounts: CreationOptional<Buffer | null>;
 	declare updatedAt: CreationOptional<Date>;
 
