@@ -1,4 +1,4 @@
-// Rebuilds every member's cover set and cover counts from the readings and compares them with
+// Rebuilds every member's reading count and cover counts from the readings and compares them with
 // the stored ones: `npm run db:check-summaries`. Exit code 1 on any difference.
 import { createSequelize, readDatabaseSettings } from '../src/lib/server/db/connection';
 import { checkCoverSummaries } from '../src/lib/server/readings/checkSummaries';

@@ -37,7 +37,7 @@ wsrep_status() { on_node "$1" -N -e "SHOW STATUS LIKE '$2'" 2>/dev/null | cut -f
 #   certify statement-based or table-locking auto-increment writes;
 # - wsrep_max_ws_rows=0 (no row limit) and wsrep_max_ws_size=2 GB, both set on purpose: an
 #   import writes up to 2,000,000 readings in ONE transaction (src/lib/server/import/limits.ts),
-#   about 200 MB of row images with its cover sets; a lower limit would fail large imports
+#   a write-set of its rows and their summary rows in the hundreds of MB; a lower limit would fail large imports
 #   whole (never half: the transaction rolls back), so the limits stay above the import's;
 # - wsrep_load_data_splitting stays at its default OFF: ON would commit LOAD DATA every 10,000
 #   rows, and an import that then failed would leave part of its readings;

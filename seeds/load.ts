@@ -14,7 +14,7 @@ import {
 } from '../src/lib/server/db/models';
 import { READING_INSERT_FIELDS } from '../src/lib/server/db/models/Reading';
 import { useDatabase } from '../src/lib/server/db';
-import { rebuildCoverSets } from '../src/lib/server/readings/coverSets';
+import { rebuildCoverCounts } from '../src/lib/server/readings/coverSets';
 import { signOffDemoAssessments } from './assessments';
 import { loadDemoMeasurements } from './loadMeasurements';
 import { generateHoles, generateReadings, specifiedCover } from './generate';
@@ -253,8 +253,8 @@ async function loadSurvey(
 		},
 		{ transaction }
 	);
-	// The members' cover sets, as an import keeps them (src/lib/server/readings/coverSets.ts).
-	await rebuildCoverSets(
+	// The members' summary rows, as an import keeps them (src/lib/server/readings/coverSets.ts).
+	await rebuildCoverCounts(
 		transaction,
 		memberReadings.map((m) => m.memberId)
 	);

@@ -1,4 +1,4 @@
-import { rebuildCoverSets } from '../../src/lib/server/readings/coverSets';
+import { rebuildCoverCounts } from '../../src/lib/server/readings/coverSets';
 import { QueryTypes, type Sequelize } from 'sequelize';
 import { createApiToken } from '../../src/lib/server/auth/apiTokens';
 import {
@@ -76,9 +76,9 @@ export async function loadBenchData(sequelize: Sequelize, readings: number): Pro
 		   FROM seq_1_to_${readings}`,
 		{ type: QueryTypes.INSERT, replacements: { first: firstMemberId } }
 	);
-	// Their cover sets, as an import keeps them (the statistics read these).
+	// Their summary rows, as an import keeps them (the statistics read these).
 	await sequelize.transaction((t) =>
-		rebuildCoverSets(
+		rebuildCoverCounts(
 			t,
 			members.map((m) => m.id)
 		)

@@ -110,7 +110,7 @@ it('measures the population pages', { timeout: 1_800_000 }, async () => {
 					ids.push(id as number);
 				}
 				await q(
-					`INSERT INTO member_cover_sets (member_id, reading_count, covers_mm, grid_den, grid_factor, distinct_covers, cover_counts) VALUES ${ids.map(() => "(?, ?, '', ?, ?, ?, ?)").join(', ')}`,
+					`INSERT INTO member_cover_sets (member_id, reading_count, grid_den, grid_factor, distinct_covers, cover_counts) VALUES ${ids.map(() => '(?, ?, ?, ?, ?, ?)').join(', ')}`,
 					ids.flatMap((id, m) => [id, ...rows.slice(m * 5, m * 5 + 5)])
 				);
 			}

@@ -1,9 +1,9 @@
 /**
  * Research statistics over a large stock, read from the members' cover counts.
- * `npm run bench:summaries -- [readings] [structures]` (defaults 10^7 and 1,000): generates the
- * readings straight into MariaDB with its sequence engine (seq_1_to_N, 10 members a structure,
- * covers on a 0.1 mm grid), builds every member's summaries as an import does
- * (rebuildCoverSets: cover set and counts), then times the service call behind
+ * `npm run bench:summaries -- [readings] [structures] [members a structure]` (defaults 10^7,
+ * 1,000 and 100): generates the readings straight into MariaDB with its sequence engine
+ * (seq_1_to_N, covers on a 0.1 mm grid), builds every member's summary row (reading count and
+ * cover counts) by SQL with the bytes the app writes, then times the service call behind
  * GET /api/v1/research/statistics (grouped by member type and exposure, no charts) and the
  * process's peak RSS. Prints generation time and the tables' size on disk. Runs against the
  * test database named in .env.test (FRACTILE_ENV_FILE); drop it after (bash scripts/db.sh recreate test).
@@ -142,15 +142,6 @@ async function generateReadings(memberIds: number[]) {
 	const idBase = Number(maxId ?? 0) - done * perMember;
 	const raw = (sql: string, replacements?: Record<string, number>, transaction?: Transaction) =>
 		sequelize.query(sql, { type: QueryTypes.RAW, transaction, replacements });
-	// Each grid step's stored double (8 bytes, little-endian), as encodeCovers writes it.
-	await raw('DROP TABLE IF EXISTS bench_step_bytes');
-	await raw('CREATE TABLE bench_step_bytes (k INT PRIMARY KEY, le8 BINARY(8) NOT NULL)');
-	const steps = Array.from({ length: 1000 }, (_, k) => {
-		const b = Buffer.alloc(8);
-		b.writeDoubleLE(k / 10);
-		return `(${k}, x'${b.toString('hex')}')`;
-	});
-	await raw(`INSERT INTO bench_step_bytes VALUES ${steps.join(',')}`);
 	const membersPerBatch = Math.max(1, Math.floor(2_000_000 / perMember));
 	let rowsMs = 0;
 	let summariesMs = 0;
@@ -181,14 +172,13 @@ async function generateReadings(memberIds: number[]) {
 			const t1 = performance.now();
 			if (PHASE !== 'rows')
 				await raw(
-					`INSERT INTO member_cover_sets (member_id, reading_count, covers_mm, grid_den, grid_factor, distinct_covers, cover_counts)
-				 SELECT c.member_id, SUM(c.n), GROUP_CONCAT(REPEAT(b.le8, c.n) ORDER BY c.k SEPARATOR ''), 10, 1, COUNT(*),
+					`INSERT INTO member_cover_sets (member_id, reading_count, grid_den, grid_factor, distinct_covers, cover_counts)
+				 SELECT c.member_id, SUM(c.n), 10, 1, COUNT(*),
 				        GROUP_CONCAT(${varintSql('c.gap')}, ${varintSql('c.n')} ORDER BY c.k SEPARATOR '')
 				   FROM (SELECT member_id, k, n, IF(prev IS NULL, 2 * k, k - prev - 1) AS gap
 				           FROM (SELECT member_id, k, n, LAG(k) OVER (PARTITION BY member_id ORDER BY k) AS prev
 				                   FROM (SELECT member_id, CAST(ROUND(cover_mm * 10) AS SIGNED) AS k, COUNT(*) AS n FROM readings
 				                          WHERE member_id BETWEEN :lo AND :hi GROUP BY member_id, k) g) w) c
-				   JOIN bench_step_bytes b ON b.k = c.k
 				  GROUP BY c.member_id`,
 					{ lo: memberIds[m], hi: memberIds[m + members - 1] },
 					t
@@ -200,7 +190,6 @@ async function generateReadings(memberIds: number[]) {
 			`  ${m + members} of ${memberIds.length} members: rows ${(rowsMs / 1000).toFixed(0)} s, summaries ${(summariesMs / 1000).toFixed(0)} s`
 		);
 	}
-	await raw('DROP TABLE bench_step_bytes');
 	// Later app writes take ids after the generated ones.
 	if (PHASE !== 'summaries') await raw(`SELECT SETVAL(reading_ids, ${idBase + READINGS})`);
 	console.log(

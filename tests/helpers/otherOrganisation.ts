@@ -4,7 +4,7 @@
  * survey, member and readings by SQL (intake's pages may not exist yet) and a verification hole,
  * and an assessment and an API token made through the API as that admin would.
  */
-import { rebuildCoverSets } from '../../src/lib/server/readings/coverSets';
+import { rebuildCoverCounts } from '../../src/lib/server/readings/coverSets';
 import { QueryTypes, type Sequelize } from 'sequelize';
 import { randomBytes } from 'node:crypto';
 import { signUpNewOrganisation } from './accounts';
@@ -85,7 +85,7 @@ async function copyRecords(sequelize: Sequelize, organisationId: number, marker:
 		   FROM readings WHERE member_id = ?`,
 		{ replacements: [memberId, source.id], type: QueryTypes.INSERT }
 	);
-	await sequelize.transaction((transaction) => rebuildCoverSets(transaction, [memberId]));
+	await sequelize.transaction((transaction) => rebuildCoverCounts(transaction, [memberId]));
 	const holeId = await insert(
 		sequelize,
 		`INSERT INTO verification_holes (member_id, label, x_mm, y_mm, meter_reading_mm,

@@ -1,12 +1,12 @@
 /**
  * Readings written straight into the database for tests that need "a later import" without the
  * upload pages, kept as the import keeps them: one transaction with a batch, its id range and
- * the members' cover sets (src/lib/server/readings/coverSets.ts).
+ * the members' summary rows (src/lib/server/readings/coverSets.ts).
  */
 import { QueryTypes } from 'sequelize';
 import { ImportBatch, Reading } from '../../src/lib/server/db/models';
 import { READING_INSERT_FIELDS } from '../../src/lib/server/db/models/Reading';
-import { rebuildCoverSets } from '../../src/lib/server/readings/coverSets';
+import { rebuildCoverCounts } from '../../src/lib/server/readings/coverSets';
 
 export interface TestReading {
 	xMm: number;
@@ -54,12 +54,12 @@ export async function addReadings(
 			{ replacements: [memberId, batch.id], type: QueryTypes.SELECT, transaction }
 		);
 		await batch.update({ firstReadingId: range.first, lastReadingId: range.last }, { transaction });
-		await rebuildCoverSets(transaction, [memberId]);
+		await rebuildCoverCounts(transaction, [memberId]);
 		return batch.id;
 	});
 }
 
-/** Takes a batch from addReadings away again (readings, cover sets, the batch itself). */
+/** Takes a batch from addReadings away again (readings, summary rows, the batch itself). */
 export async function removeReadings(batchId: number): Promise<void> {
 	const sequelize = Reading.sequelize!;
 	await sequelize.transaction(async (transaction) => {
@@ -71,7 +71,7 @@ export async function removeReadings(batchId: number): Promise<void> {
 			transaction
 		});
 		await Reading.destroy({ where: { importBatchId: batchId }, transaction });
-		await rebuildCoverSets(
+		await rebuildCoverCounts(
 			transaction,
 			rows.map((r) => r.memberId)
 		);

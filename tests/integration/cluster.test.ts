@@ -12,7 +12,8 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { createSequelize, readDatabaseSettings } from '../../src/lib/server/db/connection';
 import { createMigrator } from '../../src/lib/server/db/migrator';
 import { ImportProgress, initModels, Member, MemberCoverSet } from '../../src/lib/server/db/models';
-import { decodeCovers } from '../../src/lib/server/readings/coverSetCodec';
+import { expandCounted } from '../../src/lib/analysis';
+import { decodeCounts } from '../../src/lib/server/readings/coverCountCodec';
 import { clearAllData, isDatabaseEmpty, loadDemoScenario } from '../../seeds/load';
 import {
 	importEnded,
@@ -90,8 +91,8 @@ async function doubledReadings(sequelize: Sequelize, surveyId: number): Promise<
 	return Number(row.n);
 }
 
-/** Every member's stored cover set equals its readings' covers, as a multiset, to the bit. */
-async function expectCoverSetsInStep(sequelize: Sequelize, surveyId: number) {
+/** Every member's stored cover counts equal its readings' covers, as a multiset, to the bit. */
+async function expectCountsInStep(sequelize: Sequelize, surveyId: number) {
 	const members = await Member.findAll({ where: { surveyId }, attributes: ['id'] });
 	for (const { id } of members) {
 		const rows = await sequelize.query<{ c: number }>(
@@ -99,7 +100,13 @@ async function expectCoverSetsInStep(sequelize: Sequelize, surveyId: number) {
 			{ replacements: [id], type: QueryTypes.SELECT }
 		);
 		const stored = await MemberCoverSet.findByPk(id);
-		const covers = stored ? Array.from(decodeCovers(stored.coversMm)) : [];
+		const grid =
+			stored?.gridDen == null || stored.gridFactor == null
+				? null
+				: { den: Number(stored.gridDen), factor: Number(stored.gridFactor) };
+		const covers = stored?.coverCounts
+			? Array.from(expandCounted(decodeCounts(stored.coverCounts, grid)))
+			: [];
 		expect(covers, `member ${id}`).toEqual(rows.map((r) => Number(r.c)));
 		if (stored) expect(stored.readingCount).toBe(covers.length);
 	}
@@ -229,7 +236,7 @@ describe('two app processes on a three-node Galera cluster', () => {
 		for (const { survey } of [one, two]) {
 			expect(await countReadings(sequelize, { surveyId: survey.id })).toBe(ROWS);
 			expect(await doubledReadings(sequelize, survey.id)).toBe(0);
-			await expectCoverSetsInStep(sequelize, survey.id);
+			await expectCountsInStep(sequelize, survey.id);
 		}
 		// Ids drawn on different nodes never collide (the sequence steps by node offset).
 		const [ids] = await sequelize.query<{ n: number; distinctIds: number }>(

@@ -1,6 +1,5 @@
 import { QueryTypes } from 'sequelize';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { decodeCovers } from '../../src/lib/server/readings/coverSetCodec';
 import { createMigrator } from '../../src/lib/server/db/migrator';
 import { migrations } from '../../src/lib/server/db/migrations';
 import {
@@ -108,6 +107,13 @@ describe('migrations on a fresh database', () => {
 	});
 });
 
+/** Migration 009's cover set: 8-byte little-endian doubles (IEEE 754 binary64), sorted. */
+function decodeCovers(bytes: Buffer): number[] {
+	const out: number[] = [];
+	for (let at = 0; at < bytes.length; at += 8) out.push(bytes.readDoubleLE(at));
+	return out;
+}
+
 describe('migration 009 on a database that already holds readings', () => {
 	let scratch: Awaited<ReturnType<typeof scratchDatabase>>;
 	beforeAll(async () => {
@@ -157,7 +163,7 @@ describe('migration 009 on a database that already holds readings', () => {
 			'SELECT reading_count AS n, covers_mm AS covers FROM member_cover_sets'
 		);
 		expect(Number(set.n)).toBe(5);
-		expect(Array.from(decodeCovers(set.covers))).toEqual([...covers].sort((a, b) => a - b));
+		expect(decodeCovers(set.covers)).toEqual([...covers].sort((a, b) => a - b));
 		const [range] = await select<{ first: number; last: number }>(
 			'SELECT first_reading_id AS first, last_reading_id AS last FROM import_batches'
 		);

@@ -64,7 +64,7 @@ describe('the check-hole calibration chosen over the population detail API', () 
 			holes.map((h) => h.r),
 			holes.map((h) => h.m)
 		);
-		// The engine on readings and holes read by SQL here (the service reads cover sets).
+		// The engine on readings and holes read by SQL here (the service reads cover counts).
 		const engine = assessCalibrated(covers, calibration, body.population.requirement.requirement, {
 			fractileP: 0.05,
 			confidence: 0.95,

@@ -19,7 +19,7 @@ import { anonymousClient, signInAs, type HttpClient } from '../helpers/session';
 
 const JSON_ACCEPT = { accept: 'application/json' };
 
-/** One member's covers straight from the readings table (not the cover sets the service reads). */
+/** One member's covers straight from the readings table (not the cover counts the service reads). */
 async function memberReadings(sequelize: Sequelize, memberId: number): Promise<Float64Array> {
 	const rows = await sequelize.query<{ c: number }>(
 		'SELECT cover_mm AS c FROM readings WHERE member_id = ?',

@@ -2,7 +2,7 @@ import { QueryTypes, type Sequelize } from 'sequelize';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { assessPopulation, enRequirement } from '../../src/lib/analysis';
 import { db, closeDb } from '../../src/lib/server/db';
-import { COVER_SETS_SQL } from '../../src/lib/server/readings/coverSets';
+import { COVER_COUNTS_SQL } from '../../src/lib/server/readings/coverSets';
 import {
 	methodSchema,
 	populationDetail,
@@ -82,13 +82,13 @@ describe('the population service on the demo data', () => {
 		expect(roof.assessment!.options.fractileP).toBe(0.1);
 	});
 
-	it('reads the covers as one cover-set row a member, by primary key, without a filesort', async () => {
+	it('reads the covers as one summary row a member, by primary key, without a filesort', async () => {
 		const ids = await sequelize.query<{ id: number }>('SELECT id FROM members WHERE asset_id = ?', {
 			replacements: [carParkId],
 			type: QueryTypes.SELECT
 		});
 		const plan = await sequelize.query<{ key: string; Extra: string; rows: number }>(
-			`EXPLAIN ${COVER_SETS_SQL}`,
+			`EXPLAIN ${COVER_COUNTS_SQL}`,
 			{ replacements: { part: ids.map((r) => r.id) }, type: QueryTypes.SELECT }
 		);
 		expect(plan[0].key).toBe('PRIMARY');

@@ -70,8 +70,8 @@ export function toSortedValues(valuesMm: readonly number[] | Float64Array): Floa
  * Copy readings into a new Float64Array sorted ascending (numeric sort, no comparator).
  *
  * Definition: the order statistics x(1) ≤ … ≤ x(n) of the readings. Units are kept (mm).
- * Cost: O(n log n) once, O(n) when the readings come already in order (the population pages
- * pass members' stored cover sets merged in order); every later step takes the sorted array
+ * Cost: O(n log n) once, O(n) when the readings come already in order; every later step takes
+ * the sorted array
  * and does not sort again. The caller's array is never changed. Throws, naming the reading,
  * on one that is not a finite number (an empty string or null is not read as 0 mm) or is
  * negative.

@@ -176,8 +176,8 @@ describe('member cover counts stay equal to the readings', () => {
 			stderr: expect.stringContaining(`member ${members[0].id}: cover counts not written`)
 		});
 		// Repaired by rebuilding, the check passes again.
-		const { rebuildCoverSets } = await import('../../../src/lib/server/readings/coverSets');
-		await sequelize.transaction((t) => rebuildCoverSets(t, [members[0].id]));
+		const { rebuildCoverCounts } = await import('../../../src/lib/server/readings/coverSets');
+		await sequelize.transaction((t) => rebuildCoverCounts(t, [members[0].id]));
 		await expectAllInStep(sequelize);
 		const { stdout } = await promisify(execFile)('npx', ['tsx', 'scripts/check-summaries.ts'], {
 			env: process.env

@@ -56,7 +56,9 @@ describe('import lifecycle: duplicates, undo, cancel, a lost connection, frozen 
 	}
 
 	async function waitForRows(batchId: number, rows: number) {
-		for (let i = 0; i < 500; i++) {
+		// By the clock, not a count of polls: under a whole suite's load a poll can take longer.
+		const deadline = Date.now() + 30_000;
+		while (Date.now() < deadline) {
 			const p = await ImportProgress.findByPk(batchId);
 			if (p && p.rowsRead >= rows && p.connectionId) return p;
 			await new Promise((r) => setTimeout(r, 10));

@@ -8,7 +8,7 @@ import {
 	Member,
 	Reading
 } from '../db/models';
-import { rebuildCoverSets } from '../readings/coverSets';
+import { rebuildCoverCounts } from '../readings/coverSets';
 import { recordAudit } from '../audit';
 import { StateError } from '../domainErrors';
 import { assertSurveyEditable } from '../intake/frozen';
@@ -59,7 +59,7 @@ function batchReadingsWhere(batch: ImportBatch, surveyMemberIds: number[]) {
 	};
 }
 
-/** Deletes the batch's readings and rebuilds the cover sets of the members they belonged to. */
+/** Deletes the batch's readings and recounts the summary rows of the members they belonged to. */
 async function deleteBatchReadings(batch: ImportBatch, transaction: Transaction): Promise<number> {
 	const sequelize = ImportBatch.sequelize!;
 	const members = await Member.findAll({
@@ -76,7 +76,7 @@ async function deleteBatchReadings(batch: ImportBatch, transaction: Transaction)
 		{ type: QueryTypes.SELECT, replacements: where.replacements, transaction }
 	);
 	const deleted = await Reading.destroy({ where: where.where, transaction });
-	await rebuildCoverSets(
+	await rebuildCoverCounts(
 		transaction,
 		touched.map((t) => t.memberId)
 	);

@@ -3,7 +3,7 @@ import { counted } from '$lib/format';
 import { ImportBatch } from '../db/models';
 import type { ImportState } from '../db/models/ImportBatch';
 import { recordAudit } from '../audit';
-import { mergeIntoCoverSets } from '../readings/coverSets';
+import { mergeIntoCoverCounts } from '../readings/coverSets';
 import { ImportError } from './errors';
 import { unitOf } from './mapping';
 import type { ImportJob, ImportTally } from './job';
@@ -86,7 +86,7 @@ function warningsFor(job: ImportJob, tally: ImportTally): string[] {
 }
 
 /**
- * Commits the batch with its final state, the members' cover sets and its audit event, or
+ * Commits the batch with its final state, the members' cover counts and its audit event, or
  * throws the blocking problem.
  */
 export async function finishImport(
@@ -98,7 +98,7 @@ export async function finishImport(
 	const problem = blockingProblem(job, tally);
 	if (problem) throw problem;
 	const warnings = warningsFor(job, tally);
-	await mergeIntoCoverSets(transaction, tally.covers.sortedByMember());
+	await mergeIntoCoverCounts(transaction, tally.covers.sortedByMember());
 	// Only from running: a batch another process has meanwhile failed (its sweep saw a stopped
 	// heartbeat) or that was never claimed is not completed behind its back.
 	const [updated] = await ImportBatch.update(

@@ -1,6 +1,6 @@
 import type { Readable } from 'node:stream';
 import type { Transaction } from 'sequelize';
-import type { CoverCollector } from '../readings/coverSetCodec';
+import type { CoverCollector } from '../readings/coverCollector';
 import type { ColumnMapping, ImportOptions } from './mapping';
 import type { ProgressCounts } from './progress';
 import type { RejectedRows } from './rejected';
@@ -45,7 +45,7 @@ export interface ImportTally extends ProgressCounts {
 	rejected: RejectedRows;
 	headers: string[];
 	smallCovers: number;
-	/** The covers written, by member, for the members' cover sets. */
+	/** The covers written, by member, for the members' cover counts. */
 	covers: CoverCollector;
 	/** What the reader noticed about the file as a whole (other sheets of a workbook). */
 	sourceWarnings: string[];

@@ -13,7 +13,7 @@ import type { RecordBatch } from './records';
 import { csvRecordBatches, xlsxRecordBatches } from './sources';
 import type { SourceFormat } from './sniff';
 import { createRowValidator, labelKey } from './validateRow';
-import { CoverCollector } from '../readings/coverSetCodec';
+import { CoverCollector } from '../readings/coverCollector';
 import {
 	chooseWriteMethod,
 	connectionOf,

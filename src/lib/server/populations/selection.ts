@@ -109,7 +109,7 @@ export async function surveySelection(
 	};
 }
 
-/** How many readings the members of these surveys hold (from the cover sets: one row a member). */
+/** How many readings the members of these surveys hold (from the summary rows: one row a member). */
 export async function readingCountOf(
 	assetId: number,
 	surveyIds: readonly number[]

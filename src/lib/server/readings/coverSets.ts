@@ -1,20 +1,24 @@
 /**
- * Member cover sets: each member's covers kept beside its readings, sorted, in one row
- * (member_cover_sets, migration 009), and in the same row as counts of each distinct cover on
- * the meter's grid (migration 012, coverCountCodec.ts), which population statistics read. Every write of readings updates them in the same
- * transaction (import: merge; undo: rebuild), so the population overview reads one short row a
- * member instead of a million readings (docs/performance.md, "Pages").
- * The invariant: a member with readings has a row holding exactly their covers. Migration 009
- * filled the rows for readings written before; seeds call rebuildCoverSets. A member without a
- * row is read from its readings on the fly, never taken as empty.
+ * Each member's summary row (member_cover_sets): its reading count and the count of each
+ * distinct cover (coverCountCodec.ts), which every population statistic reads. Every write of
+ * readings updates the row in the same transaction under its row lock (import: the new covers'
+ * counts added; undo, edits and deletes: recounted from the readings), so the population overview
+ * reads one short row a member instead of its readings (docs/performance.md, "Pages").
+ * The invariant: a member with readings has a row whose counts are exactly its covers'. The
+ * sorted covers themselves (8 bytes a reading, migration 009) were kept here until migration
+ * 018; nothing read them but the write path. A member without a row, or one whose counts were
+ * never written (stored before migration 012), is counted from its readings on the fly, never
+ * taken as empty.
  */
 import { QueryTypes, type Sequelize, type Transaction } from 'sequelize';
-import { type CountedSample, countedFromSorted } from '../../analysis/countedSample';
+import {
+	type CountedSample,
+	countedFromSorted,
+	countedFromTally,
+	mergeCounted
+} from '../../analysis/countedSample';
 import { MemberCoverSet } from '../db/models';
-import { decodeCounts, encodeSortedCovers } from './coverCountCodec';
-import { decodeCovers, encodeCovers, mergeSorted } from './coverSetCodec';
-
-type CoverSetRow = { memberId: number; covers: Buffer | Uint8Array };
+import { decodeCounts, encodeCounts } from './coverCountCodec';
 
 /** The models' Sequelize instance (scripts and seeds bind models without the app's db()). */
 function db(): Sequelize {
@@ -58,42 +62,6 @@ async function coversFromReadings(
 }
 
 /** One row a member, read by primary key (EXPLAIN in tests/integration/populations.test.ts). */
-export const COVER_SETS_SQL =
-	'SELECT member_id AS memberId, covers_mm AS covers FROM member_cover_sets WHERE member_id IN (:part)';
-
-/**
- * Every cover of the given members, sorted, by member id; members with no readings are absent.
- * Reads run on a replica when there is one (the covers of a committed import replicate with it).
- */
-export async function readCoverSets(
-	memberIds: readonly number[],
-	transaction?: Transaction
-): Promise<Map<number, Float64Array>> {
-	const sequelize = db();
-	const out = new Map<number, Float64Array>();
-	const ids = ascending(memberIds);
-	const stored = new Set<number>();
-	for (const part of chunks(ids)) {
-		const rows = await sequelize.query<CoverSetRow>(COVER_SETS_SQL, {
-			type: QueryTypes.SELECT,
-			replacements: { part },
-			transaction
-		});
-		for (const row of rows) {
-			stored.add(row.memberId);
-			const covers = decodeCovers(row.covers);
-			if (covers.length > 0) out.set(row.memberId, covers);
-		}
-	}
-	const missing = ids.filter((id) => !stored.has(id));
-	if (missing.length > 0) {
-		for (const [id, covers] of await coversFromReadings(sequelize, missing, transaction))
-			out.set(id, covers);
-	}
-	return out;
-}
-
-/** One row a member, only the counts (the covers blob stays unread). */
 export const COVER_COUNTS_SQL =
 	'SELECT member_id AS memberId, grid_den AS den, grid_factor AS factor, cover_counts AS counts FROM member_cover_sets WHERE member_id IN (:part)';
 
@@ -103,6 +71,12 @@ type CoverCountRow = {
 	factor: number | null;
 	counts: Buffer | Uint8Array | null;
 };
+
+/** A row's grid, or null off every grid. */
+const gridOf = (row: { den: number | null; factor: number | null }) =>
+	row.den === null || row.factor === null
+		? null
+		: { den: Number(row.den), factor: Number(row.factor) };
 
 /**
  * Each member's covers as counts of distinct values (analysis/countedSample.ts), by member id;
@@ -126,11 +100,7 @@ export async function readCoverCounts(
 		for (const row of rows) {
 			if (row.counts === null) continue;
 			stored.add(row.memberId);
-			const grid =
-				row.den === null || row.factor === null
-					? null
-					: { den: Number(row.den), factor: Number(row.factor) };
-			const counted = decodeCounts(row.counts, grid);
+			const counted = decodeCounts(row.counts, gridOf(row));
 			if (counted.n > 0) out.set(row.memberId, counted);
 		}
 	}
@@ -169,45 +139,52 @@ export async function readingCounts(memberIds: readonly number[]): Promise<Map<n
 	return counts;
 }
 
+/** A locked row's counts: stored, none yet (a new row), or to be recounted from the readings. */
+type LockedCounts = CountedSample | 'empty' | 'recount';
+
 /**
- * Locks the members' cover-set rows until the transaction ends, creating empty ones first, in
+ * Locks the members' summary rows until the transaction ends, creating empty ones first, in
  * ascending member order so that two imports into the same members queue rather than deadlock.
- * Answers the stored covers.
+ * Answers each row's stored counts, read under the lock (the latest committed, not the
+ * transaction's snapshot).
  */
-async function lockCoverSets(
+async function lockSummaries(
 	transaction: Transaction,
 	memberIds: readonly number[]
-): Promise<Map<number, Float64Array>> {
+): Promise<Map<number, LockedCounts>> {
 	const sequelize = db();
-	const locked = new Map<number, Float64Array>();
+	const locked = new Map<number, LockedCounts>();
 	for (const part of chunks(ascending(memberIds))) {
 		await sequelize.query(
-			`INSERT IGNORE INTO member_cover_sets (member_id, reading_count, covers_mm) VALUES ${part
-				.map(() => "(?, 0, '')")
+			`INSERT IGNORE INTO member_cover_sets (member_id, reading_count) VALUES ${part
+				.map(() => '(?, 0)')
 				.join(', ')}`,
 			{ type: QueryTypes.INSERT, replacements: part, transaction }
 		);
-		const rows = await sequelize.query<CoverSetRow>(
-			'SELECT member_id AS memberId, covers_mm AS covers FROM member_cover_sets WHERE member_id IN (:part) ORDER BY member_id FOR UPDATE',
+		const rows = await sequelize.query<CoverCountRow & { n: number }>(
+			`SELECT member_id AS memberId, reading_count AS n, grid_den AS den, grid_factor AS factor,
+			        cover_counts AS counts
+			   FROM member_cover_sets WHERE member_id IN (:part) ORDER BY member_id FOR UPDATE`,
 			{ type: QueryTypes.SELECT, replacements: { part }, transaction }
 		);
-		for (const row of rows) locked.set(row.memberId, decodeCovers(row.covers));
+		for (const row of rows) {
+			if (row.counts !== null) locked.set(row.memberId, decodeCounts(row.counts, gridOf(row)));
+			else locked.set(row.memberId, Number(row.n) === 0 ? 'empty' : 'recount');
+		}
 	}
 	return locked;
 }
 
-async function storeCoverSet(transaction: Transaction, memberId: number, covers: Float64Array) {
-	// The counts come from the same sorted covers in the same UPDATE: they cannot drift apart.
-	const counts = encodeSortedCovers(covers);
+async function storeCounts(transaction: Transaction, memberId: number, sample: CountedSample) {
+	const counts = encodeCounts(sample);
 	await db().query(
-		`UPDATE member_cover_sets SET reading_count = ?, covers_mm = ?, grid_den = ?, grid_factor = ?,
+		`UPDATE member_cover_sets SET reading_count = ?, grid_den = ?, grid_factor = ?,
 		        distinct_covers = ?, cover_counts = ?, updated_at = CURRENT_TIMESTAMP(3)
 		  WHERE member_id = ?`,
 		{
 			type: QueryTypes.UPDATE,
 			replacements: [
-				covers.length,
-				encodeCovers(covers),
+				sample.n,
 				counts.grid?.den ?? null,
 				counts.grid?.factor ?? null,
 				counts.distinct,
@@ -220,36 +197,50 @@ async function storeCoverSet(transaction: Transaction, memberId: number, covers:
 }
 
 /**
- * Adds newly written covers (sorted, by member id) to the members' cover sets, inside the
+ * Adds newly written covers (sorted, by member id) to the members' counts, inside the
  * transaction that wrote the readings. Locks the rows, so a concurrent import into the same
- * member waits and then merges into this one's result.
+ * member waits and then adds to this one's result. The cost is the member's distinct covers,
+ * not its readings: a hundred readings added to a member of a million rewrite a few kB.
  */
-export async function mergeIntoCoverSets(
+export async function mergeIntoCoverCounts(
 	transaction: Transaction,
 	additions: ReadonlyMap<number, Float64Array>
 ): Promise<void> {
 	if (additions.size === 0) return;
-	const current = await lockCoverSets(transaction, [...additions.keys()]);
+	const current = await lockSummaries(transaction, [...additions.keys()]);
+	const recount = [...additions.keys()].filter((id) => current.get(id) === 'recount');
+	// Counts never written: the readings, this transaction's included, give them whole.
+	const fresh = recount.length > 0 ? await coversFromReadings(db(), recount, transaction) : null;
 	for (const [memberId, added] of additions) {
-		await storeCoverSet(
-			transaction,
-			memberId,
-			mergeSorted(current.get(memberId) ?? new Float64Array(0), added)
-		);
+		const stored = current.get(memberId) ?? 'empty';
+		let counts: CountedSample;
+		if (stored === 'recount')
+			counts = countedFromSorted(fresh?.get(memberId) ?? new Float64Array(0));
+		else if (stored === 'empty') counts = countedFromSorted(added);
+		else {
+			// The grid found again on the union, as a count of all the covers at once would find it.
+			const merged = mergeCounted([stored, countedFromSorted(added)]);
+			counts = countedFromTally(
+				new Map(Array.from(merged.values, (v, i) => [v, merged.counts[i]]))
+			);
+		}
+		await storeCounts(transaction, memberId, counts);
 	}
 }
 
 /**
- * Recomputes the members' cover sets from their readings inside `transaction` (after an undo,
- * and for seeds and maintenance). Locks the rows first, so the readings read are final.
+ * Recounts the members' covers from their readings inside `transaction` (after an undo, an
+ * edit or a delete, and for seeds and maintenance). Locks the rows first, so the readings read
+ * are final.
  */
-export async function rebuildCoverSets(
+export async function rebuildCoverCounts(
 	transaction: Transaction,
 	memberIds: readonly number[]
 ): Promise<void> {
 	const ids = ascending(memberIds);
 	if (ids.length === 0) return;
-	await lockCoverSets(transaction, ids);
+	await lockSummaries(transaction, ids);
 	const fresh = await coversFromReadings(db(), ids, transaction);
-	for (const id of ids) await storeCoverSet(transaction, id, fresh.get(id) ?? new Float64Array(0));
+	for (const id of ids)
+		await storeCounts(transaction, id, countedFromSorted(fresh.get(id) ?? new Float64Array(0)));
 }

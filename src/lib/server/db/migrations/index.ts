@@ -15,6 +15,7 @@ import { syncBatches } from './014-sync-batches';
 import { customPopulations } from './015-custom-populations';
 import { measurementImports } from './016-measurement-imports';
 import { shorterCoverCounts } from './017-shorter-cover-counts';
+import { dropCoverSets } from './018-drop-cover-sets';
 import type { Migration } from './types';
 
 /**
@@ -38,5 +39,6 @@ export const migrations: Migration[] = [
 	syncBatches,
 	customPopulations,
 	measurementImports,
-	shorterCoverCounts
+	shorterCoverCounts,
+	dropCoverSets
 ];

@@ -8,7 +8,8 @@ import {
 } from 'sequelize';
 
 /**
- * A member's covers, sorted, kept beside its readings (migration 009). Written only through
+ * A member's summary row: its reading count and the count of each distinct cover (migrations
+ * 009, 012, 017, 018; the table keeps its first name). Written only through
  * src/lib/server/readings/coverSets.ts, which keeps it in step with the readings.
  */
 export class MemberCoverSet extends Model<
@@ -17,8 +18,6 @@ export class MemberCoverSet extends Model<
 > {
 	declare memberId: number;
 	declare readingCount: number;
-	/** IEEE 754 doubles, little-endian (readings/coverSetCodec.ts). */
-	declare coversMm: Buffer;
 	/** The meter's grid, cover = (k / gridDen) · gridFactor (analysis/coverGrid.ts); null off every grid. */
 	declare gridDen: CreationOptional<number | null>;
 	declare gridFactor: CreationOptional<number | null>;
@@ -32,7 +31,6 @@ export class MemberCoverSet extends Model<
 			{
 				memberId: { type: DataTypes.INTEGER.UNSIGNED, primaryKey: true },
 				readingCount: { type: DataTypes.INTEGER.UNSIGNED, allowNull: false },
-				coversMm: { type: DataTypes.BLOB('long'), allowNull: false },
 				gridDen: { type: DataTypes.INTEGER.UNSIGNED, allowNull: true },
 				gridFactor: { type: DataTypes.DOUBLE, allowNull: true },
 				distinctCovers: { type: DataTypes.INTEGER.UNSIGNED, allowNull: false, defaultValue: 0 },

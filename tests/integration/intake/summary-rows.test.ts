@@ -1,7 +1,7 @@
 /**
- * The members' cover sets (migration 009) hold exactly the covers of their readings after every
- * kind of write, since the population pages read them instead of the readings. Each check
- * compares the stored set with the readings table itself, as a multiset, to the bit.
+ * The members' summary rows hold exactly the counts of their readings' covers after every kind
+ * of write, since the population pages read them instead of the readings. Each check expands the
+ * stored counts and compares them with the readings table itself, as a multiset, to the bit.
  */
 import { Readable } from 'node:stream';
 import { QueryTypes, type Sequelize } from 'sequelize';
@@ -9,8 +9,9 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { ImportBatch, Member, MemberCoverSet } from '../../../src/lib/server/db/models';
 import { undoImport } from '../../../src/lib/server/import/batchActions';
 import { receiveUpload, startImport } from '../../../src/lib/server/import/batches';
-import { decodeCovers } from '../../../src/lib/server/readings/coverSetCodec';
-import { readCoverSets, rebuildCoverSets } from '../../../src/lib/server/readings/coverSets';
+import { expandCounted } from '../../../src/lib/analysis';
+import { decodeCounts } from '../../../src/lib/server/readings/coverCountCodec';
+import { readCoverCounts, rebuildCoverCounts } from '../../../src/lib/server/readings/coverSets';
 import type { Actor } from '../../../src/lib/server/policy';
 import {
 	actorFor,
@@ -36,7 +37,12 @@ async function readingCovers(sequelize: Sequelize, memberId: number): Promise<nu
 async function storedCovers(memberId: number): Promise<number[] | null> {
 	const row = await MemberCoverSet.findByPk(memberId);
 	if (!row) return null;
-	const covers = Array.from(decodeCovers(row.coversMm));
+	if (row.coverCounts === null) return null;
+	const grid =
+		row.gridDen === null || row.gridFactor === null
+			? null
+			: { den: Number(row.gridDen), factor: Number(row.gridFactor) };
+	const covers = Array.from(expandCounted(decodeCounts(row.coverCounts, grid)));
 	expect(row.readingCount).toBe(covers.length);
 	return covers;
 }
@@ -49,7 +55,7 @@ async function expectInStep(sequelize: Sequelize, memberIds: number[]) {
 	}
 }
 
-describe('member cover sets stay equal to the readings', () => {
+describe('member summary rows stay equal to the readings', () => {
 	let sequelize: Sequelize;
 	let actor: Actor;
 	beforeAll(async () => {
@@ -143,7 +149,7 @@ describe('member cover sets stay equal to the readings', () => {
 		await expectInStep(sequelize, ids);
 		expect(await undoImport(actor, second.batch.id)).toBe(3);
 		await expectInStep(sequelize, ids);
-		expect((await readCoverSets(ids)).size).toBe(0);
+		expect((await readCoverCounts(ids)).size).toBe(0);
 	});
 
 	it('when two imports into the same member run at once', async () => {
@@ -184,16 +190,27 @@ describe('member cover sets stay equal to the readings', () => {
 		expect(await ImportBatch.destroy({ where: { id: done.batch.id } })).toBe(1);
 	});
 
-	it('reads members whose readings predate their cover set from the readings themselves', async () => {
+	it('reads members whose readings predate their summary row from the readings themselves', async () => {
 		const { survey, members } = await freshSurvey(actor);
 		await importFile(actor, survey.id, 'old.csv', csv([HEADER, 'M-01,0,0,31', 'M-01,1,0,29']));
 		await MemberCoverSet.destroy({ where: { memberId: members[0].id } });
-		expect(Array.from((await readCoverSets([members[0].id])).get(members[0].id)!)).toEqual([
-			29, 31
-		]);
+		expect(Array.from((await readCoverCounts([members[0].id])).get(members[0].id)!.values)).toEqual(
+			[29, 31]
+		);
 		// Reading does not write; rebuilt here so the summaries check of other files finds every
 		// member in step (cover-counts.test.ts runs it over the whole database).
-		await sequelize.transaction((t) => rebuildCoverSets(t, [members[0].id]));
+		await sequelize.transaction((t) => rebuildCoverCounts(t, [members[0].id]));
 		expect(await MemberCoverSet.count({ where: { memberId: members[0].id } })).toBe(1);
+	});
+
+	it('counts a row written before counts were kept whole from the readings when an import adds to it', async () => {
+		const { survey, members } = await freshSurvey(actor);
+		const id = members[0].id;
+		await importFile(actor, survey.id, 'early.csv', csv([HEADER, 'M-01,0,0,31', 'M-01,1,0,29']));
+		// As migration 012 left a member stored before it: a reading count, no counts.
+		await MemberCoverSet.update({ coverCounts: null }, { where: { memberId: id } });
+		await importFile(actor, survey.id, 'later.csv', csv([HEADER, 'M-01,2,0,35']));
+		expect(await storedCovers(id)).toEqual([29, 31, 35]);
+		await expectInStep(sequelize, [id]);
 	});
 });
