@@ -1,4 +1,4 @@
-import { QueryTypes } from 'sequelize';
+import { QueryTypes, type Sequelize } from 'sequelize';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { createMigrator } from '../../src/lib/server/db/migrator';
 import { migrations } from '../../src/lib/server/db/migrations';
@@ -107,6 +107,37 @@ describe('migrations on a fresh database', () => {
 	});
 });
 
+/** An insert's new id, on a scratch database whose schema is part-way through the migrations. */
+function inserter(sequelize: Sequelize) {
+	return async (sql: string, replacements: unknown[] = []) =>
+		(await sequelize.query(sql, { replacements, type: QueryTypes.INSERT }))[0] as number;
+}
+
+/**
+ * An organisation, asset and survey written with SQL of the schema as 001–003 made it (the
+ * models describe the newest schema), returning a function that adds members to the survey.
+ */
+async function scratchSurvey(sequelize: Sequelize) {
+	const q = inserter(sequelize);
+	const org = await q(
+		"INSERT INTO organisations (name, slug, created_at, updated_at) VALUES ('Scratch', 'scratch', NOW(), NOW())"
+	);
+	const asset = await q(
+		"INSERT INTO assets (organisation_id, name, design_code, design_service_life_years, created_at, updated_at) VALUES (?, 'A', 'EN 1992-1-1', 50, NOW(), NOW())",
+		[org]
+	);
+	const survey = await q(
+		"INSERT INTO surveys (asset_id, title, survey_date, created_at, updated_at) VALUES (?, 'S', '2025-01-01', NOW(), NOW())",
+		[asset]
+	);
+	const member = (label: string) =>
+		q(
+			"INSERT INTO members (survey_id, asset_id, label, member_type, face, exposure_class, requirement_source, c_min_mm, c_nom_mm, delta_c_dev_mm, created_at, updated_at) VALUES (?, ?, ?, 'slab', 'top', 'XC3', 'EN 1992-1-1', 25, 35, 10, NOW(), NOW())",
+			[survey, asset, label]
+		);
+	return { survey, member };
+}
+
 /** Migration 009's cover set: 8-byte little-endian doubles (IEEE 754 binary64), sorted. */
 function decodeCovers(bytes: Buffer): number[] {
 	const out: number[] = [];
@@ -128,23 +159,9 @@ describe('migration 009 on a database that already holds readings', () => {
 	it('keeps every reading, fills the cover sets and batch ranges, and reverts', async () => {
 		const migrator = createMigrator(scratch.sequelize);
 		await migrator.up({ to: '008-intake-progress' });
-		const q = async (sql: string, replacements: unknown[] = []) =>
-			(await scratch.sequelize.query(sql, { replacements, type: QueryTypes.INSERT }))[0] as number;
-		const org = await q(
-			"INSERT INTO organisations (name, slug, created_at, updated_at) VALUES ('Scratch', 'scratch', NOW(), NOW())"
-		);
-		const asset = await q(
-			"INSERT INTO assets (organisation_id, name, design_code, design_service_life_years, created_at, updated_at) VALUES (?, 'A', 'EN 1992-1-1', 50, NOW(), NOW())",
-			[org]
-		);
-		const survey = await q(
-			"INSERT INTO surveys (asset_id, title, survey_date, created_at, updated_at) VALUES (?, 'S', '2025-01-01', NOW(), NOW())",
-			[asset]
-		);
-		const member = await q(
-			"INSERT INTO members (survey_id, asset_id, label, member_type, face, exposure_class, requirement_source, c_min_mm, c_nom_mm, delta_c_dev_mm, created_at, updated_at) VALUES (?, ?, 'M1', 'slab', 'top', 'XC3', 'EN 1992-1-1', 25, 35, 10, NOW(), NOW())",
-			[survey, asset]
-		);
+		const q = inserter(scratch.sequelize);
+		const { survey, member: addMember } = await scratchSurvey(scratch.sequelize);
+		const member = await addMember('M1');
 		const batch = await q(
 			"INSERT INTO import_batches (survey_id, source_format, state, created_at) VALUES (?, 'csv', 'completed', NOW())",
 			[survey]
@@ -207,24 +224,8 @@ describe('migration 017 on a database that already holds cover counts', () => {
 	it('rewrites grid counts in the live codec’s form, leaves off-grid counts, and reverts', async () => {
 		const migrator = createMigrator(scratch.sequelize);
 		await migrator.up({ to: '016-measurement-imports' });
-		const q = async (sql: string, replacements: unknown[] = []) =>
-			(await scratch.sequelize.query(sql, { replacements, type: QueryTypes.INSERT }))[0] as number;
-		const org = await q(
-			"INSERT INTO organisations (name, slug, created_at, updated_at) VALUES ('Scratch', 'scratch', NOW(), NOW())"
-		);
-		const asset = await q(
-			"INSERT INTO assets (organisation_id, name, design_code, design_service_life_years, created_at, updated_at) VALUES (?, 'A', 'EN 1992-1-1', 50, NOW(), NOW())",
-			[org]
-		);
-		const survey = await q(
-			"INSERT INTO surveys (asset_id, title, survey_date, created_at, updated_at) VALUES (?, 'S', '2025-01-01', NOW(), NOW())",
-			[asset]
-		);
-		const member = async (label: string) =>
-			q(
-				"INSERT INTO members (survey_id, asset_id, label, member_type, face, exposure_class, requirement_source, c_min_mm, c_nom_mm, delta_c_dev_mm, created_at, updated_at) VALUES (?, ?, ?, 'slab', 'top', 'XC3', 'EN 1992-1-1', 25, 35, 10, NOW(), NOW())",
-				[survey, asset, label]
-			);
+		const q = inserter(scratch.sequelize);
+		const { member } = await scratchSurvey(scratch.sequelize);
 		// Migration 012's fixed form: int32 step, uint32 count, little-endian. Steps of 0.1 mm,
 		// one of them far from the rest and a count past one varint byte.
 		const entries: [number, number][] = [

@@ -14,8 +14,7 @@ import { QueryTypes, type Sequelize, type Transaction } from 'sequelize';
 import {
 	type CountedSample,
 	countedFromSorted,
-	countedFromTally,
-	mergeCounted
+	countedFromTally
 } from '../../analysis/countedSample';
 import { MemberCoverSet } from '../db/models';
 import { decodeCounts, encodeCounts } from './coverCountCodec';
@@ -218,11 +217,11 @@ export async function mergeIntoCoverCounts(
 			counts = countedFromSorted(fresh?.get(memberId) ?? new Float64Array(0));
 		else if (stored === 'empty') counts = countedFromSorted(added);
 		else {
-			// The grid found again on the union, as a count of all the covers at once would find it.
-			const merged = mergeCounted([stored, countedFromSorted(added)]);
-			counts = countedFromTally(
-				new Map(Array.from(merged.values, (v, i) => [v, merged.counts[i]]))
-			);
+			// Tallied afresh so the grid is found on the union, as counting every cover would.
+			const tally = new Map<number, number>();
+			for (let i = 0; i < stored.values.length; i++) tally.set(stored.values[i], stored.counts[i]);
+			for (const cover of added) tally.set(cover, (tally.get(cover) ?? 0) + 1);
+			counts = countedFromTally(tally);
 		}
 		await storeCounts(transaction, memberId, counts);
 	}
