@@ -50,4 +50,29 @@ describe('the engineer applies the check-hole calibration on a population', () =
 		await page.getByTestId('calibration-sentence').waitFor();
 		await expect(page.getByTestId('apply-calibration').isChecked()).resolves.toBe(true);
 	});
+
+	it('ticks the calibration when saving an assessment, and the saved assessment shows both verdicts', async () => {
+		await page.goto(`/assets/${assetId}/assessments`);
+		await page.getByTestId('save-calibration').locator('input[name=calibration]').check();
+		await page.fill('input[name=title]', 'Car park, calibrated in the browser');
+		await page
+			.locator('form[action="?/save"]')
+			.screenshot({ path: `${SCREENSHOT_DIR}/assessment-save-calibration.png` });
+		await Promise.all([page.waitForURL('**/assessments/*'), page.click('text=Save as a draft')]);
+		const section = page.getByTestId('assessment-calibration');
+		await section.waitFor();
+		const deck = section.locator('[data-calibrated]', { hasText: 'deck · XD3' });
+		await expect(deck.getByTestId('calibration-sentence').textContent()).resolves.toMatch(
+			/^Applying the check-hole calibration (does not change the outcome|changes the outcome from)/
+		);
+		await expect(deck.locator('[data-verdict]').count()).resolves.toBe(2);
+		await expect(deck.getByTestId('calibration-line').textContent()).resolves.toMatch(
+			/^From \d+ check holes: measured = /
+		);
+		// A population with no check holes says why, in words.
+		await expect(section.textContent()).resolves.toContain('there are 0');
+		await section.scrollIntoViewIfNeeded();
+		await screenshot(page, 'assessment-calibration');
+		await section.screenshot({ path: `${SCREENSHOT_DIR}/assessment-calibration-section.png` });
+	});
 });

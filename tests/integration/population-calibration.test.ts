@@ -1,7 +1,14 @@
+import { execFileSync } from 'node:child_process';
+import { mkdirSync, writeFileSync } from 'node:fs';
 import { QueryTypes, type Sequelize } from 'sequelize';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { assessCalibrated, fitCalibration } from '../../src/lib/analysis';
+import type { AssessmentSnapshot } from '../../src/lib/server/assessments/snapshot';
+import { Assessment } from '../../src/lib/server/db/models';
 import type { CalibrationOutcome, PopulationResult } from '../../src/lib/server/populations';
+import { mm } from '../../src/lib/format';
+import { approveDirectly } from '../helpers/assessments';
+import { overlappingLines, textLines } from '../helpers/pdfLayout';
 import { testSequelize } from '../helpers/database';
 import { CAR_PARK, assetIdByName, coversBySql } from '../helpers/actors';
 import { anonymousClient, signInAs, type HttpClient } from '../helpers/session';
@@ -115,5 +122,78 @@ describe('the check-hole calibration chosen over the population detail API', () 
 			'The calibration needs at least 3 check holes; there are 0.'
 		);
 		expect(body.calibration!.sentence).toMatch(/^The check-hole calibration was not applied\./);
+	});
+
+	/** A draft saved over the API, and its snapshot as stored. */
+	async function saveOverApi(body: Record<string, unknown>) {
+		const response = await engineer.postJson(`/api/v1/assets/${carParkId}/assessments`, {
+			title: 'Deck cover with the meter calibrated',
+			...body
+		});
+		const saved = (await response.json()) as {
+			assessment?: { id: number };
+			error?: { field?: string; message: string };
+		};
+		if (response.status !== 201) return { status: response.status, saved, snapshot: null };
+		const read = await engineer.get(`/api/v1/assessments/${saved.assessment!.id}`, JSON_ACCEPT);
+		const { assessment } = (await read.json()) as { assessment: { snapshot: AssessmentSnapshot } };
+		return { status: response.status, saved, snapshot: assessment.snapshot };
+	}
+
+	it('an assessment saved with the calibration keeps, for each population, what the detail page shows, and its report prints it', async () => {
+		const { status, saved, snapshot } = await saveOverApi({ calibration: 'apply' });
+		expect(status).toBe(201);
+		expect(snapshot!.calibration).toBe('apply');
+		const deck = snapshot!.populations.find(
+			(p) => p.key.memberType === 'deck' && p.key.exposureClass === 'XD3'
+		)!;
+		// The same surveys through the detail API: one engine, one answer.
+		const surveys = snapshot!.scope.surveyIds!.join(',');
+		const response = await engineer.get(
+			`/api/v1/assets/${carParkId}/populations/detail?surveys=${surveys}&type=deck&exposure=XD3&calibration=apply`,
+			JSON_ACCEPT
+		);
+		const fromPage = ((await response.json()) as { calibration: CalibrationOutcome }).calibration;
+		expect(deck.calibration!.problem).toBeNull();
+		expect(deck.calibration!.calibrated!.calibration).toEqual(fromPage.calibrated!.calibration);
+		expect(deck.calibration!.calibrated!.assessment.characteristic.chosenMm).toBe(
+			fromPage.calibrated!.assessment.characteristic.chosenMm
+		);
+		expect(deck.calibration!.sentence).toBe(fromPage.sentence);
+		// The verdict kept as the assessment's is that of the readings as logged.
+		expect(deck.calibration!.asRead).toBe(deck.assessment!.verdict);
+		// Every population says something: calibrated, or why not.
+		for (const p of snapshot!.populations) expect(p.calibration?.sentence).toBeTruthy();
+
+		const row = (await Assessment.findByPk(saved.assessment!.id))!;
+		await approveDirectly(row);
+		const pdf = await engineer.get(`/api/v1/assessments/${row.id}/report`);
+		expect(pdf.status).toBe(200);
+		mkdirSync('test-results', { recursive: true });
+		const file = 'test-results/report-calibrated.pdf';
+		writeFileSync(file, Buffer.from(await pdf.arrayBuffer()));
+		const text = execFileSync('pdftotext', ['-layout', file, '-'], { encoding: 'utf8' });
+		expect(text).toContain('Check-hole calibration');
+		expect(text).toContain(deck.calibration!.sentence.slice(0, 40));
+		// The table's rows carry the snapshot's figures as the report formats them.
+		const asLogged = mm(deck.assessment!.characteristic.chosenMm);
+		const calibrated = mm(deck.calibration!.calibrated!.assessment.characteristic.chosenMm);
+		expect(text).toMatch(new RegExp(`As logged +${asLogged.replace('.', '\\.')}`));
+		expect(text).toMatch(new RegExp(`Calibrated +${calibrated.replace('.', '\\.')}`));
+		expect(text).toMatch(/From \d+ check holes: measured = /);
+		const clashes = overlappingLines(textLines(file)).map(
+			([a, b]) => `page ${a.page}: “${a.text}” over “${b.text}”`
+		);
+		expect(clashes).toEqual([]);
+	});
+
+	it('an assessment saved without the calibration carries none, and an unknown choice is refused naming the field', async () => {
+		const { status, snapshot } = await saveOverApi({});
+		expect(status).toBe(201);
+		expect(snapshot!.calibration).toBeUndefined();
+		expect(snapshot!.populations.every((p) => p.calibration === undefined)).toBe(true);
+		const bad = await saveOverApi({ calibration: 'yes' });
+		expect(bad.status).toBe(400);
+		expect(bad.saved.error?.field).toBe('calibration');
 	});
 });

@@ -189,7 +189,28 @@ export const CALIBRATION_METHOD_WORDS =
 	'cover is uncertain: a Student t with the calibration’s degrees of freedom and standard error ' +
 	's·√(1 + 1/n + (r − r̄)²/Sxx), the textbook prediction interval. Its variance is added to the ' +
 	'spread of the calibrated covers, so the population judged has the mean of the calibrated covers ' +
-	'and the standard deviation √(s_c² + V̄), V̄ the mean prediction variance; the chosen rule set, ' +
+	'and the standard deviation √(s_c² + V), V the mean prediction variance; the chosen rule set, ' +
 	'method and model then judge it as any population. The normal-model figures are exact for that ' +
 	'mean and spread; the empirical figures keep the shape of the readings. Beside it, the predicted ' +
 	'share below c_min is the mean over the readings of the chance that each one’s cover is below.';
+
+/**
+ * The calibration line and what its uncertainty does to the spread, in one sentence, for the
+ * detail page, a saved assessment and the report alike. Lengths as "0.13 mm", 2 decimals.
+ */
+export function calibrationLineWords(c: CalibratedAssessment): string {
+	const line = c.calibration;
+	const mm2 = (v: number) => `${v.toFixed(2)} mm`;
+	const offset = `${line.interceptMm < 0 ? '−' : '+'} ${mm2(Math.abs(line.interceptMm))}`;
+	const equation =
+		line.model === 'line'
+			? `measured = ${line.slope.toFixed(3)} × reading ${offset}`
+			: `measured = reading ${offset} (offset only: fewer than 5 holes)`;
+	return (
+		`From ${line.n} check holes: ${equation}; residual SD ${mm2(line.residualSdMm)} with ` +
+		`${line.degreesOfFreedom} degrees of freedom (t = ${line.tQuantile.toFixed(2)} at ` +
+		`${Math.round(line.level * 100)} %). Adding the mean prediction variance ` +
+		`${c.spread.predictiveVarianceMm2.toFixed(2)} mm² turns the calibrated covers’ SD ` +
+		`${mm2(c.spread.calibratedSdMm)} into ${mm2(c.spread.judgedSdMm)}.`
+	);
+}

@@ -127,6 +127,7 @@ export {
 	assessCalibrated,
 	CALIBRATION_METHOD_WORDS,
 	calibratedSpread,
+	calibrationLineWords,
 	predictiveShareBelow,
 	type CalibratedAssessment,
 	type CalibratedSpread,

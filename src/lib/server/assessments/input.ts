@@ -1,6 +1,6 @@
 /** What a client sends to save an assessment, checked with zod. */
 import { z } from 'zod';
-import { methodSchema, SPLITS } from '$lib/server/populations';
+import { calibrationSchema, methodSchema, SPLITS } from '$lib/server/populations';
 
 export const saveSchema = z.object({
 	title: z
@@ -27,6 +27,11 @@ export const saveSchema = z.object({
 		.nullable()
 		.default(null),
 	methods: methodSchema.default(methodSchema.parse({})),
+	/**
+	 * 'apply': each population is also judged through its members' check-hole calibration,
+	 * shown beside the verdict as read (the verdict itself stays that of the readings).
+	 */
+	calibration: calibrationSchema.shape.calibration,
 	recommendations: z
 		.string()
 		.trim()

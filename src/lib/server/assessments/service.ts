@@ -17,7 +17,7 @@ import {
 } from '$lib/server/access';
 import { InputError, NotFoundError, StateError } from '$lib/server/domainErrors';
 import { customPopulationsOf, surveySelection } from '$lib/server/populations';
-import type { MethodChoice, Split } from '$lib/server/populations';
+import type { CalibrationChoice, MethodChoice, Split } from '$lib/server/populations';
 import { buildSnapshot, serialiseSnapshot, sha256Hex } from './snapshot';
 
 export interface SaveInput {
@@ -30,6 +30,8 @@ export interface SaveInput {
 	/** The custom populations to carry, by id; null or absent, every one of the asset. */
 	customIds?: number[] | null;
 	methods: MethodChoice;
+	/** 'apply': each population also judged through its check holes; absent, none. */
+	calibration?: CalibrationChoice;
 	recommendations: string | null;
 	/** An approved assessment this one is to replace, with the reason. */
 	supersedes?: { id: number; reason: string } | null;
@@ -78,7 +80,8 @@ export async function saveDraft(actor: Actor, input: SaveInput): Promise<Assessm
 		{ surveyId: input.surveyId, split: input.split },
 		input.methods,
 		selection,
-		customIds
+		customIds,
+		input.calibration ?? 'none'
 	);
 	const { text, sha256 } = serialiseSnapshot(snapshot);
 	// Durability projections with the stated defaults, kept with the draft (risk/store.ts).

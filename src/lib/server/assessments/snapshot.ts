@@ -14,6 +14,7 @@ import {
 	meterCheck,
 	populationLowAreas,
 	populationOverview,
+	type CalibrationChoice,
 	type MeterCheck,
 	type MethodChoice,
 	type JudgedCustomPopulation,
@@ -76,6 +77,11 @@ export interface AssessmentSnapshot {
 	 * carry (all of the asset's when the save named none). Absent in older snapshots.
 	 */
 	custom?: JudgedCustomPopulation[];
+	/**
+	 * 'apply' when the engineer asked for each population to be judged again through its
+	 * members' check-hole calibration (each population's `calibration`); absent otherwise.
+	 */
+	calibration?: 'apply';
 }
 
 function surveyOf(s: Survey): SnapshotSurvey {
@@ -97,7 +103,8 @@ export async function buildSnapshot(
 	methods: MethodChoice,
 	selection?: SurveySelection,
 	/** The custom populations to carry; absent, every one of the asset. */
-	customIds?: readonly number[]
+	customIds?: readonly number[],
+	calibration: CalibrationChoice = 'none'
 ): Promise<AssessmentSnapshot> {
 	const overview = await populationOverview({
 		assetId: asset.id,
@@ -105,7 +112,8 @@ export async function buildSnapshot(
 		surveyIds: selection?.surveyIds,
 		split: scope.split,
 		choice: methods,
-		charts: true
+		charts: true,
+		calibration
 	});
 	const members = overview.populations.flatMap((p) => p.members);
 	const surveyIds = [...new Set(members.map((m) => m.surveyId))];
@@ -144,7 +152,8 @@ export async function buildSnapshot(
 			choice: methods,
 			ids: customIds,
 			charts: true
-		})
+		}),
+		...(calibration === 'apply' ? { calibration } : {})
 	};
 }
 

@@ -62,6 +62,9 @@ function recordBatches(job: ImportJob, tally: ImportTally): AsyncGenerator<Recor
 		: csvRecordBatches(counter, job.options);
 }
 
+/** What a cancelled import says, whenever the cancel was seen. */
+const CANCELLED = 'The import was cancelled; nothing was written.';
+
 /** The reading columns the file fills: the rest stay NULL and are left out of the chunk files. */
 function mappedColumns(mapping: ColumnMapping): OptionalColumn[] {
 	const fieldOf: Record<OptionalColumn, keyof ColumnMapping> = {
@@ -166,7 +169,7 @@ async function streamRows(
 			) {
 				lastTick = Date.now();
 				if (await tickProgress(job.batchId, tally, connectionId)) {
-					throw new ImportError('cancelled', 'The import was cancelled; nothing was written.');
+					throw new ImportError('cancelled', CANCELLED);
 				}
 			}
 		}
@@ -209,6 +212,11 @@ export async function runImport(job: ImportJob): Promise<ImportOutcome> {
 		await streamRows(job, writer, tally, connectionId);
 		const idRange = await writer.finish();
 		tally.rowsWritten = writer.rowsWritten;
+		// A cancel asked for after the last progress report (while the last rows were read and
+		// written) still wins: nothing commits. Only the commit itself is past cancelling.
+		if (await tickProgress(job.batchId, tally, connectionId)) {
+			throw new ImportError('cancelled', CANCELLED);
+		}
 		return await finishImport(job, tally, transaction, idRange);
 	} catch (err) {
 		await writer?.abort();

@@ -4,9 +4,22 @@
  * assessment — never computed here, and never from the readings one by one.
  * The risk view, the reports and the API call these functions.
  */
-import { assessPopulationCounted, ENGINE_VERSION, type PopulationAssessment } from '$lib/analysis';
+import {
+	assessPopulationCounted,
+	ENGINE_VERSION,
+	toPlainJson,
+	type PopulationAssessment
+} from '$lib/analysis';
+import { calibrationOutcome, type CalibrationOutcome } from './calibration';
+import { meterCheck } from './detail';
 import { gatherGroups, keyId, type GatheredGroup, type PopulationKey } from './groups';
-import { toAssessOptions, type GroupSelector, type MethodChoice, type Split } from './query';
+import {
+	toAssessOptions,
+	type CalibrationChoice,
+	type GroupSelector,
+	type MethodChoice,
+	type Split
+} from './query';
 import { groupRequirement, type GroupRequirement } from './requirement';
 
 export interface PopulationMember {
@@ -28,6 +41,11 @@ export interface PopulationResult {
 	assessment: PopulationAssessment | null;
 	/** Why there is no assessment, in words. */
 	problem: string | null;
+	/**
+	 * The population judged again through its members' check-hole calibration, beside the
+	 * verdict as read (calibration.ts); only when the calibration was asked for.
+	 */
+	calibration?: CalibrationOutcome;
 }
 
 export interface PopulationScopeInput {
@@ -39,6 +57,8 @@ export interface PopulationScopeInput {
 	choice: MethodChoice;
 	/** Chart data for every population (snapshots for reports); default false. */
 	charts?: boolean;
+	/** 'apply': each population also judged through its members' check holes; default none. */
+	calibration?: CalibrationChoice;
 }
 
 export function populationLabel(key: PopulationKey, members: readonly { label: string }[]) {
@@ -94,12 +114,16 @@ export async function populationOverview(input: PopulationScopeInput): Promise<P
 		{ assetId: input.assetId, surveyId: input.surveyId, surveyIds: input.surveyIds },
 		input.split
 	);
-	return {
-		engineVersion: ENGINE_VERSION,
-		choice: input.choice,
-		split: input.split,
-		populations: groups.map((g) => judgeGroup(g, input.choice, input.charts ?? false))
-	};
+	const populations = groups.map((g) => judgeGroup(g, input.choice, input.charts ?? false));
+	if (input.calibration === 'apply') {
+		for (const [i, group] of groups.entries()) {
+			const meter = await meterCheck(group.members.map((m) => m.id));
+			populations[i].calibration = toPlainJson(
+				calibrationOutcome(populations[i], group, meter, input.choice)
+			);
+		}
+	}
+	return { engineVersion: ENGINE_VERSION, choice: input.choice, split: input.split, populations };
 }
 
 export interface DetailGathered {

@@ -60,9 +60,14 @@ async function coversFromReadings(
 	return out;
 }
 
-/** One row a member, read by primary key (EXPLAIN in tests/integration/populations.test.ts). */
+/**
+ * One row a member, read by primary key (EXPLAIN in tests/integration/populations.test.ts). The
+ * rows are short now (counts only), so on a small table the optimiser may judge a whole scan
+ * cheaper and read every member's row; the index is named so an asset reads its own rows only,
+ * whatever the table's size.
+ */
 export const COVER_COUNTS_SQL =
-	'SELECT member_id AS memberId, grid_den AS den, grid_factor AS factor, cover_counts AS counts FROM member_cover_sets WHERE member_id IN (:part)';
+	'SELECT member_id AS memberId, grid_den AS den, grid_factor AS factor, cover_counts AS counts FROM member_cover_sets FORCE INDEX (PRIMARY) WHERE member_id IN (:part)';
 
 type CoverCountRow = {
 	memberId: number;
@@ -119,7 +124,7 @@ export async function readingCounts(memberIds: readonly number[]): Promise<Map<n
 	const stored = new Set<number>();
 	for (const part of chunks(ids)) {
 		const rows = await sequelize.query<{ memberId: number; n: number }>(
-			'SELECT member_id AS memberId, reading_count AS n FROM member_cover_sets WHERE member_id IN (:part)',
+			'SELECT member_id AS memberId, reading_count AS n FROM member_cover_sets FORCE INDEX (PRIMARY) WHERE member_id IN (:part)',
 			{ type: QueryTypes.SELECT, replacements: { part } }
 		);
 		for (const r of rows) {
@@ -144,6 +149,8 @@ type LockedCounts = CountedSample | 'empty' | 'recount';
 /**
  * Locks the members' summary rows until the transaction ends, creating empty ones first, in
  * ascending member order so that two imports into the same members queue rather than deadlock.
+ * By primary key always: a scan would lock every row it passes, so imports into other members
+ * would queue too.
  * Answers each row's stored counts, read under the lock (the latest committed, not the
  * transaction's snapshot).
  */
@@ -163,7 +170,8 @@ async function lockSummaries(
 		const rows = await sequelize.query<CoverCountRow & { n: number }>(
 			`SELECT member_id AS memberId, reading_count AS n, grid_den AS den, grid_factor AS factor,
 			        cover_counts AS counts
-			   FROM member_cover_sets WHERE member_id IN (:part) ORDER BY member_id FOR UPDATE`,
+			   FROM member_cover_sets FORCE INDEX (PRIMARY)
+			  WHERE member_id IN (:part) ORDER BY member_id FOR UPDATE`,
 			{ type: QueryTypes.SELECT, replacements: { part }, transaction }
 		);
 		for (const row of rows) {

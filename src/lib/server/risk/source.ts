@@ -5,6 +5,7 @@
  */
 import type { MeterVerification, PopulationAssessment } from '$lib/analysis';
 import type { CarriedCustomLike, LowAreaSummary } from '$lib/words';
+import type { CalibrationOutcome } from '$lib/server/populations/calibration';
 
 export interface SnapshotPopulationLike {
 	id: string;
@@ -14,6 +15,8 @@ export interface SnapshotPopulationLike {
 	requirement: { governingMember: string; note: string | null };
 	assessment: PopulationAssessment | null;
 	problem: string | null;
+	/** Present when the assessment was saved with the check-hole calibration applied. */
+	calibration?: CalibrationOutcome;
 }
 
 export interface SnapshotSurveyLike {
@@ -55,6 +58,8 @@ export interface SnapshotLike {
 	lowAreas?: { members: (LowAreaSummary & { share: number })[] }[];
 	/** The custom populations the assessment carries, apart from `populations`; absent in older snapshots. */
 	custom?: CarriedCustomLike[];
+	/** 'apply' when each population was also judged through its check holes. */
+	calibration?: 'apply';
 }
 
 /** The assessment row's own fields that the report shows beside its snapshot. */

@@ -1,4 +1,5 @@
 /** Method statement: meter and its verification, populations, statistics and rules, engine. */
+import { CALIBRATION_METHOD_WORDS } from '$lib/analysis';
 import { describeParameters, type AssessedSource } from '$lib/server/risk';
 import type { ReportWriter } from '../layout';
 import { mm, num } from '$lib/format';
@@ -33,6 +34,12 @@ export function methodStatement(w: ReportWriter, source: AssessedSource): void {
 		const o = first.options;
 		w.paragraph(
 			`Characteristic cover: lower ${o.fractileP * 100} % fractile by the ${o.characteristicMethod} method at ${o.confidence * 100} % confidence; percentiles by Hyndman–Fan type ${o.percentileType}; model ${o.model}; rule set ${o.ruleSet}; at least ${o.minSampleSize} readings for each statistical rule.`
+		);
+	}
+	if (snapshot.calibration === 'apply') {
+		w.heading('Check-hole calibration', 2);
+		w.paragraph(
+			`Each population is also judged through its members' check holes, shown beside its verdict under Populations; the verdict stays that of the readings as the meter logged them. ${CALIBRATION_METHOD_WORDS}`
 		);
 	}
 	w.heading('Durability models', 2);

@@ -64,7 +64,9 @@ const formSchema = z.object({
 	supersedesId: z.coerce.number().int().positive().optional(),
 	reason: z.string().trim().optional(),
 	query: z.string().max(2000).default(''),
-	custom: z.array(z.coerce.number().int().positive()).max(500).default([])
+	custom: z.array(z.coerce.number().int().positive()).max(500).default([]),
+	/** The box "also judge each population through the check holes", ticked or not. */
+	calibration: z.enum(['apply'], 'The calibration box sends apply or nothing.').optional()
 });
 
 type FormErrors = Partial<Record<'title' | 'reason' | 'custom', string>>;
@@ -123,6 +125,7 @@ export const actions = {
 				split: scope.data.split,
 				customIds: parsed.data.custom,
 				methods: methods.data,
+				calibration: parsed.data.calibration ?? 'none',
 				recommendations: parsed.data.recommendations || null,
 				supersedes: supersedes?.data ?? null
 			}).catch((err: unknown) => {

@@ -27,6 +27,7 @@ export const POST: RequestHandler = async ({ locals, params, request }) => {
 			split: body.split,
 			customIds: body.custom,
 			methods: body.methods,
+			calibration: body.calibration,
 			recommendations: body.recommendations,
 			supersedes: body.supersedes
 		})
