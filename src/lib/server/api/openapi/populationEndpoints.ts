@@ -1,5 +1,6 @@
 import { z } from 'zod';
 import { calibrationSchema, groupSchema, methodSchema, scopeSchema } from '../../populations/query';
+import { saveSchema } from '../../assessments/input';
 import { customPopulationSchema, renameSchema } from '../../populations/custom';
 import { READ_ONLY } from './errors';
 import { idParam } from '../schemas';
@@ -148,6 +149,25 @@ export const populationEndpoints: Endpoint[] = [
 			mediaType: 'application/json',
 			schema: z.object({ assessments: z.array(z.unknown()) }),
 			description: 'Assessment summaries.'
+		}
+	},
+	{
+		method: 'post',
+		path: '/api/v1/assets/{assetId}/assessments',
+		operationId: 'saveAssessment',
+		tag: 'Populations',
+		summary: 'Compute the populations now and keep them as a draft assessment; audited',
+		description:
+			'Owning organisation only. The snapshot keeps the engine\'s figures, methods and engine version; it never changes once approved. calibration "apply" also judges each population through its members\' check holes, beside the verdict as read.',
+		action: 'assessment:write',
+		params: assetParams,
+		body: saveSchema,
+		exampleBody: { title: 'Deck and soffits, as surveyed', calibration: 'apply' },
+		response: {
+			status: 201,
+			mediaType: 'application/json',
+			schema: z.object({ assessment: engineResult('The saved draft, summarised.') }),
+			description: 'Saved as a draft.'
 		}
 	}
 ];
