@@ -15,12 +15,15 @@ const sorted = (values: Float64Array) => Float64Array.from(values).sort();
 
 describe('cover count codec', () => {
 	it('writes grid counts as ZigZag and LEB128 varints (Protocol Buffers encoding guide)', () => {
-		// The guide's examples: 150 is 0x96 0x01 and 1 is 0x01 as varints; ZigZag maps
-		// 0, −1, 1, −2 to 0, 1, 2, 3. Steps 75 and −1 at 1 mm: first step ZigZag(−1) = 1.
+		// https://protobuf.dev/programming-guides/encoding/ ("Varints", "Signed Integers"): 150 is
+		// 0x96 0x01, 300 is 0xac 0x02; ZigZag maps 0, −1, 1, −2 to 0, 1, 2, 3. A member with one
+		// cover at step k holds ZigZag(k), then its count.
 		const one = { den: 1, factor: 1 };
-		expect(
-			encodeCounts(countedFromSorted(Float64Array.from([75]), one)).bytes.toString('hex')
-		).toBe('9601' + '01');
+		const single = (k: number, n = 1) =>
+			encodeCounts(countedFromSorted(new Float64Array(n).fill(k), one)).bytes.toString('hex');
+		expect(single(75)).toBe('9601' + '01');
+		expect([0, -1, 1, -2].map((k) => single(k))).toEqual(['0001', '0101', '0201', '0301']);
+		expect(single(0, 300)).toBe('00' + 'ac02');
 		const steps = [-1, 0, 2];
 		const covers = Float64Array.from([-1, 0, 0, 2]);
 		const stored = encodeCounts(countedFromSorted(covers, one));
