@@ -102,14 +102,33 @@ function closeDeep(
 const THROUGH_FIT_PATH =
 	/andersonDarling|kolmogorovSmirnov|grouped|modelShare|normal\.share|lognormal\.share|upperBoundVariables|variables|pValue|curves/i;
 
+/**
+ * Skewness and kurtosis are ratios of central moments that nearly cancel for a symmetric
+ * sample, so their error is relative to the terms (order 1), not to the result: a skewness of
+ * 0.05 differed by 8.9e-14 between the exact counted sums and the raw pass (FOUND_SKEWED).
+ */
+const SHAPE_PATH = /skewness|kurtosis/i;
+const SHAPE_ABSOLUTE = 1e-12;
+
 function bound(scale: number) {
 	return (path: string, a: number, b: number) => {
 		const size = Math.max(Math.abs(a), Math.abs(b));
-		return THROUGH_FIT_PATH.test(path)
-			? THROUGH_FIT * Math.max(1, size)
-			: Math.max(RELATIVE * size, 1e-15 * scale);
+		if (THROUGH_FIT_PATH.test(path)) return THROUGH_FIT * Math.max(1, size);
+		if (SHAPE_PATH.test(path)) return Math.max(RELATIVE * size, SHAPE_ABSOLUTE);
+		return Math.max(RELATIVE * size, 1e-15 * scale);
 	};
 }
+
+/** A population fast-check found at the edge of the bounds (seed −364316545), kept as an example. */
+const FOUND_SKEWED = Float64Array.from([
+	52.2, 51.2, 51.9, 52.3, 51.8, 52.8, 52.3, 52.3, 51.4, 52.8, 52.1, 52.5, 52.1, 52.2, 52.4, 52.3,
+	52.2, 51.7, 52.4, 51.1, 52.4, 51.3, 51.4, 51.2, 51.6, 51.4, 51.8, 52.4, 52.4, 52.2, 52.3, 51.6,
+	51.9, 52, 52.2, 52, 51.5, 51.2, 52, 52.1, 52.4, 52.9, 52, 51.8, 51.1, 52.3, 51.4, 52.6, 52.4,
+	52.3, 51.8, 51.3, 51.4, 52.2, 52.5, 52.3, 53.1, 51.8, 52, 51.9, 52.9, 51.7, 51.4, 52.4, 51.3,
+	51.5, 51.7, 52, 51.3, 51.4, 52, 52, 52.2, 51.1, 51.7, 52, 52.2, 52.3, 52.6, 52.1, 51.8, 51.3,
+	51.4, 52.8, 52, 51.8, 51.8, 52.3, 51.4, 51.6, 51.7, 51.2, 51.3, 52.7, 51.8, 51.2, 52.2, 51.2,
+	51.3, 52.5, 52.2, 51.8, 52.4, 52.3, 51.7, 51.6, 51.8, 51.6, 51.6, 50.9, 52.4, 51.6
+]);
 
 describe('assessment from counts equals the raw readings', () => {
 	it(
@@ -223,7 +242,10 @@ describe('assessment from counts equals the raw readings', () => {
 						}
 					}
 				),
-				{ numRuns: 40 }
+				{
+					numRuns: 40,
+					examples: [[{ grid: { den: 10, factor: 1 }, readings: FOUND_SKEWED }, 6, undefined]]
+				}
 			);
 		}
 	);
@@ -371,9 +393,28 @@ function expandedEm(
 	return { p: p.map((c) => ({ ...c, m: c.m + mean })), trace };
 }
 
+/**
+ * EM over 25 steps magnifies the last bits where a component closes on one repeated value: in
+ * FOUND_DEGENERATE (110 readings at 49 mm) the counted and expanded traces parted by 2.5e-9
+ * relative, from sums taken in another order. So the trace and components agree to 1e-8 here.
+ */
+const EM_STEPS = 1e-8;
+const FOUND_DEGENERATE = [
+	Float64Array.from([26, 26, 27, 28, 30, 30, 30, 32, 35, 35, 36, 38]),
+	Float64Array.from([
+		39,
+		...new Array<number>(3).fill(40),
+		...new Array<number>(20).fill(41),
+		...new Array<number>(29).fill(42),
+		...new Array<number>(18).fill(43),
+		...new Array<number>(7).fill(44)
+	]),
+	new Float64Array(110).fill(49)
+];
+
 describe('the mixture from counts equals EM on the readings expanded', () => {
 	it(
-		'same log-likelihood trace and components, iteration by iteration, to 1e-9',
+		'same log-likelihood trace and components, iteration by iteration, to 1e-8',
 		{ timeout: 60_000 },
 		() => {
 			fc.assert(
@@ -405,13 +446,13 @@ describe('the mixture from counts equals EM on the readings expanded', () => {
 					);
 					for (let i = 0; i < iterations; i++)
 						expect(Math.abs(fit.trace[i] - reference.trace[i])).toBeLessThanOrEqual(
-							THROUGH_FIT * Math.abs(reference.trace[i])
+							EM_STEPS * Math.abs(reference.trace[i])
 						);
 					const ref = [...reference.p].sort((x, y) => x.m - y.m);
 					fit.components.forEach((c, j) => {
-						expect(Math.abs(c.share - ref[j].share)).toBeLessThanOrEqual(THROUGH_FIT);
-						expect(Math.abs(c.meanMm - ref[j].m)).toBeLessThanOrEqual(THROUGH_FIT * ref[j].m);
-						expect(Math.abs(c.sdMm - ref[j].sd)).toBeLessThanOrEqual(THROUGH_FIT * sd);
+						expect(Math.abs(c.share - ref[j].share)).toBeLessThanOrEqual(EM_STEPS);
+						expect(Math.abs(c.meanMm - ref[j].m)).toBeLessThanOrEqual(EM_STEPS * ref[j].m);
+						expect(Math.abs(c.sdMm - ref[j].sd)).toBeLessThanOrEqual(EM_STEPS * sd);
 					});
 					// Each member's share of the low component, from its counts and from its readings.
 					for (const own of parts)
@@ -421,7 +462,7 @@ describe('the mixture from counts equals EM on the readings expanded', () => {
 							)
 						).toBeLessThanOrEqual(RELATIVE);
 				}),
-				{ numRuns: 40 }
+				{ numRuns: 40, examples: [[FOUND_DEGENERATE]] }
 			);
 		}
 	);
