@@ -211,6 +211,35 @@ export function customPopulationWords(c: CarriedCustomLike): string {
 	return `The engineer judged ${who} together as “${c.custom.name}”: ${verdict(chosen)}.`;
 }
 
+/** What a saved assessment's check-hole calibration of one population holds (snapshot shape). */
+export interface CalibratedPopulationLike {
+	label: string;
+	calibration: {
+		asRead: RuleOutcome | null;
+		calibrated: { calibration: { n: number }; assessment: { verdict: RuleOutcome } } | null;
+		problem: string | null;
+	};
+}
+
+/**
+ * A population's check-hole calibration in one sentence for the owner: "deck · XD3: the cover
+ * meter was checked against 4 holes drilled to the steel; with its readings corrected by them
+ * the outcome stays: does not comply."
+ */
+export function calibrationOwnerWords({ label, calibration: c }: CalibratedPopulationLike): string {
+	if (!c.calibrated)
+		return `${label}: the cover meter could not be checked here. ${c.problem ?? ''}`.trim();
+	const holes = counted(c.calibrated.calibration.n, 'hole');
+	const before = verdictWords(c.asRead).toLowerCase();
+	const after = verdictWords(c.calibrated.assessment.verdict).toLowerCase();
+	const outcome = before === after ? `stays: ${after}` : `changes from ${before} to ${after}`;
+	return `${label}: the cover meter was checked against ${holes} drilled to the steel; with its readings corrected by them the outcome ${outcome}.`;
+}
+
+/** What the owner's list of calibrated populations means (the owner's page). */
+export const CALIBRATION_OWNER_WORDS =
+	'Measured: the cover at each hole, drilled down to the bar. The verdicts below stay those of the meter’s readings; the engineer’s report gives the corrected figures and how they were worked out.';
+
 /** Why the custom populations stand apart from the groups (the owner's page and the report). */
 export const CUSTOM_APART_WORDS =
 	'Judged by the same engine in addition to the assessment’s populations; each member is counted once, in its own population, in the risk figures.';

@@ -3,7 +3,12 @@
  * populations. Expected texts are our own wording, written out in full.
  */
 import { describe, expect, it } from 'vitest';
-import { customPopulationWords, memberLowAreaWords, treatFirstWords } from '$lib/words';
+import {
+	calibrationOwnerWords,
+	customPopulationWords,
+	memberLowAreaWords,
+	treatFirstWords
+} from '$lib/words';
 
 describe('rule set words', () => {
 	it('names every rule set the engine has in words, never by its key', async () => {
@@ -68,6 +73,42 @@ describe('a custom population in the owner’s words', () => {
 		});
 		expect(words).toBe(
 			'The engineer judged members A, B, C and 3 more together as “North edge”: complies.'
+		);
+	});
+});
+
+describe('the check-hole calibration in words for the owner', () => {
+	const population = (
+		asRead: 'pass' | 'fail',
+		calibrated: 'pass' | 'fail' | null,
+		problem: string | null = null
+	) => ({
+		label: 'deck · XD3',
+		calibration: {
+			asRead,
+			calibrated: calibrated
+				? { calibration: { n: 4 }, assessment: { verdict: calibrated } }
+				: null,
+			problem
+		}
+	});
+
+	it('says the outcome stays, or how it changes, and counts the holes', () => {
+		expect(calibrationOwnerWords(population('fail', 'fail'))).toBe(
+			'deck · XD3: the cover meter was checked against 4 holes drilled to the steel; with its readings corrected by them the outcome stays: does not comply.'
+		);
+		expect(calibrationOwnerWords(population('pass', 'fail'))).toBe(
+			'deck · XD3: the cover meter was checked against 4 holes drilled to the steel; with its readings corrected by them the outcome changes from complies to does not comply.'
+		);
+	});
+
+	it('says why the meter could not be checked where there were too few holes', () => {
+		expect(
+			calibrationOwnerWords(
+				population('pass', null, 'The calibration needs at least 3 check holes; there are 1.')
+			)
+		).toBe(
+			'deck · XD3: the cover meter could not be checked here. The calibration needs at least 3 check holes; there are 1.'
 		);
 	});
 });

@@ -7,7 +7,7 @@ import { authorize } from '$lib/server/web/actor';
 import { can } from '$lib/server/policy';
 import { linksOf, revokeLink, shareReport, shareSchema } from '$lib/server/reports';
 import { assetView, toRiskView } from '$lib/server/risk';
-import { customPopulationWords } from '$lib/words';
+import { calibrationOwnerWords, customPopulationWords } from '$lib/words';
 import { loadOr404 } from '$lib/server/web/pages';
 import { pathId } from '$lib/server/web/params';
 
@@ -28,6 +28,15 @@ export const load: PageServerLoad = async (event) => {
 		lowAreas: latest?.snapshot.lowAreas?.flatMap((p) => p.members) ?? null,
 		/** The populations the engineer made and the assessment carries, one sentence each. */
 		custom: (latest?.snapshot.custom ?? []).map(customPopulationWords),
+		/** Each population's check against the drilled holes, when the assessment carries it. */
+		calibration:
+			latest?.snapshot.calibration === 'apply'
+				? latest.snapshot.populations.flatMap((p) =>
+						p.calibration
+							? [calibrationOwnerWords({ label: p.label, calibration: p.calibration })]
+							: []
+					)
+				: [],
 		mayShare,
 		links: links.map((l) => ({
 			id: l.id,
