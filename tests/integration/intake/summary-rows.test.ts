@@ -84,6 +84,33 @@ async function expectInStep(sequelize: Sequelize, memberIds: number[]) {
 	}
 }
 
+/** One CSV imported whole by the given write method, with the settings its preview detected; its batch id. */
+async function importBy(
+	actor: Actor,
+	surveyId: number,
+	writeMethod: 'load-data' | 'bulk',
+	text: string,
+	mapping: typeof standardMapping,
+	extra: Parameters<typeof options>[0] = {}
+) {
+	const upload = await receiveUpload(
+		actor,
+		surveyId,
+		`${writeMethod}.csv`,
+		Readable.from([Buffer.from(text)])
+	);
+	const { mixedDecimalMarks: _, ...detected } = upload.preview.settings;
+	const started = await startImport(actor, upload.batchId, {
+		mapping,
+		options: options({ ...detected, ...extra }),
+		confirmDuplicate: true,
+		saveTemplateAs: null,
+		writeMethod
+	});
+	expect((await started.done).state).toBe('completed');
+	return upload.batchId;
+}
+
 describe('member summary rows stay equal to the readings', () => {
 	let sequelize: Sequelize;
 	let actor: Actor;
@@ -111,21 +138,9 @@ describe('member summary rows stay equal to the readings', () => {
 				'M-02,1,0,45',
 				'M-03,0,0,12.5'
 			]);
-			const upload = await receiveUpload(
-				actor,
-				survey.id,
-				`${writeMethod}.csv`,
-				Readable.from([Buffer.from(text)])
-			);
-			const { mixedDecimalMarks: _, ...detected } = upload.preview.settings;
-			const started = await startImport(actor, upload.batchId, {
-				mapping: standardMapping,
-				options: options({ ...detected, acceptSmallCovers: true }),
-				confirmDuplicate: true,
-				saveTemplateAs: null,
-				writeMethod
+			await importBy(actor, survey.id, writeMethod, text, standardMapping, {
+				acceptSmallCovers: true
 			});
-			expect((await started.done).state).toBe('completed');
 			const m1 = await expectCountsOfReadings(sequelize, members[0].id);
 			// 0.1 mm grid: 30.1 mm is 301 steps, held twice.
 			expect(m1!.lattice!.grid).toEqual({ den: 10, factor: 1 });
@@ -231,21 +246,7 @@ describe('member summary rows stay equal to the readings', () => {
 		const written: unknown[][] = [];
 		for (const writeMethod of ['load-data', 'bulk'] as const) {
 			const { survey, members } = await freshSurvey(actor);
-			const upload = await receiveUpload(
-				actor,
-				survey.id,
-				`${writeMethod}.csv`,
-				Readable.from([Buffer.from(text)])
-			);
-			const { mixedDecimalMarks: _, ...detected } = upload.preview.settings;
-			const started = await startImport(actor, upload.batchId, {
-				mapping,
-				options: options(detected),
-				confirmDuplicate: true,
-				saveTemplateAs: null,
-				writeMethod
-			});
-			expect((await started.done).state).toBe('completed');
+			const batchId = await importBy(actor, survey.id, writeMethod, text, mapping);
 			await expectInStep(
 				sequelize,
 				members.map((m) => m.id)
@@ -256,7 +257,7 @@ describe('member summary rows stay equal to the readings', () => {
 				{ replacements: [survey.id], type: QueryTypes.SELECT }
 			);
 			written.push(rows.map((r) => Object.values(r)));
-			const batch = await ImportBatch.findByPk(upload.batchId);
+			const batch = await ImportBatch.findByPk(batchId);
 			expect(batch!.firstReadingId).not.toBeNull();
 			expect(Number(batch!.lastReadingId) - Number(batch!.firstReadingId)).toBeGreaterThanOrEqual(
 				4
